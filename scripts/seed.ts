@@ -1,0 +1,35 @@
+// Seeds the demo club step by step. Each step runs once per database (recorded in seed_run),
+// so a second start adds nothing and a later feature's step still runs on an older database.
+import { eq } from 'drizzle-orm';
+import { connect, type DbOrTx } from '../src/lib/server/db';
+import { seedRuns } from '../src/lib/server/db/meta';
+import { promoteConfiguredAdmin } from '../src/lib/server/club/users';
+import { seedClub } from './seed/club';
+
+interface SeedStep {
+	name: string;
+	run(db: DbOrTx): Promise<void>;
+}
+
+const steps: SeedStep[] = [{ name: 'club', run: seedClub }];
+
+const { db, close } = connect();
+try {
+	for (const step of steps) {
+		const [done] = await db.select().from(seedRuns).where(eq(seedRuns.name, step.name));
+		if (done) continue;
+		const started = Date.now();
+		// One transaction per step: a step that fails leaves nothing behind and runs again next time.
+		await db.transaction(async (tx) => {
+			await step.run(tx);
+			await tx.insert(seedRuns).values({ name: step.name, ranAt: new Date() });
+		});
+		console.log(`  seeded ${step.name} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+	}
+	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, db);
+} catch (error) {
+	console.error('Seeding failed:', error);
+	process.exitCode = 1;
+} finally {
+	await close();
+}

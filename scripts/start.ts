@@ -1,0 +1,51 @@
+// `npm start`: set up what is missing, then serve the app with the demo club until Ctrl-C.
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { SetupError, ok, reportFailure, step } from './lib/log';
+import { bringUp, dataRoot, portsFor, type Stack } from './lib/stack';
+import { DEMO_SIGN_IN } from './seed/people';
+
+const started = Date.now();
+let stack: Stack | null = null;
+let stopping = false;
+
+async function shutdown(code: number) {
+	if (stopping) return;
+	stopping = true;
+	console.log('');
+	step('Shutting down…');
+	await stack?.stop();
+	ok('Stopped cleanly.');
+	process.exit(code);
+}
+process.on('SIGINT', () => void shutdown(0));
+process.on('SIGTERM', () => void shutdown(0));
+process.on('SIGHUP', () => void shutdown(0));
+
+try {
+	const dotenv = join(import.meta.dirname, '..', '.env');
+	if (existsSync(dotenv)) process.loadEnvFile(dotenv);
+	if (process.env.NODE_ENV === 'test') throw new SetupError('NODE_ENV=test is set.', 'Use `npm test` for tests; unset NODE_ENV for `npm start`.');
+	stack = await bringUp({ mode: 'start', home: join(dataRoot, 'start'), ports: portsFor('start'), database: 'riparia', fresh: false });
+	step('Starting the app…');
+	const app = await stack.serve();
+	void app.exited.then((code) => {
+		if (stopping) return;
+		console.error(`\n✗ The app stopped unexpectedly (exit code ${code}); see its output above.`);
+		void shutdown(1);
+	});
+	const seconds = ((Date.now() - started) / 1000).toFixed(1);
+	ok(`Riparia is ready in ${seconds} s at ${stack.urls.app}`);
+	console.log(`
+  Open ${stack.urls.app} and sign in with one of the demo addresses below.
+  The sign-in link arrives in the local mail inbox: ${stack.urls.mail}
+
+${DEMO_SIGN_IN.map((p) => `    ${p.role.padEnd(7)} ${p.email.padEnd(32)} ${p.name}`).join('\n')}
+
+  Photos are kept by the local storage fake at ${stack.urls.s3}
+  Press Ctrl-C to stop the app, the fakes and MariaDB.
+`);
+} catch (error) {
+	reportFailure(error);
+	await shutdown(1);
+}

@@ -1,0 +1,19 @@
+import type { Viewer } from '$lib/server/club/users';
+
+declare global {
+	namespace App {
+		interface Locals {
+			user: Viewer | null;
+			sessionToken: string | null;
+		}
+		interface Error {
+			message: string;
+			errorId?: string;
+		}
+		// interface PageData {}
+		// interface PageState {}
+		// interface Platform {}
+	}
+}
+
+export {};

@@ -1,0 +1,54 @@
+import { z } from 'zod';
+import { DISPLAY_NAME_MAX, DISPLAY_NAME_MIN, UNIT_SYSTEMS } from './roles';
+
+export const displayNameSchema = z
+	.string()
+	.trim()
+	.min(DISPLAY_NAME_MIN, `Use at least ${DISPLAY_NAME_MIN} characters.`)
+	.max(DISPLAY_NAME_MAX, `Keep it to ${DISPLAY_NAME_MAX} characters.`)
+	.regex(/^[\p{L}\p{N}][\p{L}\p{N} .'’_-]*$/u, "Use letters, numbers, spaces and . ' - _ only.");
+
+const optionalNumber = (min: number, max: number, label: string) =>
+	z
+		.string()
+		.trim()
+		.transform((v) => (v === '' ? null : Number(v.replace(',', '.'))))
+		.refine((v) => v === null || (Number.isFinite(v) && v >= min && v <= max), `${label} must be a number from ${min} to ${max}.`);
+
+export const profileSchema = z
+	.object({
+		displayName: displayNameSchema,
+		units: z.enum(UNIT_SYSTEMS, { message: 'Choose a unit system.' }),
+		locationMode: z.enum(['none', 'area', 'point']),
+		homeAreaId: z
+			.string()
+			.optional()
+			.transform((v) => (v ? Number(v) : null)),
+		homeLat: optionalNumber(-90, 90, 'Latitude'),
+		homeLng: optionalNumber(-180, 180, 'Longitude'),
+		notifyMessages: z.enum(['each', 'hourly', 'off']),
+		weeklyDigest: z
+			.string()
+			.optional()
+			.transform((v) => v === 'on'),
+		announcements: z
+			.string()
+			.optional()
+			.transform((v) => v === 'on')
+	})
+	.superRefine((v, ctx) => {
+		if (v.locationMode === 'area' && !v.homeAreaId) ctx.addIssue({ code: 'custom', path: ['homeAreaId'], message: 'Choose one of the club areas.' });
+		if (v.locationMode === 'point' && (v.homeLat === null || v.homeLng === null)) {
+			ctx.addIssue({ code: 'custom', path: [v.homeLat === null ? 'homeLat' : 'homeLng'], message: 'Give both latitude and longitude.' });
+		}
+	});
+
+/** zod issues as one message per field, for showing next to each input. */
+export function fieldErrors(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string> {
+	const errors: Record<string, string> = {};
+	for (const issue of issues) {
+		const key = issue.path.map(String).join('.') || 'form';
+		errors[key] ??= issue.message;
+	}
+	return errors;
+}

@@ -1,0 +1,132 @@
+import type { AdapterAccountType } from '@auth/core/adapters';
+import {
+	boolean,
+	char,
+	decimal,
+	index,
+	int,
+	json,
+	mysqlEnum,
+	mysqlTable,
+	primaryKey,
+	timestamp,
+	varchar,
+} from 'drizzle-orm/mysql-core';
+import { at, createdAt, id, ref } from '../db/columns';
+import { ROLES, UNIT_SYSTEMS } from '../../club/roles';
+
+// The four Auth.js tables keep the column names @auth/drizzle-adapter expects;
+// our own columns on `user` and `session` are additions the adapter ignores.
+
+export const users = mysqlTable(
+	'user',
+	{
+		id: varchar('id', { length: 255 })
+			.primaryKey()
+			.$defaultFn(() => crypto.randomUUID()),
+		name: varchar('name', { length: 255 }),
+		email: varchar('email', { length: 255 }).unique(),
+		emailVerified: timestamp('emailVerified', { mode: 'date', fsp: 3 }),
+		image: varchar('image', { length: 255 }),
+		displayName: varchar({ length: 60 }),
+		role: mysqlEnum(ROLES).notNull().default('member'),
+		// Rounded to two decimals (about 1.1 km north-south) before it is stored; see club/location.ts.
+		homeLat: decimal({ precision: 5, scale: 2, mode: 'number' }),
+		homeLng: decimal({ precision: 6, scale: 2, mode: 'number' }),
+		homeAreaId: ref(),
+		units: mysqlEnum(UNIT_SYSTEMS).notNull().default('metric'),
+		notifyMessages: mysqlEnum(['each', 'hourly', 'off']).notNull().default('hourly'),
+		weeklyDigest: boolean().notNull().default(false),
+		announcements: boolean().notNull().default(true),
+		unsubscribeToken: char({ length: 32 })
+			.notNull()
+			.$defaultFn(() => crypto.randomUUID().replaceAll('-', '')),
+		createdAt: createdAt(),
+		lastSeenAt: at()
+	},
+	(t) => [index('user_role_idx').on(t.role), index('user_display_name_idx').on(t.displayName)]
+);
+
+export const accounts = mysqlTable(
+	'account',
+	{
+		userId: varchar('userId', { length: 255 })
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		type: varchar('type', { length: 255 }).$type<AdapterAccountType>().notNull(),
+		provider: varchar('provider', { length: 255 }).notNull(),
+		providerAccountId: varchar('providerAccountId', { length: 255 }).notNull(),
+		refresh_token: varchar('refresh_token', { length: 255 }),
+		access_token: varchar('access_token', { length: 255 }),
+		expires_at: int('expires_at'),
+		token_type: varchar('token_type', { length: 255 }),
+		scope: varchar('scope', { length: 255 }),
+		id_token: varchar('id_token', { length: 2048 }),
+		session_state: varchar('session_state', { length: 255 })
+	},
+	(account) => [primaryKey({ columns: [account.provider, account.providerAccountId] })]
+);
+
+export const sessions = mysqlTable(
+	'session',
+	{
+		sessionToken: varchar('sessionToken', { length: 255 }).primaryKey(),
+		userId: varchar('userId', { length: 255 })
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		expires: timestamp('expires', { mode: 'date' }).notNull(),
+		createdAt: createdAt(),
+		lastSeenAt: at(),
+		userAgent: varchar({ length: 255 })
+	},
+	(t) => [index('session_user_idx').on(t.userId)]
+);
+
+export const verificationTokens = mysqlTable(
+	'verificationToken',
+	{
+		identifier: varchar('identifier', { length: 255 }).notNull(),
+		token: varchar('token', { length: 255 }).notNull(),
+		expires: timestamp('expires', { mode: 'date' }).notNull()
+	},
+	(vt) => [primaryKey({ columns: [vt.identifier, vt.token] })]
+);
+
+/** One row per sign-in link requested; read back to rate-limit per address and per client. */
+export const signInRequests = mysqlTable(
+	'sign_in_request',
+	{
+		id: id(),
+		emailHash: char({ length: 64 }).notNull(),
+		clientHash: char({ length: 64 }).notNull(),
+		createdAt: at().notNull()
+	},
+	(t) => [
+		index('sign_in_email_idx').on(t.emailHash, t.createdAt),
+		index('sign_in_client_idx').on(t.clientHash, t.createdAt)
+	]
+);
+
+/** Admin-defined neighbourhoods with a centre point; members may pick one as their home area. */
+export const clubAreas = mysqlTable('club_area', {
+	id: id(),
+	name: varchar({ length: 80 }).notNull().unique(),
+	lat: decimal({ precision: 5, scale: 2, mode: 'number' }).notNull(),
+	lng: decimal({ precision: 6, scale: 2, mode: 'number' }).notNull(),
+	createdAt: createdAt()
+});
+
+/** Who did what to what, for actions that change other people's data or the club's state. */
+export const auditLog = mysqlTable(
+	'audit_log',
+	{
+		id: id(),
+		actorId: varchar({ length: 255 }).references(() => users.id, { onDelete: 'set null' }),
+		action: varchar({ length: 64 }).notNull(),
+		subjectType: varchar({ length: 32 }).notNull(),
+		subjectId: varchar({ length: 255 }).notNull(),
+		detail: json().$type<Record<string, unknown>>(),
+		createdAt: createdAt()
+	},
+	(t) => [index('audit_subject_idx').on(t.subjectType, t.subjectId)]
+);

@@ -1,0 +1,5 @@
+// Every domain's tables, for Drizzle's relational queries and for the migration generator
+// (drizzle.config.ts points here). A new domain adds one line.
+export * from './meta';
+export * from '../club/schema';
+export * from '../mail/schema';

@@ -1,0 +1,169 @@
+import { hostname } from 'node:os';
+import { and, eq, inArray, lte, or, sql } from 'drizzle-orm';
+import { config } from '../config';
+import { db as appDb, type Database, type DbOrTx } from '../db';
+import { outbox, outboxAttempts } from './schema';
+import { defaultTransport, type MailTransport } from './transport';
+
+export interface QueuedMail {
+	to: string;
+	subject: string;
+	text: string;
+	html: string;
+	headers?: Record<string, string>;
+	topic?: string;
+	/** At most one message with this key is ever queued; a second enqueue is ignored. */
+	dedupeKey?: string;
+	/** Deliver no earlier than this (batched notifications). */
+	notBefore?: Date;
+}
+
+export const MAX_ATTEMPTS = 8;
+const LEASE_MS = 5 * 60_000;
+
+/** Wait before the next attempt: 30 s, 1 min, 2 min … capped at one hour. */
+export function backoffMs(attemptsSoFar: number): number {
+	return Math.min(30_000 * 2 ** Math.max(0, attemptsSoFar - 1), 60 * 60_000);
+}
+
+function messageIdFor(domainFrom: string) {
+	const domain = /@([^>\s]+)/.exec(domainFrom)?.[1] ?? 'riparia.invalid';
+	return `<${crypto.randomUUID()}@${domain}>`;
+}
+
+/**
+ * Queues mail inside the caller's transaction, so the mail exists exactly when the change that
+ * caused it commits.
+ */
+export async function enqueue(tx: DbOrTx, mails: QueuedMail | QueuedMail[], now = new Date()): Promise<void> {
+	const list = Array.isArray(mails) ? mails : [mails];
+	if (list.length === 0) return;
+	const from = config().MAIL_FROM;
+	await tx
+		.insert(outbox)
+		.values(
+			list.map((m) => ({
+				toAddress: m.to,
+				subject: m.subject,
+				textBody: m.text,
+				htmlBody: m.html,
+				headers: m.headers ?? null,
+				topic: m.topic ?? null,
+				dedupeKey: m.dedupeKey ?? null,
+				messageId: messageIdFor(from),
+				nextAttemptAt: m.notBefore ?? now
+			}))
+		)
+		// A repeated dedupe key keeps the first message untouched.
+		.onDuplicateKeyUpdate({ set: { id: sql`id` } });
+}
+
+export interface DeliveryOptions {
+	db?: Database;
+	transport?: MailTransport;
+	worker?: string;
+	now?: Date;
+	batchSize?: number;
+}
+
+/**
+ * Claims due messages (rows another worker holds are skipped, not waited for), marks them
+ * `sending` with a lease, then delivers them outside the transaction. A claimed row is never
+ * claimed again unless its lease runs out, which the SMTP timeouts keep from happening.
+ */
+export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent: number; failed: number }> {
+	const db = options.db ?? appDb;
+	const transport = options.transport ?? defaultTransport();
+	const worker = options.worker ?? `${hostname()}:${process.pid}`;
+	const now = options.now ?? new Date();
+	const batchSize = options.batchSize ?? 20;
+
+	const claimed = await db.transaction(async (tx) => {
+		const due = await tx
+			.select()
+			.from(outbox)
+			.where(
+				or(
+					and(eq(outbox.state, 'queued'), lte(outbox.nextAttemptAt, now)),
+					and(eq(outbox.state, 'sending'), lte(outbox.leaseUntil, now))
+				)
+			)
+			.orderBy(outbox.id)
+			.limit(batchSize)
+			.for('update', { skipLocked: true });
+		if (due.length === 0) return [];
+		await tx
+			.update(outbox)
+			.set({ state: 'sending', leaseUntil: new Date(now.getTime() + LEASE_MS), attempts: sql`${outbox.attempts} + 1` })
+			.where(inArray(outbox.id, due.map((d) => d.id)));
+		return due;
+	});
+
+	let sent = 0;
+	let failed = 0;
+	for (const message of claimed) {
+		const attempt = message.attempts + 1;
+		try {
+			await transport.send({
+				to: message.toAddress,
+				subject: message.subject,
+				text: message.textBody,
+				html: message.htmlBody,
+				headers: message.headers ?? undefined,
+				messageId: message.messageId
+			});
+			await db.transaction(async (tx) => {
+				await tx
+					.update(outbox)
+					.set({ state: 'sent', sentAt: new Date(), leaseUntil: null, lastError: null })
+					.where(eq(outbox.id, message.id));
+				await tx.insert(outboxAttempts).values({ outboxId: message.id, worker, ok: true, at: new Date() });
+			});
+			sent++;
+		} catch (error) {
+			const reason = error instanceof Error ? error.message : String(error);
+			const giveUp = attempt >= MAX_ATTEMPTS;
+			await db.transaction(async (tx) => {
+				await tx
+					.update(outbox)
+					.set({
+						state: giveUp ? 'failed' : 'queued',
+						leaseUntil: null,
+						lastError: reason.slice(0, 2000),
+						nextAttemptAt: new Date(now.getTime() + backoffMs(attempt))
+					})
+					.where(eq(outbox.id, message.id));
+				await tx.insert(outboxAttempts).values({ outboxId: message.id, worker, ok: false, error: reason.slice(0, 2000), at: new Date() });
+			});
+			failed++;
+		}
+	}
+	return { sent, failed };
+}
+
+/** Polls the outbox until stopped. Several of these may run at once, in one process or many. */
+export function startWorker(options: { intervalMs?: number; onError?: (e: unknown) => void } = {}) {
+	const interval = options.intervalMs ?? config().OUTBOX_POLL_MS;
+	let stopped = false;
+	let timer: ReturnType<typeof setTimeout> | undefined;
+	const tick = async () => {
+		if (stopped) return;
+		try {
+			// A full batch means more may be waiting: keep draining before the pause.
+			const batchSize = 20;
+			let handled: number;
+			do {
+				const result = await deliverDue({ batchSize });
+				handled = result.sent + result.failed;
+			} while (!stopped && handled === batchSize);
+		} catch (error) {
+			options.onError?.(error);
+		}
+		if (!stopped) timer = setTimeout(tick, interval);
+	};
+	timer = setTimeout(tick, 500);
+	return () => {
+		stopped = true;
+		if (timer) clearTimeout(timer);
+	};
+}

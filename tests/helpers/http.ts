@@ -1,0 +1,30 @@
+import { appUrl } from './env';
+
+export interface RequestOptions {
+	cookie?: string;
+	method?: string;
+	form?: Record<string, string>;
+	json?: unknown;
+	accept?: string;
+	headers?: Record<string, string>;
+}
+
+/**
+ * A request to the running app as a browser would send it: no redirects followed, the Origin
+ * header set for POSTs (SvelteKit's CSRF check), a session cookie when given.
+ */
+export async function request(path: string, options: RequestOptions = {}): Promise<Response> {
+	const headers: Record<string, string> = { accept: options.accept ?? 'text/html', ...options.headers };
+	if (options.cookie) headers.cookie = options.cookie;
+	let body: BodyInit | undefined;
+	if (options.form) {
+		headers['content-type'] = 'application/x-www-form-urlencoded';
+		body = new URLSearchParams(options.form);
+	} else if (options.json !== undefined) {
+		headers['content-type'] = 'application/json';
+		body = JSON.stringify(options.json);
+	}
+	const method = options.method ?? (body ? 'POST' : 'GET');
+	if (method !== 'GET') headers.origin = appUrl();
+	return fetch(appUrl() + path, { method, headers, body, redirect: 'manual' });
+}

@@ -1,0 +1,69 @@
+// Who may reach what: every protected route, for each kind of visitor. A new protected route
+// gets a row here.
+import { beforeAll, describe, expect, test } from 'vitest';
+import { makePerson, type TestPerson } from '../helpers/people';
+import { request } from '../helpers/http';
+
+type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
+interface Row {
+	method?: 'GET' | 'POST';
+	path: string;
+	form?: () => Record<string, string>;
+	expect: Record<Visitor, number>;
+	api?: boolean;
+}
+
+const signedIn = (status: number) => ({ anonymous: 303, member: status, judge: status, admin: status });
+const adminOnly = (status: number) => ({ anonymous: 303, member: 403, judge: 403, admin: status });
+
+let people: Record<Exclude<Visitor, 'anonymous'>, TestPerson>;
+let target: TestPerson;
+
+const rows: Row[] = [
+	{ path: '/account', expect: signedIn(200) },
+	{ path: '/welcome', expect: signedIn(200) },
+	{ path: '/admin', expect: adminOnly(200) },
+	{ path: '/admin/members', expect: adminOnly(200) },
+	{
+		method: 'POST',
+		path: '/admin/members?/role',
+		form: () => ({ userId: target.id, role: 'member' }),
+		expect: adminOnly(200)
+	},
+	{ method: 'POST', path: '/account?/profile', form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', notifyMessages: 'hourly', homeLat: '', homeLng: '' }), expect: signedIn(200) },
+	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } }
+];
+
+beforeAll(async () => {
+	people = {
+		member: await makePerson({ role: 'member' }),
+		judge: await makePerson({ role: 'judge' }),
+		admin: await makePerson({ role: 'admin' })
+	};
+	target = await makePerson({ role: 'member', label: 'target' });
+});
+
+describe('role guards', () => {
+	for (const row of rows) {
+		for (const visitor of ['anonymous', 'member', 'judge', 'admin'] as const) {
+			test(`${row.method ?? 'GET'} ${row.path} as ${visitor} → ${row.expect[visitor]}`, async () => {
+				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
+				const response = await request(row.path, {
+					method: row.method ?? 'GET',
+					cookie,
+					form: row.form?.(),
+					accept: row.api ? 'application/json' : 'text/html'
+				});
+				expect(response.status).toBe(row.expect[visitor]);
+				if (response.status === 303) expect(response.headers.get('location')).toMatch(/^\/signin\?redirectTo=/);
+				if (row.api && response.status === 401) expect(await response.json()).toHaveProperty('message');
+			});
+		}
+	}
+
+	test('an API route answers an anonymous browser-style request with JSON too', async () => {
+		const response = await request('/api/me', { accept: '*/*' });
+		expect(response.status).toBe(401);
+		expect(response.headers.get('content-type')).toContain('application/json');
+	});
+});

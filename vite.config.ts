@@ -1,0 +1,31 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	server: { host: '127.0.0.1' },
+	test: {
+		projects: [
+			{
+				extends: true,
+				test: {
+					name: 'unit',
+					environment: 'node',
+					include: ['src/**/*.test.ts']
+				}
+			},
+			{
+				extends: true,
+				test: {
+					name: 'integration',
+					environment: 'node',
+					include: ['tests/integration/**/*.test.ts'],
+					globalSetup: ['tests/integration/global-setup.ts'],
+					testTimeout: 30_000,
+					hookTimeout: 60_000
+				}
+			}
+		]
+	}
+});

@@ -5,6 +5,8 @@
 //   npm test                      everything
 //   npm test -- --only unit       one runner: unit | integration | e2e (repeatable)
 //   npm test -- --grep outbox     passed on to vitest and Playwright as a name filter
+//   npm test -- --serve           bring the test stack up (seeded, empty otherwise) and keep it
+//                                 running until Ctrl-C, e.g. for scripts/shoot.ts
 import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
@@ -18,12 +20,15 @@ type Runner = 'unit' | 'integration' | 'e2e';
 function parseArgs(argv: string[]) {
 	const only = new Set<Runner>();
 	let grep: string | undefined;
+	let serve = false;
 	for (let i = 0; i < argv.length; i++) {
 		const arg = argv[i];
 		if (arg === '--only') {
 			const value = argv[++i] as Runner;
 			if (!['unit', 'integration', 'e2e'].includes(value)) throw new SetupError(`--only ${value} is not a runner.`, 'Use --only unit, --only integration or --only e2e.');
 			only.add(value);
+		} else if (arg === '--serve') {
+			serve = true;
 		} else if (arg === '--grep') {
 			grep = argv[++i];
 		} else {
@@ -31,7 +36,7 @@ function parseArgs(argv: string[]) {
 		}
 	}
 	const runners: Runner[] = only.size ? [...only] : ['unit', 'integration', 'e2e'];
-	return { runners, grep };
+	return { runners, grep, serve };
 }
 
 function run(command: string, args: string[], env: NodeJS.ProcessEnv): Promise<number> {
@@ -55,8 +60,8 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) {
 const started = Date.now();
 const results: { runner: string; code: number }[] = [];
 try {
-	const { runners, grep } = parseArgs(process.argv.slice(2));
-	const needsStack = runners.some((r) => r !== 'unit');
+	const { runners, grep, serve } = parseArgs(process.argv.slice(2));
+	const needsStack = serve || runners.some((r) => r !== 'unit');
 	if (runners.includes('e2e') && !existsSync(CHROMIUM)) aptInstall(['chromium'], 'The browser tests');
 
 	let env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'test' };
@@ -66,6 +71,10 @@ try {
 		await stack.serve();
 		ok(`Test stack is up at ${stack.urls.app}`);
 		env = { ...stack.env, NODE_ENV: 'test' };
+		if (serve) {
+			console.log(`\n  Serving the test stack until Ctrl-C: app ${stack.urls.app}, mail ${stack.urls.mail}\n`);
+			await new Promise(() => {});
+		}
 	}
 
 	const vitestProjects = runners.filter((r) => r === 'unit' || r === 'integration');

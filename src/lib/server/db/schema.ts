@@ -3,3 +3,6 @@
 export * from './meta';
 export * from '../club/schema';
 export * from '../mail/schema';
+export * from '../media/schema';
+export * from '../species/schema';
+export * from '../journals/schema';

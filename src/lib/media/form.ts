@@ -1,0 +1,39 @@
+// The fields a PhotoUploader adds to its enclosing form, and how the server reads them back:
+//   <name>[0][id], <name>[0][alt], <name>[0][caption], <name>[1][id], … in display order.
+import { z } from 'zod';
+
+export const ALT_MAX = 300;
+export const CAPTION_MAX = 500;
+
+export interface PhotoField {
+	id: number;
+	alt: string;
+	caption: string;
+}
+
+export const photoFieldName = (name: string, index: number, part: 'id' | 'alt' | 'caption') => `${name}[${index}][${part}]`;
+
+const photoSchema = z.object({
+	id: z.coerce.number().int().positive(),
+	alt: z.string().trim().max(ALT_MAX, `Keep the description to ${ALT_MAX} characters.`),
+	caption: z.string().trim().max(CAPTION_MAX, `Keep the caption to ${CAPTION_MAX} characters.`)
+});
+
+export type PhotoFieldsResult = { ok: true; photos: PhotoField[] } | { ok: false; error: string };
+
+/** Reads the uploader's fields in order; at most `max` photos, each id once. */
+export function readPhotoFields(form: FormData, name: string, max: number): PhotoFieldsResult {
+	const photos: PhotoField[] = [];
+	for (let i = 0; form.has(photoFieldName(name, i, 'id')); i++) {
+		const parsed = photoSchema.safeParse({
+			id: form.get(photoFieldName(name, i, 'id')),
+			alt: String(form.get(photoFieldName(name, i, 'alt')) ?? ''),
+			caption: String(form.get(photoFieldName(name, i, 'caption')) ?? '')
+		});
+		if (!parsed.success) return { ok: false, error: parsed.error.issues[0]?.message ?? 'A photo field is not valid.' };
+		if (photos.some((p) => p.id === parsed.data.id)) return { ok: false, error: 'The same photo appears twice.' };
+		photos.push(parsed.data);
+	}
+	if (photos.length > max) return { ok: false, error: `Add at most ${max} photo${max === 1 ? '' : 's'}.` };
+	return { ok: true, photos };
+}

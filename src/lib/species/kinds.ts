@@ -1,0 +1,46 @@
+// The shared species catalogue's vocabulary, for forms, filters and the seed.
+
+export const SPECIES_KINDS = ['plant', 'fish', 'shrimp', 'snail', 'invertebrate'] as const;
+export type SpeciesKind = (typeof SPECIES_KINDS)[number];
+export const SPECIES_KIND_LABELS: Record<SpeciesKind, string> = {
+	plant: 'Plant',
+	fish: 'Fish',
+	shrimp: 'Shrimp',
+	snail: 'Snail',
+	invertebrate: 'Other invertebrate'
+};
+export const ANIMAL_KINDS: SpeciesKind[] = ['fish', 'shrimp', 'snail', 'invertebrate'];
+
+export const PLACEMENTS = ['foreground', 'midground', 'background', 'epiphyte', 'floating'] as const;
+export type Placement = (typeof PLACEMENTS)[number];
+export const PLACEMENT_LABELS: Record<Placement, string> = {
+	foreground: 'Foreground',
+	midground: 'Midground',
+	background: 'Background',
+	epiphyte: 'On wood or stone',
+	floating: 'Floating'
+};
+
+export const GROWTH_HABITS = ['stem', 'rosette', 'rhizome', 'moss', 'carpeting', 'floating', 'bulb'] as const;
+export type GrowthHabit = (typeof GROWTH_HABITS)[number];
+export const GROWTH_HABIT_LABELS: Record<GrowthHabit, string> = {
+	stem: 'Stem plant',
+	rosette: 'Rosette',
+	rhizome: 'Rhizome',
+	moss: 'Moss or liverwort',
+	carpeting: 'Carpeting (runners)',
+	floating: 'Floating',
+	bulb: 'Bulb or tuber'
+};
+
+export const GROWTH_SPEEDS = ['slow', 'moderate', 'fast'] as const;
+export type GrowthSpeed = (typeof GROWTH_SPEEDS)[number];
+
+export const TEMPERAMENTS = ['peaceful', 'semi-aggressive', 'aggressive', 'predatory'] as const;
+export type Temperament = (typeof TEMPERAMENTS)[number];
+export const TEMPERAMENT_LABELS: Record<Temperament, string> = {
+	peaceful: 'Peaceful',
+	'semi-aggressive': 'Can be quarrelsome',
+	aggressive: 'Aggressive',
+	predatory: 'Eats smaller tankmates'
+};

@@ -10,7 +10,7 @@ import type { TestPerson } from './people';
 
 export async function uploadFile(person: TestPerson | null, bytes: Uint8Array, name = 'photo.jpg', type = 'image/jpeg'): Promise<Response> {
 	const form = new FormData();
-	form.append('file', new Blob([bytes], { type }), name);
+	form.append('file', new Blob([new Uint8Array(bytes)], { type }), name);
 	const headers: Record<string, string> = { origin: appUrl(), accept: 'application/json' };
 	if (person) headers.cookie = person.cookie;
 	return fetch(appUrl() + '/api/media', { method: 'POST', body: form, headers, redirect: 'manual' });

@@ -82,7 +82,7 @@ describe('uploads that are refused store nothing', () => {
 
 	test('a truncated JPEG is refused (sharp fails on the damaged data)', async () => {
 		const person = await makePerson({ label: 'truncated' });
-		const whole = await sharp({ create: { width: 800, height: 600, channels: 3, noise: { type: 'gaussian', mean: 128, sigma: 40 } } })
+		const whole = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#000000', noise: { type: 'gaussian', mean: 128, sigma: 40 } } })
 			.jpeg()
 			.toBuffer();
 		const response = await uploadFile(person, whole.subarray(0, Math.floor(whole.byteLength / 2)));

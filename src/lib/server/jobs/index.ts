@@ -1,0 +1,16 @@
+// The periodic jobs the app runs (digests, expiries, batched notifications, clean-ups). A feature
+// adds its job here; the runner makes sure only one app instance runs each one at a time.
+import { lt } from 'drizzle-orm';
+import { db } from '../db';
+import { signInRequests } from '../club/schema';
+import type { Job } from './runner';
+
+const pruneSignInRequests: Job = {
+	name: 'prune-sign-in-requests',
+	everyMs: 60 * 60_000,
+	run: async (now) => {
+		await db.delete(signInRequests).where(lt(signInRequests.createdAt, new Date(now.getTime() - 2 * 60 * 60_000)));
+	}
+};
+
+export const jobs: Job[] = [pruneSignInRequests];

@@ -8,14 +8,20 @@ import { seedClub } from './seed/club';
 
 interface SeedStep {
 	name: string;
+	/** Demo data (invented people, tanks, listings) rather than reference data every club needs. */
+	demo: boolean;
 	run(db: DbOrTx): Promise<void>;
 }
 
-const steps: SeedStep[] = [{ name: 'club', run: seedClub }];
+const steps: SeedStep[] = [{ name: 'club', demo: true, run: seedClub }];
+
+// A production database (DATABASE_URL given to `npm start`) gets reference data only.
+const withDemo = process.env.SEED_DEMO !== '0';
 
 const { db, close } = connect();
 try {
 	for (const step of steps) {
+		if (step.demo && !withDemo) continue;
 		const [done] = await db.select().from(seedRuns).where(eq(seedRuns.name, step.name));
 		if (done) continue;
 		const started = Date.now();

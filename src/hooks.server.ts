@@ -6,7 +6,8 @@ import * as sessions from '$lib/server/club/sessions';
 import * as users from '$lib/server/club/users';
 import { config } from '$lib/server/config';
 import { startWorker } from '$lib/server/mail/outbox';
-import { startSweeper } from '$lib/server/media';
+import { jobs } from '$lib/server/jobs';
+import { startJobs } from '$lib/server/jobs/runner';
 import { defaultTransport } from '$lib/server/mail/transport';
 import { pool } from '$lib/server/db';
 import { safeRedirectPath } from '$lib/club/redirect';
@@ -18,12 +19,12 @@ export const init: ServerInit = async () => {
 	const stopWorker = config().OUTBOX_WORKER
 		? startWorker({ onError: (e) => console.error('[outbox] delivery round failed:', e instanceof Error ? e.message : e) })
 		: () => {};
-	const stopSweeper = config().MEDIA_SWEEPER ? startSweeper() : () => {};
+	const stopJobs = startJobs(jobs);
 	// adapter-node emits this once the HTTP server has closed; open timers and pooled
 	// connections would otherwise keep the process alive.
 	process.once('sveltekit:shutdown', () => {
 		stopWorker();
-		stopSweeper();
+		stopJobs();
 		defaultTransport().close();
 		void pool.end();
 	});

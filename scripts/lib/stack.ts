@@ -199,6 +199,8 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 			...(useFakeStorage ? { S3_ACCESS_KEY_ID: 'S3RVER', S3_SECRET_ACCESS_KEY: 'S3RVER' } : {}),
 			MAIL_UI_URL: `http://127.0.0.1:${ports.mailUi}`
 		};
+		// Demo people and tanks only where the database is our own local one, unless asked for.
+		env.SEED_DEMO = process.env.SEED_DEMO ?? (externalDatabase ? '0' : '1');
 		if (options.mode === 'test') {
 			env.APP_URL = appUrl;
 			// Many sign-ins come from one test client; the limit itself is covered by its own test.

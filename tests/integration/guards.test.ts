@@ -24,6 +24,7 @@ const rows: Row[] = [
 	{ path: '/welcome', expect: signedIn(200) },
 	{ path: '/admin', expect: adminOnly(200) },
 	{ path: '/admin/members', expect: adminOnly(200) },
+	{ path: '/admin/mail', expect: adminOnly(200) },
 	{
 		method: 'POST',
 		path: '/admin/members?/role',

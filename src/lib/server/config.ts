@@ -25,8 +25,6 @@ const schema = z.object({
 	SIGNIN_LIMIT_PER_CLIENT: z.coerce.number().int().positive().default(20),
 	OUTBOX_WORKER: bool.default(true),
 	OUTBOX_POLL_MS: z.coerce.number().int().positive().default(2000),
-	/** Removes photo uploads that were never saved with anything, hourly. */
-	MEDIA_SWEEPER: bool.default(true),
 	CLUB_NAME: z.string().default('Riparia club')
 });
 

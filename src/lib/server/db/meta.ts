@@ -5,3 +5,12 @@ export const seedRuns = mysqlTable('seed_run', {
 	name: varchar({ length: 64 }).primaryKey(),
 	ranAt: datetime({ mode: 'date', fsp: 3 }).notNull()
 });
+
+/** When each periodic job last ran, and who holds it now; lets several app instances share jobs. */
+export const jobRuns = mysqlTable('job_run', {
+	name: varchar({ length: 64 }).primaryKey(),
+	lastRunAt: datetime({ mode: 'date', fsp: 3 }),
+	lockedUntil: datetime({ mode: 'date', fsp: 3 }),
+	lockedBy: varchar({ length: 120 }),
+	lastError: varchar({ length: 1000 })
+});

@@ -314,20 +314,6 @@ export async function sweepPending(options: { now?: Date; batch?: number } & Dep
 	return removed;
 }
 
-/** Runs the sweeper every hour; returns a function that stops it. */
-export function startSweeper(intervalMs = 60 * 60_000): () => void {
-	const round = () =>
-		void sweepPending().catch((error: unknown) => console.error('[media] sweep failed:', error instanceof Error ? error.message : error));
-	const first = setTimeout(round, 60_000);
-	const timer = setInterval(round, intervalMs);
-	first.unref();
-	timer.unref();
-	return () => {
-		clearTimeout(first);
-		clearInterval(timer);
-	};
-}
-
 export async function getRow(id: number, tx: DbOrTx = appDb): Promise<MediaRow | undefined> {
 	const [row] = await tx.select().from(media).where(eq(media.id, id)).limit(1);
 	return row;

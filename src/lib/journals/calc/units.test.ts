@@ -1,0 +1,137 @@
+import convert from 'convert-units';
+import Qty from 'js-quantities';
+import { describe, expect, test } from 'vitest';
+import {
+	celsiusToFahrenheit,
+	cmToInches,
+	fahrenheitToCelsius,
+	formatFlow,
+	formatLength,
+	formatMass,
+	formatTemperature,
+	formatVolume,
+	imperialGallonsToLitres,
+	inchesToCm,
+	kgToPounds,
+	litresPerHourToImperialGallonsPerHour,
+	litresPerHourToUsGallonsPerHour,
+	litresToImperialGallons,
+	litresToUsGallons,
+	parseFlow,
+	parseLength,
+	parseMass,
+	parseTemperature,
+	parseVolume,
+	poundsToKg,
+	unitSymbol,
+	usGallonsPerHourToLitresPerHour,
+	usGallonsToLitres
+} from './units';
+
+/** Relative difference, for comparing with libraries whose factors are rounded. */
+const relDiff = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+
+describe('exact definitions', () => {
+	test('US gallon is 231 cubic inches (NIST Handbook 44, App. C), with the inch 2.54 cm', () => {
+		const litresIn231CubicInches = (231 * 2.54 ** 3) / 1000;
+		expect(usGallonsToLitres(1)).toBeCloseTo(litresIn231CubicInches, 12);
+		expect(usGallonsToLitres(1)).toBe(3.785411784);
+	});
+	test('imperial gallon is 4.54609 L (UK Weights and Measures Act 1985, Sch. 1)', () => {
+		expect(imperialGallonsToLitres(1)).toBe(4.54609);
+		expect(litresToImperialGallons(4.54609)).toBeCloseTo(1, 14);
+	});
+	test('pound is 0.45359237 kg (NIST Handbook 44, App. C)', () => {
+		expect(poundsToKg(1)).toBe(0.45359237);
+		expect(kgToPounds(0.45359237)).toBeCloseTo(1, 14);
+	});
+	test('°F = °C × 9/5 + 32: water freezes at 32 °F and boils at 212 °F (definition of the scale)', () => {
+		expect(celsiusToFahrenheit(0)).toBe(32);
+		expect(celsiusToFahrenheit(100)).toBe(212);
+		expect(celsiusToFahrenheit(-40)).toBe(-40);
+		expect(fahrenheitToCelsius(77)).toBeCloseTo(25, 12);
+	});
+	test('round trips', () => {
+		for (const v of [0, 0.5, 60, 123.45]) {
+			expect(inchesToCm(cmToInches(v))).toBeCloseTo(v, 12);
+			expect(usGallonsToLitres(litresToUsGallons(v))).toBeCloseTo(v, 12);
+			expect(usGallonsPerHourToLitresPerHour(litresPerHourToUsGallonsPerHour(v))).toBeCloseTo(v, 12);
+		}
+	});
+	test('rejects NaN and temperatures below absolute zero', () => {
+		expect(() => cmToInches(Number.NaN)).toThrow(/finite/);
+		expect(() => celsiusToFahrenheit(-300)).toThrow(/absolute zero/);
+		expect(() => fahrenheitToCelsius(-500)).toThrow(/absolute zero/);
+	});
+});
+
+describe('cross-check with npm libraries', () => {
+	// convert-units 2.3.4 anchors its systems with rounded ratios (3.28084 ft/m, 453.592 g/lb,
+	// 33.8140226 fl oz/L), so it agrees with the exact definitions to about one part in a million.
+	test('convert-units: length, volume, mass, flow, temperature', () => {
+		expect(relDiff(inchesToCm(10), convert(10).from('in').to('cm'))).toBeLessThan(1e-6);
+		expect(relDiff(usGallonsToLitres(7), convert(7).from('gal').to('l'))).toBeLessThan(1e-6);
+		expect(relDiff(poundsToKg(50), convert(50).from('lb').to('kg'))).toBeLessThan(2e-6);
+		expect(relDiff(litresPerHourToUsGallonsPerHour(1000), convert(1000).from('l/h').to('gal/h'))).toBeLessThan(1e-6);
+		expect(celsiusToFahrenheit(26.5)).toBeCloseTo(convert(26.5).from('C').to('F'), 9);
+	});
+	// convert-units has no imperial gallon; js-quantities 1.8.0 defines it as 0.00454609 m³.
+	test('js-quantities: imperial gallon, pound, inch, temperature', () => {
+		expect(imperialGallonsToLitres(3)).toBeCloseTo(Qty('3 galimp').to('l').scalar, 10);
+		expect(litresPerHourToImperialGallonsPerHour(500)).toBeCloseTo(Qty('500 l').to('galimp').scalar, 9);
+		expect(poundsToKg(12)).toBeCloseTo(Qty('12 lb').to('kg').scalar, 12);
+		expect(cmToInches(60)).toBeCloseTo(Qty('60 cm').to('in').scalar, 12);
+		expect(fahrenheitToCelsius(80)).toBeCloseTo(Qty('80 tempF').to('tempC').scalar, 9);
+	});
+});
+
+describe('display', () => {
+	// 112 / 3.785411784 = 29.587…, 112 / 4.54609 = 24.636… (by hand from the exact definitions).
+	test('volume in each system', () => {
+		expect(formatVolume(112, 'metric')).toBe('112 L');
+		expect(formatVolume(112, 'us')).toBe('29.6 US gal');
+		expect(formatVolume(112, 'imperial')).toBe('24.6 imp gal');
+		expect(formatVolume(1234.4, 'metric')).toBe('1,234 L');
+	});
+	test('length, mass, flow and temperature', () => {
+		expect(formatLength(60, 'metric')).toBe('60 cm');
+		expect(formatLength(60, 'us')).toBe('23.6 in'); // 60 / 2.54 = 23.62
+		expect(formatMass(128, 'imperial')).toBe('282 lb'); // 128 / 0.45359237 = 282.19
+		expect(formatFlow(800, 'us')).toBe('211 US gal/h'); // 800 / 3.785411784 = 211.34
+		expect(formatFlow(800, 'imperial')).toBe('176 imp gal/h'); // 800 / 4.54609 = 175.98
+		expect(formatTemperature(25.3, 'us')).toBe('77.5 °F'); // 25.3 × 1.8 + 32 = 77.54
+		expect(formatTemperature(25, 'imperial')).toBe('25 °C');
+		expect(unitSymbol('volume', 'imperial')).toBe('imp gal');
+	});
+});
+
+describe('parsing form input into metric', () => {
+	test('a bare number is in the member’s unit', () => {
+		expect(parseLength('24', 'us')).toEqual({ ok: true, value: 60.96 });
+		expect(parseVolume('10', 'imperial')).toEqual({ ok: true, value: 45.4609 });
+		expect(parseMass('2,5', 'metric')).toEqual({ ok: true, value: 2.5 });
+		const f = parseTemperature('77', 'us');
+		expect(f.ok && f.value).toBeCloseTo(25, 12);
+	});
+	test('an explicit unit wins over the member’s system', () => {
+		expect(parseLength('60 cm', 'us')).toEqual({ ok: true, value: 60 });
+		expect(parseLength('24"', 'metric')).toEqual({ ok: true, value: 60.96 });
+		expect(parseVolume('5 US gal', 'metric')).toEqual({ ok: true, value: 18.92705892 });
+		expect(parseVolume('100 L', 'us')).toEqual({ ok: true, value: 100 });
+		expect(parseFlow('100 gph', 'us')).toEqual({ ok: true, value: 378.5411784 });
+		const c = parseTemperature('25 °C', 'us');
+		expect(c).toEqual({ ok: true, value: 25 });
+	});
+	test('rejects empty, non-numeric, negative, ambiguous and unknown input', () => {
+		expect(parseLength('', 'metric')).toEqual({ ok: false, error: 'Enter a number.' });
+		expect(parseLength('abc', 'metric').ok).toBe(false);
+		expect(parseLength('1,250', 'metric').ok).toBe(false); // could be 1.25 or 1250
+		expect(parseLength('-3', 'metric').ok).toBe(false);
+		expect(parseLength('0', 'metric', { allowZero: false }).ok).toBe(false);
+		expect(parseVolume('20 gal', 'metric').ok).toBe(false);
+		expect(parseVolume('20 gal', 'imperial')).toEqual({ ok: true, value: 90.9218 });
+		expect(parseMass('3 stone', 'imperial').ok).toBe(false);
+		expect(parseTemperature('-500 °F', 'us').ok).toBe(false);
+		expect(parseTemperature('-2', 'metric')).toEqual({ ok: true, value: -2 });
+	});
+});

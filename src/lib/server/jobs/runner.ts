@@ -1,0 +1,86 @@
+import { hostname } from 'node:os';
+import { and, eq, isNull, lte, or, sql } from 'drizzle-orm';
+import { db as appDb, type Database } from '../db';
+import { jobRuns } from '../db/meta';
+
+export interface Job {
+	/** Stable name; the row in job_run is keyed by it. */
+	name: string;
+	/** How often it should run at most. */
+	everyMs: number;
+	/** How long one run may hold the job before another instance may take it over. */
+	leaseMs?: number;
+	run(now: Date): Promise<unknown>;
+}
+
+/**
+ * Claims a job for one run if it is due and nobody holds it. The claim is one conditional UPDATE,
+ * so of several instances ticking at once exactly one wins.
+ */
+export async function claim(job: Job, worker: string, now: Date, db: Database = appDb): Promise<boolean> {
+	await db.insert(jobRuns).values({ name: job.name }).onDuplicateKeyUpdate({ set: { name: sql`name` } });
+	const dueBefore = new Date(now.getTime() - job.everyMs);
+	const [result] = await db
+		.update(jobRuns)
+		.set({ lockedUntil: new Date(now.getTime() + (job.leaseMs ?? 10 * 60_000)), lockedBy: worker })
+		.where(
+			and(
+				eq(jobRuns.name, job.name),
+				or(isNull(jobRuns.lockedUntil), lte(jobRuns.lockedUntil, now)),
+				or(isNull(jobRuns.lastRunAt), lte(jobRuns.lastRunAt, dueBefore))
+			)
+		);
+	return result.affectedRows === 1;
+}
+
+async function release(job: Job, now: Date, error: unknown, db: Database) {
+	await db
+		.update(jobRuns)
+		.set({
+			lastRunAt: now,
+			lockedUntil: null,
+			lockedBy: null,
+			lastError: error ? String(error instanceof Error ? error.message : error).slice(0, 1000) : null
+		})
+		.where(eq(jobRuns.name, job.name));
+}
+
+/** Runs every due job once; returns the names of the jobs this call ran. */
+export async function runDueJobs(jobs: Job[], options: { now?: Date; worker?: string; db?: Database } = {}): Promise<string[]> {
+	const now = options.now ?? new Date();
+	const worker = options.worker ?? `${hostname()}:${process.pid}`;
+	const db = options.db ?? appDb;
+	const ran: string[] = [];
+	for (const job of jobs) {
+		if (!(await claim(job, worker, now, db))) continue;
+		let failure: unknown = null;
+		try {
+			await job.run(now);
+		} catch (error) {
+			failure = error;
+			console.error(`[jobs] ${job.name} failed:`, error instanceof Error ? error.message : error);
+		}
+		await release(job, now, failure, db);
+		ran.push(job.name);
+	}
+	return ran;
+}
+
+export function startJobs(jobs: Job[], intervalMs = 30_000) {
+	let stopped = false;
+	let timer: ReturnType<typeof setTimeout> | undefined;
+	const tick = async () => {
+		if (stopped) return;
+		try {
+			await runDueJobs(jobs);
+		} catch (error) {
+			console.error('[jobs] round failed:', error instanceof Error ? error.message : error);
+		}
+		if (!stopped) timer = setTimeout(tick, intervalMs);
+	};
+	timer = setTimeout(tick, 1_000);
+	return () => {
+		stopped = true;
+		if (timer) clearTimeout(timer);
+	};
+}

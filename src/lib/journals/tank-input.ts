@@ -53,6 +53,7 @@ export interface TankInput {
 	heightCm: number;
 	glassMm: number | null;
 	substrateKind: string;
+	substrateNote: string;
 	substrateDepthCm: number | null;
 	hardscape: string;
 	hardscapeLitres: number | null;

@@ -23,7 +23,9 @@ export const tanks = mysqlTable(
 		widthCm: decimal({ precision: 7, scale: 2, mode: 'number' }).notNull(),
 		heightCm: decimal({ precision: 7, scale: 2, mode: 'number' }).notNull(),
 		glassMm: decimal({ precision: 5, scale: 2, mode: 'number' }),
-		substrateKind: varchar({ length: 120 }).notNull().default(''),
+		/** One of the calculator's substrate kinds (nutrient-soil, sand, gravel), 'other' or ''. */
+		substrateKind: varchar({ length: 40 }).notNull().default(''),
+		substrateNote: varchar({ length: 120 }).notNull().default(''),
 		substrateDepthCm: decimal({ precision: 6, scale: 2, mode: 'number' }),
 		hardscape: varchar({ length: 500 }).notNull().default(''),
 		hardscapeLitres: decimal({ precision: 8, scale: 2, mode: 'number' }),

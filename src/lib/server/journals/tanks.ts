@@ -161,6 +161,7 @@ function columns(input: TankInput) {
 		heightCm: input.heightCm,
 		glassMm: input.glassMm,
 		substrateKind: input.substrateKind,
+		substrateNote: input.substrateNote,
 		substrateDepthCm: input.substrateDepthCm,
 		hardscape: input.hardscape,
 		hardscapeLitres: input.hardscapeLitres,

@@ -1,0 +1,95 @@
+import { describe, expect, test } from 'vitest';
+import { draftFromForm, emptyDraft, parseTankDraft, type TankDraft } from './tank-form';
+
+const today = new Date('2026-03-01T12:00:00Z');
+const draft = (overrides: Partial<TankDraft> = {}): TankDraft => ({
+	...emptyDraft('metric'),
+	name: 'Reed corner',
+	length: '60',
+	width: '30',
+	height: '36',
+	lights: [],
+	filters: [],
+	...overrides
+});
+
+describe('parseTankDraft', () => {
+	test('metric sizes are taken in cm and the glass in mm', () => {
+		const result = parseTankDraft(draft({ glass: '6', substrateDepth: '5', waterVolume: '48' }), 'metric', today);
+		expect(result).toMatchObject({ ok: true, input: { lengthCm: 60, widthCm: 30, heightCm: 36, glassMm: 6, substrateDepthCm: 5, waterLitres: 48 } });
+	});
+
+	test('US members type inches and US gallons (1 in = 2.54 cm exactly; 1 US gal = 3.785411784 L, NIST Handbook 44)', () => {
+		const result = parseTankDraft(draft({ length: '24', width: '12', height: '16', glass: '0.25', waterVolume: '20' }), 'us', today);
+		expect(result.ok).toBe(true);
+		if (!result.ok) return;
+		expect(result.input).toMatchObject({ lengthCm: 60.96, widthCm: 30.48, heightCm: 40.64, glassMm: 6.35 });
+		expect(result.input.waterLitres).toBeCloseTo(75.71, 2);
+	});
+
+	test('imperial gallons are the imperial member’s own (4.54609 L, Weights and Measures Act 1985)', () => {
+		const result = parseTankDraft(draft({ waterVolume: '10' }), 'imperial', today);
+		expect(result.ok && result.input.waterLitres).toBeCloseTo(45.46, 2);
+	});
+
+	test('missing and impossible values are reported per field', () => {
+		const result = parseTankDraft(
+			draft({
+				name: '',
+				length: '',
+				height: '-3',
+				setUpOn: '2026-04-01',
+				visibility: 'everyone',
+				lights: [{ id: '', label: 'bar', watts: '', hours: '30' }],
+				plants: [{ id: '', speciesId: '', name: 'Moss', placement: 'ceiling', added: '2026-02-10', removed: '2026-02-01' }]
+			}),
+			'metric',
+			today
+		);
+		expect(result.ok).toBe(false);
+		if (result.ok) return;
+		expect(result.errors).toMatchObject({
+			name: 'This is needed.',
+			length: 'This is needed.',
+			height: 'Enter a value that is not negative.',
+			setUpOn: 'That day has not come yet.',
+			visibility: 'Choose who may see this tank.',
+			'lights.0.watts': 'This is needed.',
+			'lights.0.hours': 'Enter a number from 0 to 24.',
+			'plants.0.placement': 'Choose where it grows.',
+			'plants.0.removed': 'This is before the day it was added.'
+		});
+	});
+
+	test('CO2 bubbles only count for pressurised CO2', () => {
+		const off = parseTankDraft(draft({ co2Method: 'liquid', co2Bps: '2' }), 'metric', today);
+		expect(off.ok && off.input.co2BubblesPerSecond).toBeNull();
+		const on = parseTankDraft(draft({ co2Method: 'pressurised', co2Bps: '1,5' }), 'metric', today);
+		expect(on.ok && on.input.co2BubblesPerSecond).toBe(1.5);
+	});
+});
+
+describe('draftFromForm', () => {
+	test('reads rows by index in order, keeps row ids, skips blank rows', () => {
+		const form = new FormData();
+		form.set('name', 'x');
+		form.set('lights[2][label]', 'second');
+		form.set('lights[2][watts]', '20');
+		form.set('lights[2][hours]', '6');
+		form.set('lights[0][id]', '17');
+		form.set('lights[0][label]', 'first');
+		form.set('lights[0][watts]', '30');
+		form.set('lights[0][hours]', '7');
+		form.set('lights[1][id]', '');
+		form.set('lights[1][label]', '');
+		form.set('lights[1][watts]', '');
+		form.set('lights[1][hours]', '');
+		form.set('filters[0][unit]', 'lph');
+		const d = draftFromForm(form);
+		expect(d.lights).toEqual([
+			{ id: '17', label: 'first', watts: '30', hours: '7' },
+			{ id: '', label: 'second', watts: '20', hours: '6' }
+		]);
+		expect(d.filters).toEqual([]);
+	});
+});

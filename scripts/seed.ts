@@ -5,6 +5,7 @@ import { connect, type DbOrTx } from '../src/lib/server/db';
 import { seedRuns } from '../src/lib/server/db/meta';
 import { promoteConfiguredAdmin } from '../src/lib/server/club/users';
 import { seedClub } from './seed/club';
+import { seedSpecies } from './seed/species';
 
 interface SeedStep {
 	name: string;
@@ -13,7 +14,10 @@ interface SeedStep {
 	run(db: DbOrTx): Promise<void>;
 }
 
-const steps: SeedStep[] = [{ name: 'club', demo: true, run: seedClub }];
+const steps: SeedStep[] = [
+	{ name: 'club', demo: true, run: seedClub },
+	{ name: 'species', demo: false, run: seedSpecies }
+];
 
 // A production database (DATABASE_URL given to `npm start`) gets reference data only.
 const withDemo = process.env.SEED_DEMO !== '0';

@@ -10,6 +10,7 @@ import { users } from '../club/schema';
 import { species } from '../species/schema';
 import type { TankInput } from '../../journals/tank-input';
 import { TANK_COVER_MAX } from '../../journals/tank-vocabulary';
+import { tankFigures as figuresOf } from '../../journals/figures';
 import { tankFertilisers, tankFilters, tankLights, tankLivestock, tankPlants, tanks, type TankRow } from './schema';
 
 export type { TankRow };
@@ -303,3 +304,6 @@ export async function photoAudience(viewer: Viewer | null, tankId: number): Prom
 	if (!found || !canView(viewer, found)) return null;
 	return found.visibility === 'public' ? 'public' : 'restricted';
 }
+
+/** The computed figures of a tank (volume, weight, light, turnover, age, cautions); see $lib/journals/figures. */
+export const tankFigures = (tank: Tank, now = new Date()) => figuresOf(tank, now);

@@ -3,12 +3,16 @@
 import { beforeAll, describe, expect, test } from 'vitest';
 import { makePerson, type TestPerson } from '../helpers/people';
 import { request } from '../helpers/http';
+import { tankInput } from '../helpers/tanks';
+import * as tanks from '../../src/lib/server/journals/tanks';
 
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
 interface Row {
-	method?: 'GET' | 'POST';
+	method?: 'GET' | 'POST' | 'DELETE';
+	/** `:tank` stands for a club-visible tank of another member. */
 	path: string;
 	form?: () => Record<string, string>;
+	json?: unknown;
 	expect: Record<Visitor, number>;
 	api?: boolean;
 }
@@ -18,6 +22,10 @@ const adminOnly = (status: number) => ({ anonymous: 303, member: 403, judge: 403
 
 let people: Record<Exclude<Visitor, 'anonymous'>, TestPerson>;
 let target: TestPerson;
+/** A club-visible tank of `target`'s: everyone else may look at it but not change it. */
+let targetTank: number;
+const apiSignedIn = (status: number) => ({ anonymous: 401, member: status, judge: status, admin: status });
+const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
 
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
@@ -32,7 +40,19 @@ const rows: Row[] = [
 		expect: adminOnly(200)
 	},
 	{ method: 'POST', path: '/account?/profile', form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', notifyMessages: 'hourly', homeLat: '', homeLng: '' }), expect: signedIn(200) },
-	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } }
+	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } },
+	{ path: '/journals', expect: signedIn(200) },
+	{ path: '/journals/new', expect: signedIn(200) },
+	{ method: 'POST', path: '/journals/new', form: () => ({ name: '' }), expect: signedIn(400) },
+	{ path: '/journals/:tank/edit', expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank/edit', form: () => ({ name: 'Taken over' }), expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank?/retire', form: () => ({ retiredOn: '2026-01-01', retiredNote: '' }), expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank?/reopen', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank?/delete', form: () => ({ confirmName: 'Guard tank' }), expect: notOwner },
+	{ path: '/api/species?q=rotala', api: true, expect: apiSignedIn(200) },
+	{ method: 'POST', path: '/api/markdown/preview', api: true, json: { text: '*hi*' }, expect: apiSignedIn(200) },
+	{ method: 'POST', path: '/api/media', api: true, form: () => ({ note: 'no file here' }), expect: apiSignedIn(400) },
+	{ method: 'DELETE', path: '/api/media/999999999', api: true, expect: apiSignedIn(404) }
 ];
 
 beforeAll(async () => {
@@ -42,6 +62,7 @@ beforeAll(async () => {
 		admin: await makePerson({ role: 'admin' })
 	};
 	target = await makePerson({ role: 'member', label: 'target' });
+	targetTank = await tanks.create({ id: target.id }, tankInput({ name: 'Guard tank', visibility: 'club' }));
 });
 
 describe('role guards', () => {
@@ -49,10 +70,11 @@ describe('role guards', () => {
 		for (const visitor of ['anonymous', 'member', 'judge', 'admin'] as const) {
 			test(`${row.method ?? 'GET'} ${row.path} as ${visitor} → ${row.expect[visitor]}`, async () => {
 				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
-				const response = await request(row.path, {
+				const response = await request(row.path.replace(':tank', String(targetTank)), {
 					method: row.method ?? 'GET',
 					cookie,
 					form: row.form?.(),
+					json: row.json,
 					accept: row.api ? 'application/json' : 'text/html'
 				});
 				expect(response.status).toBe(row.expect[visitor]);

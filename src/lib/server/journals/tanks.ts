@@ -234,7 +234,7 @@ async function writeChildren(tx: DbOrTx, tankId: number, input: TankInput) {
 }
 
 /** Creates a tank for the viewer with its cover photo (a pending upload of theirs, or none). */
-export async function create(viewer: Viewer, input: TankInput, cover: PhotoField[] = [], database: Database = appDb): Promise<number> {
+export async function create(viewer: Pick<Viewer, 'id'>, input: TankInput, cover: PhotoField[] = [], database: DbOrTx = appDb): Promise<number> {
 	return database.transaction(async (tx) => {
 		const [result] = await tx.insert(tanks).values({ ...columns(input), ownerId: viewer.id, updatedAt: new Date() });
 		const id = result.insertId;

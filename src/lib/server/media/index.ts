@@ -56,7 +56,7 @@ export function toPhoto(row: MediaRow): Photo {
 }
 
 interface Deps {
-	db?: Database;
+	db?: DbOrTx;
 	store?: ObjectStore;
 }
 
@@ -271,7 +271,7 @@ export async function deleteFor(tx: DbOrTx, scope: MediaScope, scopeId: number):
 }
 
 /** Discards one of the owner's own pending uploads at once (the uploader's remove button). */
-export async function discardPending(ownerId: string, id: number, deps: Deps = {}): Promise<boolean> {
+export async function discardPending(ownerId: string, id: number, deps: { db?: Database; store?: ObjectStore } = {}): Promise<boolean> {
 	const database = deps.db ?? appDb;
 	const keys = await database.transaction(async (tx) => {
 		const [row] = await tx

@@ -13,7 +13,7 @@ test('a member adds a tank with a cover photo, a catalogue plant and a previewed
 
 	await page.getByLabel('Name').fill('Browser tank');
 	await page.getByLabel('Length (cm)').fill('60');
-	await page.getByLabel('Width (front to back) (cm)').fill('30');
+	await page.getByLabel('Width (cm)').fill('30');
 	await page.getByLabel('Height (cm)').fill('36');
 	await page.getByLabel('Glass thickness (mm, optional)').fill('6');
 

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { buildAssignments, publicationReadiness, type CardStatus } from './readiness';
+import { judgingDuties, publicationReadiness, type CardStatus } from './readiness';
 
 // Invented panel: judges ana, ben, cai; entries e1 (entered by ben), e2, e3.
 const entries = [
@@ -9,10 +9,10 @@ const entries = [
 ];
 const judges = ['ana', 'ben', 'cai'];
 
-describe('buildAssignments', () => {
+describe('judgingDuties', () => {
 	test('every judge for every entry, except self-entries and declared conflicts', () => {
-		const { assignments, excluded } = buildAssignments(entries, judges, [{ entryId: 'e3', judgeId: 'cai' }]);
-		expect(assignments).toEqual([
+		const { duties, excluded } = judgingDuties(entries, judges, [{ entryId: 'e3', judgeId: 'cai' }]);
+		expect(duties).toEqual([
 			{ entryId: 'e1', judgeId: 'ana' },
 			{ entryId: 'e1', judgeId: 'cai' },
 			{ entryId: 'e2', judgeId: 'ana' },
@@ -27,17 +27,17 @@ describe('buildAssignments', () => {
 		]);
 	});
 	test('a judge listed twice is one judge', () => {
-		expect(buildAssignments(entries.slice(1, 2), ['ana', 'ana'], []).assignments).toHaveLength(1);
+		expect(judgingDuties(entries.slice(1, 2), ['ana', 'ana'], []).duties).toHaveLength(1);
 	});
 });
 
 describe('publicationReadiness', () => {
-	const { assignments } = buildAssignments(entries, judges, [{ entryId: 'e3', judgeId: 'cai' }]);
+	const { duties } = judgingDuties(entries, judges, [{ entryId: 'e3', judgeId: 'cai' }]);
 	const ids = entries.map((e) => e.entryId);
-	const all = (state: CardStatus['state']): CardStatus[] => assignments.map((a) => ({ ...a, state }));
+	const all = (state: CardStatus['state']): CardStatus[] => duties.map((a) => ({ ...a, state }));
 
 	test('ready when every assigned card is submitted', () => {
-		const r = publicationReadiness(ids, assignments, all('submitted'));
+		const r = publicationReadiness(ids, duties, all('submitted'));
 		expect(r.ready).toBe(true);
 		expect(r.missing).toEqual([]);
 		expect(r.overall).toEqual({ expected: 7, submitted: 7, draft: 0, empty: 0, conflicted: 0 });
@@ -53,7 +53,7 @@ describe('publicationReadiness', () => {
 			{ entryId: 'e3', judgeId: 'ana', state: 'empty' }
 			// e3 × ben: no card row at all
 		];
-		const r = publicationReadiness(ids, assignments, cards);
+		const r = publicationReadiness(ids, duties, cards);
 		expect(r.ready).toBe(false);
 		expect(r.missing).toEqual([
 			{ entryId: 'e1', judgeId: 'cai', state: 'draft' },
@@ -70,7 +70,7 @@ describe('publicationReadiness', () => {
 	});
 
 	test('an entry no judge may score blocks publication', () => {
-		const { assignments: few } = buildAssignments(entries, ['ben'], [{ entryId: 'e2', judgeId: 'ben' }]);
+		const { duties: few } = judgingDuties(entries, ['ben'], [{ entryId: 'e2', judgeId: 'ben' }]);
 		const r = publicationReadiness(ids, few, few.map((a) => ({ ...a, state: 'submitted' as const })));
 		expect(r.missing).toEqual([]);
 		expect(r.unjudgeableEntryIds).toEqual(['e1', 'e2']); // e1 is ben's own, e2 a conflict
@@ -83,9 +83,9 @@ describe('publicationReadiness', () => {
 		expect(r).toMatchObject({ ready: false, unjudgeableEntryIds: ['e2'], missing: [] });
 	});
 
-	test('cards outside the assignments are reported and do not count', () => {
+	test('cards outside the duties are reported and do not count', () => {
 		const cards = [...all('submitted'), { entryId: 'e1', judgeId: 'ben', state: 'submitted' as const }];
-		const r = publicationReadiness(ids, assignments, cards);
+		const r = publicationReadiness(ids, duties, cards);
 		expect(r.ready).toBe(true);
 		expect(r.overall.submitted).toBe(7);
 		expect(r.unexpectedCards).toEqual([{ entryId: 'e1', judgeId: 'ben', state: 'submitted' }]);

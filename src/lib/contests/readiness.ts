@@ -15,33 +15,34 @@ export interface Conflict {
 	judgeId: string;
 }
 
-export interface Assignment {
+/** One card that one judge owes for one entry. */
+export interface JudgingDuty {
 	entryId: string;
 	judgeId: string;
 }
 
 export type ExclusionReason = 'self-entry' | 'conflict';
 
-export interface Assignments {
+export interface JudgingDuties {
 	/** Entry × judge cells that need a submitted card. */
-	assignments: Assignment[];
-	excluded: (Assignment & { reason: ExclusionReason })[];
+	duties: JudgingDuty[];
+	excluded: (JudgingDuty & { reason: ExclusionReason })[];
 }
 
 /** Every judge of the panel for every entry, minus self-entries and declared conflicts. */
-export function buildAssignments(entries: readonly JudgedEntry[], judgeIds: readonly string[], conflicts: readonly Conflict[]): Assignments {
+export function judgingDuties(entries: readonly JudgedEntry[], judgeIds: readonly string[], conflicts: readonly Conflict[]): JudgingDuties {
 	const conflicted = new Set(conflicts.map((c) => JSON.stringify([c.entryId, c.judgeId])));
-	const assignments: Assignment[] = [];
-	const excluded: Assignments['excluded'] = [];
+	const duties: JudgingDuty[] = [];
+	const excluded: JudgingDuties['excluded'] = [];
 	for (const entry of entries) {
 		for (const judgeId of new Set(judgeIds)) {
 			const cell = { entryId: entry.entryId, judgeId };
 			if (entry.entrantId === judgeId) excluded.push({ ...cell, reason: 'self-entry' });
 			else if (conflicted.has(JSON.stringify([entry.entryId, judgeId]))) excluded.push({ ...cell, reason: 'conflict' });
-			else assignments.push(cell);
+			else duties.push(cell);
 		}
 	}
-	return { assignments, excluded };
+	return { duties, excluded };
 }
 
 export interface CardStatus {
@@ -77,27 +78,27 @@ export interface Readiness {
 	missing: MissingCard[];
 	/** Entries with no judge left to score them: the panel must change before publishing. */
 	unjudgeableEntryIds: string[];
-	/** Cards for cells that are not assignments (e.g. a judge's own entry); ignored, reported. */
+	/** Cards for cells that are not a judging duty (e.g. a judge's own entry): ignored, and reported. */
 	unexpectedCards: CardStatus[];
 }
 
 const zero = (): ProgressCount => ({ expected: 0, submitted: 0, draft: 0, empty: 0, conflicted: 0 });
 
 /**
- * Progress of judging from the assignments and the current card states. A card marked
+ * Progress of judging from the duties and the current card states. A card marked
  * 'conflicted' removes its cell from what is expected, like a conflict declared beforehand.
- * `entryIds` lists every entry of the contest, so an entry with no assignment at all is caught.
+ * `entryIds` lists every entry of the contest, so an entry with no judging duty at all is caught.
  */
-export function publicationReadiness(entryIds: readonly string[], assignments: readonly Assignment[], cards: readonly CardStatus[]): Readiness {
+export function publicationReadiness(entryIds: readonly string[], duties: readonly JudgingDuty[], cards: readonly CardStatus[]): Readiness {
 	const cell = (a: { entryId: string; judgeId: string }) => JSON.stringify([a.entryId, a.judgeId]);
 	const stateOf = new Map(cards.map((c) => [cell(c), c.state]));
-	const assigned = new Set(assignments.map(cell));
+	const owed = new Set(duties.map(cell));
 	const overall = zero();
 	const byJudge = new Map<string, ProgressCount>();
 	const byEntry = new Map<string, ProgressCount>(entryIds.map((id) => [id, zero()]));
 	const missing: MissingCard[] = [];
 
-	for (const a of [...new Map(assignments.map((x) => [cell(x), x])).values()]) {
+	for (const a of [...new Map(duties.map((x) => [cell(x), x])).values()]) {
 		const state = stateOf.get(cell(a)) ?? 'empty';
 		if (!byJudge.has(a.judgeId)) byJudge.set(a.judgeId, zero());
 		if (!byEntry.has(a.entryId)) byEntry.set(a.entryId, zero());
@@ -116,7 +117,7 @@ export function publicationReadiness(entryIds: readonly string[], assignments: r
 	sortBy(missing, (m) => m.entryId, (m) => m.judgeId);
 	const unjudgeableEntryIds = [...byEntry].filter(([, c]) => c.expected === 0).map(([id]) => id).sort();
 	const unexpectedCards = sortBy(
-		cards.filter((c) => !assigned.has(cell(c))),
+		cards.filter((c) => !owed.has(cell(c))),
 		(c) => c.entryId,
 		(c) => c.judgeId
 	);

@@ -269,6 +269,31 @@ describe('removing photos removes their objects', () => {
 		await expectNothingStored(person);
 	});
 
+	test('attach, reorder, updateText and detach work on one thing’s photos', async () => {
+		const person = await makePerson({ label: 'arrange' });
+		const tankId = await tanks.create(viewerOf(person), tankInput());
+		const ids: number[] = [];
+		for (let i = 0; i < 3; i++) ids.push((await (await uploadFile(person, await jpeg(200 + i * 10, 150))).json()).id);
+		await db.transaction((tx) => media.attach(tx, person.id, 'tank', tankId, ids.map((id) => ({ id, alt: `photo ${id}`, caption: '' }))));
+		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual(ids);
+		await db.transaction((tx) => media.reorder(tx, 'tank', tankId, [ids[2]!, ids[0]!, ids[1]!]));
+		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual([ids[2], ids[0], ids[1]]);
+		expect(await db.transaction((tx) => media.updateText(tx, 'tank', tankId, ids[0]!, { alt: 'Left side', caption: 'Week two' }))).toBe(true);
+		// A photo is changed only through the thing it belongs to.
+		expect(await db.transaction((tx) => media.updateText(tx, 'tank', tankId + 1, ids[0]!, { alt: 'x', caption: 'x' }))).toBe(false);
+		expect((await media.listFor('tank', tankId)).find((p) => p.id === ids[0])).toMatchObject({ alt: 'Left side', caption: 'Week two' });
+		// Attaching the same upload again is refused: it is no longer pending.
+		await expect(db.transaction((tx) => media.attach(tx, person.id, 'tank', tankId, [{ id: ids[0]!, alt: '', caption: '' }]))).rejects.toThrow(/no longer available/);
+		const keys = await db.transaction((tx) => media.detach(tx, 'tank', tankId, [ids[1]!]));
+		expect(keys).toHaveLength(3);
+		expect(await bucketKeys(keys[0]!)).toHaveLength(1);
+		await media.purge(keys);
+		expect(await bucketKeys(keys[0]!)).toEqual([]);
+		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual([ids[2], ids[0]]);
+		await tanks.remove(viewerOf(person), tankId);
+		await expectNothingStored(person);
+	});
+
 	test('a photo of someone else cannot be attached to your tank', async () => {
 		const { id } = await (await uploadFile(other, await jpeg())).json();
 		await expect(tanks.create(viewerOf(owner), tankInput(), [{ id, alt: '', caption: '' }])).rejects.toThrow(/no longer available/);

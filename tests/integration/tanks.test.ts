@@ -59,6 +59,19 @@ describe('who may see a tank and its photos', () => {
 		expect(tanks.canView({ id: member.id }, { ownerId: owner.id, visibility: 'club' })).toBe(true);
 	});
 
+	test('listVisibleOf shows another member only the running tanks they may see', async () => {
+		const keeper = await makePerson({ label: 'tank-keeper' });
+		const viewer = viewerOf(keeper);
+		const open = await tanks.create(viewer, tankInput({ name: 'Open one', visibility: 'public' }));
+		const club = await tanks.create(viewer, tankInput({ name: 'Club one', visibility: 'club' }));
+		await tanks.create(viewer, tankInput({ name: 'Hidden one', visibility: 'private' }));
+		const old = await tanks.create(viewer, tankInput({ name: 'Old one', visibility: 'public' }));
+		await tanks.retire(viewer, old, '2026-02-01');
+		expect((await tanks.listVisibleOf(viewerOf(member), keeper.id)).map((t) => t.id).sort()).toEqual([open, club].sort());
+		expect((await tanks.listVisibleOf(null, keeper.id)).map((t) => t.id)).toEqual([open]);
+		expect((await tanks.listVisibleOf(viewer, keeper.id)).map((t) => t.name).sort()).toEqual(['Club one', 'Hidden one', 'Open one']);
+	});
+
 	test('someone else cannot change, retire or delete a tank', async () => {
 		const { id } = await tankWithCover('public');
 		await expect(tanks.update(viewerOf(member), id, tankInput({ name: 'Taken' }), [])).rejects.toBeInstanceOf(tanks.TankNotFound);

@@ -1,0 +1,78 @@
+import { describe, expect, test } from 'vitest';
+import { scheduleTask } from './calc';
+import { asMaintenanceTask, defaultSchedule, doneEventKind, lastDoneOn, resets, tasksResetBy, type TaskRule } from './schedule';
+
+const water: TaskRule = { id: 1, kind: 'water-change', filterPart: null };
+const prefilter: TaskRule = { id: 2, kind: 'filter-clean', filterPart: 'prefilter' };
+const anyFilter: TaskRule = { id: 3, kind: 'filter-clean', filterPart: null };
+const glass: TaskRule = { id: 4, kind: 'glass', filterPart: null };
+const other: TaskRule = { id: 5, kind: 'other', filterPart: null };
+const test_: TaskRule = { id: 6, kind: 'water-test', filterPart: null };
+
+describe('which event resets which task (our own rules, no source)', () => {
+	test('an event of the task’s kind resets it; another kind does not', () => {
+		expect(resets(water, { kind: 'water-change', on: '2026-03-01' })).toBe(true);
+		expect(resets(water, { kind: 'trim', on: '2026-03-01' })).toBe(false);
+		expect(resets(glass, { kind: 'glass', on: '2026-03-01' })).toBe(true);
+	});
+	test('a filter task for one part: that part or the whole filter, not another part', () => {
+		expect(resets(prefilter, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'prefilter' })).toBe(true);
+		expect(resets(prefilter, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'whole' })).toBe(true);
+		expect(resets(prefilter, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'impeller' })).toBe(false);
+		expect(resets(anyFilter, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'impeller' })).toBe(true);
+	});
+	test('a task by name only through "done today" for it; water tests reset test tasks', () => {
+		expect(resets(other, { kind: 'upkeep', on: '2026-03-01' })).toBe(false);
+		expect(resets(other, { kind: 'upkeep', on: '2026-03-01', taskId: 5 })).toBe(true);
+		expect(resets(other, { kind: 'upkeep', on: '2026-03-01', taskId: 4 })).toBe(false);
+		expect(resets(test_, { kind: 'water-test', on: '2026-03-01' })).toBe(true);
+		expect(resets(glass, { kind: 'upkeep', on: '2026-03-01', taskId: 4 })).toBe(true);
+	});
+	test('tasksResetBy picks every matching task of the tank', () => {
+		const all = [water, prefilter, anyFilter, glass, other];
+		expect(tasksResetBy(all, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'whole' }).map((t) => t.id)).toEqual([2, 3]);
+		expect(tasksResetBy(all, { kind: 'note', on: '2026-03-01' })).toEqual([]);
+	});
+	test('"done today" logs the task’s own kind, or upkeep for tests and named tasks', () => {
+		expect(doneEventKind('water-change')).toBe('water-change');
+		expect(doneEventKind('filter-clean')).toBe('filter-clean');
+		expect(doneEventKind('water-test')).toBe('upkeep');
+		expect(doneEventKind('other')).toBe('upkeep');
+	});
+});
+
+describe('lastDoneOn from what is logged', () => {
+	const logged = [
+		{ kind: 'water-change', on: '2026-03-01' },
+		{ kind: 'water-change', on: '2026-03-15' },
+		{ kind: 'water-change', on: '2026-03-08' },
+		{ kind: 'trim', on: '2026-03-20' }
+	] as const;
+	test('the latest matching day, whatever the order', () => {
+		expect(lastDoneOn(water, logged)).toBe('2026-03-15');
+		expect(lastDoneOn(glass, logged)).toBeNull();
+	});
+	test('removing the latest event moves the day back (the interval restarts from the one before)', () => {
+		expect(lastDoneOn(water, logged.filter((l) => l.on !== '2026-03-15'))).toBe('2026-03-08');
+	});
+	test('a day after today is ignored', () => {
+		expect(lastDoneOn(water, [...logged, { kind: 'water-change', on: '2026-04-30' }], '2026-03-21')).toBe('2026-03-15');
+	});
+	test('logging resets the due date: done 15 March every 7 days is due 22 March (calendar arithmetic by hand)', () => {
+		const before = scheduleTask(asMaintenanceTask({ id: 1, tankId: 9, label: 'Water change', intervalDays: 7, lastDoneOn: '2026-03-08' }), new Date('2026-03-21T10:00:00Z'));
+		expect(before.status).toEqual({ kind: 'overdue', days: 6 });
+		const after = scheduleTask(asMaintenanceTask({ id: 1, tankId: 9, label: 'Water change', intervalDays: 7, lastDoneOn: lastDoneOn(water, logged) }), new Date('2026-03-21T10:00:00Z'));
+		expect(after.nextDueOn).toBe('2026-03-22');
+		expect(after.statusLabel).toBe('due tomorrow');
+	});
+});
+
+describe('defaultSchedule', () => {
+	test('every suggestion of the calculator, with the CO2 check only for a tank on gas', () => {
+		const gas = defaultSchedule({ co2Method: 'pressurised' });
+		expect(gas.map((t) => t.kind)).toEqual(['water-change', 'glass', 'trim', 'filter-clean', 'co2-check']);
+		expect(gas.find((t) => t.kind === 'water-change')?.intervalDays).toBe(7);
+		expect(gas.find((t) => t.kind === 'filter-clean')?.filterPart).toBe('media');
+		expect(defaultSchedule({ co2Method: 'liquid' }).map((t) => t.kind)).not.toContain('co2-check');
+	});
+});

@@ -139,3 +139,8 @@ export async function promoteConfiguredAdmin(email: string | undefined, tx: DbOr
 	if (!email) return;
 	await tx.update(users).set({ role: 'admin' }).where(eq(users.email, email.toLowerCase()));
 }
+
+/** Records an action on someone else's data (e.g. an admin removing a member's comment) in the audit log. */
+export async function recordAudit(tx: DbOrTx, entry: { actorId: string; action: string; subjectType: string; subjectId: string; detail?: Record<string, unknown> }): Promise<void> {
+	await tx.insert(auditLog).values(entry);
+}

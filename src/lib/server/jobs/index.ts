@@ -4,6 +4,7 @@ import { lt } from 'drizzle-orm';
 import { db } from '../db';
 import { signInRequests } from '../club/schema';
 import { sweepPending } from '../media';
+import { sendWeeklyDigests } from '../journals/digest';
 import type { Job } from './runner';
 
 const pruneSignInRequests: Job = {
@@ -21,4 +22,11 @@ const sweepPendingMedia: Job = {
 	run: (now) => sweepPending({ now })
 };
 
-export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia];
+/** The weekly journal digest: each member who asked for it gets one per week (Monday, UTC), at the first run of the week. */
+const weeklyJournalDigest: Job = {
+	name: 'weekly-journal-digest',
+	everyMs: 60 * 60_000,
+	run: (now) => sendWeeklyDigests(now)
+};
+
+export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest];

@@ -98,6 +98,35 @@ async function load(found: TankRow, tx: DbOrTx = appDb): Promise<Tank> {
 	};
 }
 
+/** The bare row of a tank the viewer may see (no lists or photos), or null. */
+export async function findVisible(viewer: Pick<Viewer, 'id'> | null, id: number, tx: DbOrTx = appDb): Promise<TankRow | null> {
+	const found = await row(id, tx);
+	return found && canView(viewer, found) ? found : null;
+}
+
+/** The bare row of one of the viewer's own tanks, or null. */
+export async function findOwn(viewer: Pick<Viewer, 'id'>, id: number, tx: DbOrTx = appDb): Promise<TankRow | null> {
+	const found = await row(id, tx);
+	return found && found.ownerId === viewer.id ? found : null;
+}
+
+/** Notes new journal activity (an entry, event or test) for "recently updated". */
+export async function touch(tx: DbOrTx, id: number, now = new Date()): Promise<void> {
+	await tx.update(tanks).set({ activityAt: now }).where(eq(tanks.id, id));
+}
+
+/** Works the stored volume out again for tanks that lack it (rows written before it was kept). */
+export async function refreshVolumes(tx: DbOrTx = appDb): Promise<number> {
+	const missing = await tx.select().from(tanks).where(isNull(tanks.volumeLitres));
+	for (const t of missing) {
+		const litres = figuresOf({ ...t, lights: [], filters: [] }).volume?.litres;
+		if (litres !== undefined && Number.isFinite(litres)) {
+			await tx.update(tanks).set({ volumeLitres: Math.round(litres * 100) / 100, activityAt: t.activityAt ?? t.updatedAt ?? t.createdAt }).where(eq(tanks.id, t.id));
+		}
+	}
+	return missing.length;
+}
+
 /** A tank with everything on its profile, or null when it does not exist or the viewer may not see it. */
 export async function get(viewer: Viewer | null, id: number, tx: DbOrTx = appDb): Promise<Tank | null> {
 	const found = await row(id, tx);
@@ -152,8 +181,15 @@ export async function listVisibleOf(viewer: Viewer | null, ownerId: string, tx: 
 	return summaries(rows, await media.listForMany('tank', rows.map((r) => r.id), tx));
 }
 
+/** The volume the figures use, kept on the row for the showcase's size filter. */
+function figureLitres(input: TankInput): number | null {
+	const litres = figuresOf(input).volume?.litres;
+	return litres === undefined || !Number.isFinite(litres) ? null : Math.round(litres * 100) / 100;
+}
+
 function columns(input: TankInput) {
 	return {
+		volumeLitres: figureLitres(input),
 		name: input.name,
 		style: input.style,
 		setUpOn: input.setUpOn,
@@ -236,7 +272,8 @@ async function writeChildren(tx: DbOrTx, tankId: number, input: TankInput) {
 /** Creates a tank for the viewer with its cover photo (a pending upload of theirs, or none). */
 export async function create(viewer: Pick<Viewer, 'id'>, input: TankInput, cover: PhotoField[] = [], database: DbOrTx = appDb): Promise<number> {
 	return database.transaction(async (tx) => {
-		const [result] = await tx.insert(tanks).values({ ...columns(input), ownerId: viewer.id, updatedAt: new Date() });
+		const now = new Date();
+		const [result] = await tx.insert(tanks).values({ ...columns(input), ownerId: viewer.id, updatedAt: now, activityAt: now });
 		const id = result.insertId;
 		await writeChildren(tx, id, input);
 		// A new tank has no photos yet, so nothing can be dropped here.
@@ -252,7 +289,7 @@ export async function update(viewer: Viewer, id: number, input: TankInput, cover
 		if (!found || found.ownerId !== viewer.id) throw new TankNotFound();
 		await tx
 			.update(tanks)
-			.set({ ...columns(input), updatedAt: new Date() })
+			.set({ ...columns(input), updatedAt: new Date(), activityAt: new Date() })
 			.where(eq(tanks.id, id));
 		await writeChildren(tx, id, input);
 		return media.setPhotos(tx, viewer.id, 'tank', id, cover, { max: TANK_COVER_MAX });

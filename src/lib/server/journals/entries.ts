@@ -1,0 +1,341 @@
+// Journal entries: a dated markdown text with up to twelve photos (media scope 'entry', seen by
+// whoever may see the tank) and the events it records. Events that add or take out plants and
+// animals change the tank's lists in the same transaction. Comments on entries live here too.
+import { and, asc, count, desc, eq, inArray, isNull, max } from 'drizzle-orm';
+import { db as appDb, type Database, type DbOrTx } from '../db';
+import * as media from '../media';
+import type { Photo, Purge } from '../media';
+import type { PhotoField } from '../../media/form';
+import { recordAudit, type Viewer } from '../club/users';
+import { users } from '../club/schema';
+import { species } from '../species/schema';
+import { renderMarkdown } from '../markdown';
+import type { EntryInput, EventInput } from '../../journals/entry-form';
+import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
+import { entryComments, journalEntries, journalEvents, tankLivestock, tankPlants, tanks as tankTable, type EntryRow, type EventRow, type TankRow } from './schema';
+import * as tanks from './tanks';
+import * as upkeep from './upkeep';
+import * as social from './social';
+
+export type { EntryRow, EventRow };
+
+export interface Entry extends EntryRow {
+	html: string;
+	photos: Photo[];
+	events: EventRow[];
+	authorName: string;
+	comments: number;
+}
+
+export interface Comment {
+	id: number;
+	entryId: number;
+	authorId: string;
+	authorName: string;
+	html: string;
+	createdAt: Date;
+	/** Whether the viewer may remove it: its author, the tank's keeper, or an admin. */
+	removable: boolean;
+}
+
+/** Field errors found while saving (e.g. a plant taken out that is no longer in the tank). */
+export class EntryInputError extends Error {
+	constructor(readonly errors: Record<string, string>) {
+		super('The entry has mistakes.');
+	}
+}
+
+export class EntryNotFound extends Error {
+	constructor() {
+		super('No such entry.');
+	}
+}
+
+async function lockOwnTank(tx: DbOrTx, viewer: Pick<Viewer, 'id'>, tankId: number): Promise<TankRow> {
+	const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
+	if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
+	return tank;
+}
+
+async function nextPosition(tx: DbOrTx, table: typeof tankPlants | typeof tankLivestock, tankId: number): Promise<number> {
+	const [row] = await tx.select({ n: max(table.position) }).from(table).where(eq(table.tankId, tankId));
+	return (row?.n ?? -1) + 1;
+}
+
+/** Writes one event; list events change the tank's lists first. */
+async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: string, position: number, e: EventInput, index: number): Promise<void> {
+	const fail = (field: string, message: string) => {
+		throw new EntryInputError({ [`events.${index}.${field}`]: message });
+	};
+	const values: typeof journalEvents.$inferInsert = {
+		tankId,
+		entryId,
+		kind: e.kind,
+		occurredOn: on,
+		position,
+		percent: e.percent,
+		filterPart: e.filterPart,
+		what: e.what,
+		amount: e.amount,
+		amountUnit: e.amountUnit,
+		saltId: e.saltId,
+		speciesId: null,
+		speciesName: e.speciesName,
+		count: e.count,
+		algaeKind: e.algaeKind,
+		note: e.note
+	};
+	if (e.kind === 'plant-added' || e.kind === 'livestock-added') {
+		const [known] = e.speciesId ? await tx.select().from(species).where(eq(species.id, e.speciesId)) : [];
+		values.speciesId = known?.id ?? null;
+		values.speciesName = known?.scientificName ?? e.speciesName;
+		if (e.kind === 'plant-added') {
+			const [row] = await tx.insert(tankPlants).values({
+				tankId,
+				position: await nextPosition(tx, tankPlants, tankId),
+				speciesId: values.speciesId,
+				name: values.speciesName!,
+				placement: known?.placement ?? null,
+				addedOn: on
+			});
+			values.tankPlantId = row.insertId;
+		} else {
+			const [row] = await tx.insert(tankLivestock).values({
+				tankId,
+				position: await nextPosition(tx, tankLivestock, tankId),
+				speciesId: values.speciesId,
+				name: values.speciesName!,
+				count: e.count ?? 1,
+				addedOn: on
+			});
+			values.tankLivestockId = row.insertId;
+		}
+	} else if (e.kind === 'plant-removed') {
+		const [row] = await tx
+			.select()
+			.from(tankPlants)
+			.where(and(eq(tankPlants.id, e.rowId ?? 0), eq(tankPlants.tankId, tankId), isNull(tankPlants.removedOn)))
+			.for('update');
+		if (!row) return fail('rowId', 'That plant is not listed in the tank any more.');
+		if (row.addedOn && on < row.addedOn) return fail('rowId', 'That is before the plant went in.');
+		await tx.update(tankPlants).set({ removedOn: on }).where(eq(tankPlants.id, row.id));
+		Object.assign(values, { tankPlantId: row.id, speciesId: row.speciesId, speciesName: row.name });
+	} else if (e.kind === 'livestock-removed') {
+		const [row] = await tx
+			.select()
+			.from(tankLivestock)
+			.where(and(eq(tankLivestock.id, e.rowId ?? 0), eq(tankLivestock.tankId, tankId), isNull(tankLivestock.removedOn)))
+			.for('update');
+		if (!row) return fail('rowId', 'Those animals are not listed in the tank any more.');
+		if (row.addedOn && on < row.addedOn) return fail('rowId', 'That is before they were added.');
+		const taken = e.count ?? row.count;
+		if (taken > row.count) return fail('count', `The list has ${row.count}; take out at most that many.`);
+		let closed = row.id;
+		if (taken === row.count) {
+			await tx.update(tankLivestock).set({ removedOn: on }).where(eq(tankLivestock.id, row.id));
+		} else {
+			// Some of a group leave: the rest stay on the list, those taken out become a closed row.
+			await tx.update(tankLivestock).set({ count: row.count - taken }).where(eq(tankLivestock.id, row.id));
+			const [split] = await tx.insert(tankLivestock).values({
+				tankId,
+				position: await nextPosition(tx, tankLivestock, tankId),
+				speciesId: row.speciesId,
+				name: row.name,
+				count: taken,
+				addedOn: row.addedOn,
+				removedOn: on
+			});
+			closed = split.insertId;
+		}
+		Object.assign(values, { tankLivestockId: closed, speciesId: row.speciesId, speciesName: row.name, count: taken });
+	}
+	await tx.insert(journalEvents).values(values);
+}
+
+/** Creates an entry on the viewer's tank; mails followers (at most once a day each). */
+export async function create(viewer: Viewer, tankId: number, input: EntryInput, photos: PhotoField[], database: Database = appDb, now = new Date()): Promise<number> {
+	return database.transaction(async (tx) => {
+		const tank = await lockOwnTank(tx, viewer, tankId);
+		const [result] = await tx.insert(journalEntries).values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
+		const entryId = result.insertId;
+		await media.setPhotos(tx, viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX, now });
+		for (const [position, e] of input.events.entries()) await writeEvent(tx, tankId, entryId, input.entryOn, position, e, position);
+		await upkeep.recompute(tx, tankId, now);
+		await tanks.touch(tx, tankId, now);
+		await social.notifyFollowers(tx, tank, { id: entryId, title: input.title, entryOn: input.entryOn }, now);
+		return entryId;
+	});
+}
+
+/**
+ * Saves the owner's changes. Events of the entry named by id are updated (list events keep what
+ * they did and only their note changes), new ones are written, and events left out are removed;
+ * removing a list event leaves the tank's list as it is (change it on the tank's form).
+ */
+export async function update(viewer: Viewer, tankId: number, entryId: number, input: EntryInput, photos: PhotoField[], database: Database = appDb, now = new Date()): Promise<void> {
+	const purge: Purge = await database.transaction(async (tx) => {
+		await lockOwnTank(tx, viewer, tankId);
+		const [entry] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId))).for('update');
+		if (!entry) throw new EntryNotFound();
+		await tx.update(journalEntries).set({ entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now }).where(eq(journalEntries.id, entryId));
+		const keys = await media.setPhotos(tx, viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX, now });
+		const existing = new Map((await tx.select().from(journalEvents).where(eq(journalEvents.entryId, entryId))).map((e) => [e.id, e]));
+		const kept = new Set<number>();
+		for (const [position, e] of input.events.entries()) {
+			const old = e.id !== undefined ? existing.get(e.id) : undefined;
+			if (old && isListEvent(old.kind)) {
+				await tx.update(journalEvents).set({ position, note: e.note, occurredOn: input.entryOn }).where(eq(journalEvents.id, old.id));
+				kept.add(old.id);
+			} else if (old && !isListEvent(e.kind)) {
+				await tx
+					.update(journalEvents)
+					.set({ kind: e.kind, occurredOn: input.entryOn, position, percent: e.percent, filterPart: e.filterPart, what: e.what, amount: e.amount, amountUnit: e.amountUnit, saltId: e.saltId, count: e.count, algaeKind: e.algaeKind, note: e.note })
+					.where(eq(journalEvents.id, old.id));
+				kept.add(old.id);
+			} else {
+				await writeEvent(tx, tankId, entryId, input.entryOn, position, { ...e, id: undefined }, position);
+			}
+		}
+		const dropped = [...existing.keys()].filter((id) => !kept.has(id));
+		if (dropped.length) await tx.delete(journalEvents).where(inArray(journalEvents.id, dropped));
+		await upkeep.recompute(tx, tankId, now);
+		await tanks.touch(tx, tankId, now);
+		return keys;
+	});
+	await media.purge(purge).catch((error: unknown) => console.error(`[entries] removing dropped photos of entry ${entryId} failed:`, error));
+}
+
+/** Deletes an entry with its events, comments and photos (objects after the commit). */
+export async function remove(viewer: Viewer, tankId: number, entryId: number, database: Database = appDb, now = new Date()): Promise<void> {
+	const purge = await database.transaction(async (tx) => {
+		await lockOwnTank(tx, viewer, tankId);
+		const [entry] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId))).for('update');
+		if (!entry) throw new EntryNotFound();
+		const keys = await media.deleteFor(tx, 'entry', entryId);
+		await tx.delete(journalEntries).where(eq(journalEntries.id, entryId));
+		await upkeep.recompute(tx, tankId, now);
+		return keys;
+	});
+	await media.purge(purge);
+}
+
+/** For tanks.remove({ before }): the photos of every entry of a tank (rows go with the tank). */
+export async function removeAllOfTank(tx: DbOrTx, tankId: number): Promise<Purge> {
+	const ids = (await tx.select({ id: journalEntries.id }).from(journalEntries).where(eq(journalEntries.tankId, tankId))).map((r) => r.id);
+	const keys: Purge = [];
+	for (const id of ids) keys.push(...(await media.deleteFor(tx, 'entry', id)));
+	return keys;
+}
+
+/** Deletes a tank for good with its journal and every photo. */
+export const removeTank = (viewer: Viewer, tankId: number) => tanks.remove(viewer, tankId, { before: removeAllOfTank });
+
+async function hydrate(rows: EntryRow[], tx: DbOrTx): Promise<Entry[]> {
+	if (!rows.length) return [];
+	const ids = rows.map((r) => r.id);
+	const [photos, events, authors, comments] = await Promise.all([
+		media.listForMany('entry', ids, tx),
+		tx.select().from(journalEvents).where(inArray(journalEvents.entryId, ids)).orderBy(asc(journalEvents.position), asc(journalEvents.id)),
+		tx.select({ id: users.id, name: users.displayName }).from(users).where(inArray(users.id, [...new Set(rows.map((r) => r.authorId))])),
+		tx.select({ entryId: entryComments.entryId, n: count() }).from(entryComments).where(inArray(entryComments.entryId, ids)).groupBy(entryComments.entryId)
+	]);
+	const names = new Map(authors.map((a) => [a.id, a.name ?? 'A member']));
+	const counts = new Map(comments.map((c) => [c.entryId, c.n]));
+	return rows.map((r) => ({
+		...r,
+		html: renderMarkdown(r.body),
+		photos: photos.get(r.id) ?? [],
+		events: events.filter((e) => e.entryId === r.id),
+		authorName: names.get(r.authorId) ?? 'A member',
+		comments: counts.get(r.id) ?? 0
+	}));
+}
+
+/** One entry of a tank the viewer may see, or null. */
+export async function get(viewer: Pick<Viewer, 'id'> | null, tankId: number, entryId: number, tx: DbOrTx = appDb): Promise<{ tank: TankRow; entry: Entry } | null> {
+	const tank = await tanks.findVisible(viewer, tankId, tx);
+	if (!tank) return null;
+	const [row] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)));
+	if (!row) return null;
+	const [entry] = await hydrate([row], tx);
+	return { tank, entry: entry! };
+}
+
+/** Entries by id, with photos and events (the caller has checked the tank's visibility). */
+export async function many(ids: number[], tx: DbOrTx = appDb): Promise<Entry[]> {
+	if (!ids.length) return [];
+	const rows = await tx.select().from(journalEntries).where(inArray(journalEntries.id, ids));
+	return hydrate(rows, tx);
+}
+
+/** The newest entries of a tank (for its feed). */
+export async function latestOf(tankId: number, limit: number, tx: DbOrTx = appDb): Promise<Entry[]> {
+	const rows = await tx
+		.select()
+		.from(journalEntries)
+		.where(eq(journalEntries.tankId, tankId))
+		.orderBy(desc(journalEntries.entryOn), desc(journalEntries.createdAt), desc(journalEntries.id))
+		.limit(limit);
+	return hydrate(rows, tx);
+}
+
+/** Media access for scope 'entry' (registered in ../media/access.ts): the tank's visibility. */
+export async function photoAudience(viewer: Viewer | null, entryId: number): Promise<'public' | 'restricted' | null> {
+	const [row] = await appDb.select({ tankId: journalEntries.tankId }).from(journalEntries).where(eq(journalEntries.id, entryId));
+	if (!row) return null;
+	return tanks.photoAudience(viewer, row.tankId);
+}
+
+// ——— Comments ———
+
+export async function comments(viewer: Viewer | null, tank: TankRow, entryId: number, tx: DbOrTx = appDb): Promise<Comment[]> {
+	const rows = await tx
+		.select({ comment: entryComments, authorName: users.displayName })
+		.from(entryComments)
+		.innerJoin(users, eq(users.id, entryComments.authorId))
+		.where(eq(entryComments.entryId, entryId))
+		.orderBy(asc(entryComments.createdAt), asc(entryComments.id));
+	return rows.map(({ comment, authorName }) => ({
+		id: comment.id,
+		entryId: comment.entryId,
+		authorId: comment.authorId,
+		authorName: authorName ?? 'A member',
+		html: renderMarkdown(comment.body),
+		createdAt: comment.createdAt,
+		removable: !!viewer && (viewer.id === comment.authorId || viewer.id === tank.ownerId || viewer.role === 'admin')
+	}));
+}
+
+/** A member's comment on an entry of a tank they may see. */
+export async function addComment(viewer: Viewer, tankId: number, entryId: number, body: string, database: Database = appDb): Promise<number> {
+	const text = body.replace(/\r\n/g, '\n').trim();
+	if (!text) throw new EntryInputError({ comment: 'Write a comment first.' });
+	if (text.length > COMMENT_MAX) throw new EntryInputError({ comment: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
+	return database.transaction(async (tx) => {
+		const found = await get(viewer, tankId, entryId, tx);
+		if (!found) throw new EntryNotFound();
+		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text });
+		return result.insertId;
+	});
+}
+
+/** Removes a comment: its author, the keeper of the tank, or an admin; anyone else gets EntryNotFound. */
+export async function removeComment(viewer: Viewer, tankId: number, commentId: number, database: Database = appDb): Promise<void> {
+	await database.transaction(async (tx) => {
+		const [row] = await tx
+			.select({ comment: entryComments, tankId: journalEntries.tankId })
+			.from(entryComments)
+			.innerJoin(journalEntries, eq(journalEntries.id, entryComments.entryId))
+			.where(and(eq(entryComments.id, commentId), eq(journalEntries.tankId, tankId)))
+			.for('update');
+		const tank = row ? await tanks.findVisible(viewer, row.tankId, tx) : null;
+		if (!row || !tank) throw new EntryNotFound();
+		const isAuthor = row.comment.authorId === viewer.id;
+		const isKeeper = tank.ownerId === viewer.id;
+		if (!isAuthor && !isKeeper && viewer.role !== 'admin') throw new EntryNotFound();
+		await tx.delete(entryComments).where(eq(entryComments.id, commentId));
+		if (!isAuthor) {
+			await recordAudit(tx, { actorId: viewer.id, action: 'comment.remove', subjectType: 'entry_comment', subjectId: String(commentId), detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper } });
+		}
+	});
+}

@@ -100,6 +100,11 @@ describe('parseEntryDraft', () => {
 		expect(parseEntryDraft(emptyEntryDraft(today), { today, hasPhotos: true }).ok).toBe(true);
 	});
 
+	test('a saved plant or animal event is kept as it is; only its note is read', () => {
+		const parsed = parseEntryDraft({ ...emptyEntryDraft(today), events: [ev('plant-removed', { id: '31', note: 'melted' })] }, { today });
+		expect(parsed.ok && parsed.input.events[0]).toMatchObject({ id: 31, kind: 'plant-removed', rowId: null, note: 'melted' });
+	});
+
 	test('a stored event comes back as the same form row', () => {
 		const draft = eventDraftFrom({ id: 4, kind: 'livestock-removed', percent: null, filterPart: null, what: '', amount: null, amountUnit: null, saltId: null, speciesId: 3, speciesName: 'Neocaridina davidi', count: 2, algaeKind: null, note: 'moved', tankPlantId: null, tankLivestockId: 9 });
 		expect(draft).toMatchObject({ id: '4', kind: 'livestock-removed', count: '2', rowId: '9', note: 'moved', percent: '' });

@@ -8,6 +8,7 @@ import {
 	ENTRY_EVENTS_MAX,
 	FILTER_PARTS,
 	FORM_EVENT_KINDS,
+	isListEvent,
 	type AlgaeKind,
 	type DoseUnit,
 	type EventKind,
@@ -143,6 +144,8 @@ export function parseEntryDraft(draft: EntryDraft, options: { today: string; set
 			note: words('note', 1000, e.kind === 'note'),
 			rowId: null
 		};
+		// A saved list event keeps what it did; only its note can change.
+		if (input.id !== undefined && isListEvent(kind)) return input;
 		switch (kind) {
 			case 'water-change':
 				input.percent = number('percent', 1, 100, true);

@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { scheduleTask } from './calc';
-import { asMaintenanceTask, defaultSchedule, doneEventKind, lastDoneOn, resets, tasksResetBy, type TaskRule } from './schedule';
+import { asMaintenanceTask, defaultSchedule, doneEventKind, lastDoneOn, parseScheduleRows, resets, taskRowsFrom, tasksResetBy, type TaskRule } from './schedule';
 
 const water: TaskRule = { id: 1, kind: 'water-change', filterPart: null };
 const prefilter: TaskRule = { id: 2, kind: 'filter-clean', filterPart: 'prefilter' };
@@ -74,5 +74,45 @@ describe('defaultSchedule', () => {
 		expect(gas.find((t) => t.kind === 'water-change')?.intervalDays).toBe(7);
 		expect(gas.find((t) => t.kind === 'filter-clean')?.filterPart).toBe('media');
 		expect(defaultSchedule({ co2Method: 'liquid' }).map((t) => t.kind)).not.toContain('co2-check');
+	});
+});
+
+describe('the schedule form', () => {
+	const kinds = ['water-change', 'filter-clean', 'other'] as const;
+	const parts = ['prefilter', 'media'] as const;
+	test('reads rows in order and checks each', () => {
+		const form = new FormData();
+		form.set('tasks[1][kind]', 'filter-clean');
+		form.set('tasks[1][filterPart]', 'prefilter');
+		form.set('tasks[1][label]', 'Rinse the sponge');
+		form.set('tasks[1][intervalDays]', '14');
+		form.set('tasks[0][id]', '8');
+		form.set('tasks[0][kind]', 'water-change');
+		form.set('tasks[0][label]', 'Water change');
+		form.set('tasks[0][intervalDays]', '7');
+		form.set('tasks[2][kind]', '');
+		form.set('tasks[2][label]', '');
+		const rows = taskRowsFrom(form);
+		expect(rows.map((r) => r.label)).toEqual(['Water change', 'Rinse the sponge']);
+		expect(parseScheduleRows(rows, kinds, parts)).toEqual({
+			ok: true,
+			tasks: [
+				{ id: 8, kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 },
+				{ id: undefined, kind: 'filter-clean', filterPart: 'prefilter', label: 'Rinse the sponge', intervalDays: 14 }
+			]
+		});
+	});
+	test('refuses unknown kinds, empty names and intervals that are not whole days of 1 to 366', () => {
+		const result = parseScheduleRows(
+			[
+				{ id: '', kind: 'polish', filterPart: '', label: 'x', intervalDays: '7' },
+				{ id: '', kind: 'other', filterPart: '', label: ' ', intervalDays: '0' },
+				{ id: '', kind: 'other', filterPart: '', label: 'y', intervalDays: '2.5' },
+				{ id: '', kind: 'other', filterPart: '', label: 'z', intervalDays: '400' }
+			],
+			kinds,
+			parts
+		);
+		expect(result.ok ? null : Object.keys(result.errors).sort()).toEqual(['tasks.0.kind', 'tasks.1.intervalDays', 'tasks.1.label', 'tasks.2.intervalDays', 'tasks.3.intervalDays']);
 	});
 });

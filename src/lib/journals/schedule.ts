@@ -88,3 +88,51 @@ export function defaultSchedule(tank: { co2Method: 'none' | 'liquid' | 'pressuri
 export function asMaintenanceTask(task: { id: number; tankId: number; label: string; intervalDays: number; lastDoneOn: string | null }): MaintenanceTask {
 	return { id: String(task.id), tankId: String(task.tankId), label: task.label, intervalDays: task.intervalDays, lastDoneOn: task.lastDoneOn };
 }
+
+export interface TaskFormRow {
+	id: string;
+	kind: string;
+	filterPart: string;
+	label: string;
+	intervalDays: string;
+}
+
+export const TASK_FIELDS = ['id', 'kind', 'filterPart', 'label', 'intervalDays'] as const;
+export const taskFieldName = (index: number, field: (typeof TASK_FIELDS)[number]) => `tasks[${index}][${field}]`;
+
+/** The schedule form's rows, in index order; rows with neither a name nor a kind are skipped. */
+export function taskRowsFrom(form: FormData): TaskFormRow[] {
+	const indexes = new Set<number>();
+	for (const key of form.keys()) {
+		const match = /^tasks\[(\d{1,3})\]\[/.exec(key);
+		if (match) indexes.add(Number(match[1]));
+	}
+	return [...indexes]
+		.sort((a, b) => a - b)
+		.map((i) => Object.fromEntries(TASK_FIELDS.map((f) => [f, String(form.get(taskFieldName(i, f)) ?? '').trim()])) as unknown as TaskFormRow)
+		.filter((r) => r.label !== '' || r.kind !== '');
+}
+
+export const taskRowOf = (t: TaskDraft & { id?: number }): TaskFormRow => ({ id: t.id ? String(t.id) : '', kind: t.kind, filterPart: t.filterPart ?? '', label: t.label, intervalDays: String(t.intervalDays) });
+
+/** The longest interval a task may have: a year (our own limit). */
+export const MAX_INTERVAL_DAYS = 366;
+
+export function parseScheduleRows(rows: TaskFormRow[], kinds: readonly TaskKind[], parts: readonly FilterPart[]): { ok: true; tasks: (TaskDraft & { id?: number })[] } | { ok: false; errors: Record<string, string> } {
+	const errors: Record<string, string> = {};
+	const tasks = rows.map((r, i) => {
+		const kind = (kinds as readonly string[]).includes(r.kind) ? (r.kind as TaskKind) : null;
+		if (!kind) errors[`tasks.${i}.kind`] = 'Choose what the task is.';
+		const filterPart = kind === 'filter-clean' && r.filterPart ? ((parts as readonly string[]).includes(r.filterPart) ? (r.filterPart as FilterPart) : null) : null;
+		if (kind === 'filter-clean' && r.filterPart && !filterPart) errors[`tasks.${i}.filterPart`] = 'Choose a part of the filter.';
+		const label = r.label.trim();
+		if (!label) errors[`tasks.${i}.label`] = 'Give the task a name.';
+		if (label.length > 80) errors[`tasks.${i}.label`] = 'Keep the name to 80 characters.';
+		const interval = Number(r.intervalDays);
+		if (!/^\d+$/.test(r.intervalDays) || interval < 1 || interval > MAX_INTERVAL_DAYS) errors[`tasks.${i}.intervalDays`] = `Enter a whole number of days from 1 to ${MAX_INTERVAL_DAYS}.`;
+		const id = /^[1-9]\d{0,14}$/.test(r.id) ? Number(r.id) : undefined;
+		return { id, kind: kind ?? 'other', filterPart, label, intervalDays: interval };
+	});
+	if (Object.keys(errors).length) return { ok: false, errors };
+	return { ok: true, tasks };
+}

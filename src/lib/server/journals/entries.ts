@@ -12,7 +12,7 @@ import { species } from '../species/schema';
 import { renderMarkdown } from '../markdown';
 import type { EntryInput, EventInput } from '../../journals/entry-form';
 import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
-import { entryComments, journalEntries, journalEvents, tankLivestock, tankPlants, tanks as tankTable, type EntryRow, type EventRow, type TankRow } from './schema';
+import { entryComments, journalEntries, journalEvents, tankFollows, tankLivestock, tankPlants, tanks as tankTable, type EntryRow, type EventRow, type TankRow } from './schema';
 import * as tanks from './tanks';
 import * as upkeep from './upkeep';
 import * as social from './social';
@@ -338,4 +338,20 @@ export async function removeComment(viewer: Viewer, tankId: number, commentId: n
 			await recordAudit(tx, { actorId: viewer.id, action: 'comment.remove', subjectType: 'entry_comment', subjectId: String(commentId), detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper } });
 		}
 	});
+}
+
+/** The newest entries in tanks the viewer follows and may still see, for the dashboard. */
+export async function recentFollowed(viewer: Viewer, limit = 6, tx: DbOrTx = appDb) {
+	const rows = await tx
+		.select({ id: journalEntries.id, title: journalEntries.title, entryOn: journalEntries.entryOn, createdAt: journalEntries.createdAt, tank: tankTable })
+		.from(tankFollows)
+		.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
+		.innerJoin(journalEntries, eq(journalEntries.tankId, tankTable.id))
+		.where(eq(tankFollows.userId, viewer.id))
+		.orderBy(desc(journalEntries.createdAt), desc(journalEntries.id))
+		.limit(limit * 2);
+	return rows
+		.filter((r) => tanks.canView(viewer, r.tank))
+		.slice(0, limit)
+		.map((r) => ({ id: r.id, title: r.title, entryOn: r.entryOn, createdAt: r.createdAt, tankId: r.tank.id, tankName: r.tank.name }));
 }

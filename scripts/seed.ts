@@ -6,7 +6,7 @@ import { seedRuns } from '../src/lib/server/db/meta';
 import { promoteConfiguredAdmin } from '../src/lib/server/club/users';
 import { seedClub } from './seed/club';
 import { seedSpecies } from './seed/species';
-import { seedJournalTanks } from './seed/journals';
+import { seedJournalTanks, seedJournals } from './seed/journals';
 
 interface SeedStep {
 	name: string;
@@ -18,7 +18,8 @@ interface SeedStep {
 const steps: SeedStep[] = [
 	{ name: 'club', demo: true, run: seedClub },
 	{ name: 'species', demo: false, run: seedSpecies },
-	{ name: 'journal-tanks', demo: true, run: seedJournalTanks }
+	{ name: 'journal-tanks', demo: true, run: seedJournalTanks },
+	{ name: 'journals', demo: true, run: seedJournals }
 ];
 
 // A production database (DATABASE_URL given to `npm start`) gets reference data only.

@@ -5,11 +5,13 @@ import { makePerson, type TestPerson } from '../helpers/people';
 import { request } from '../helpers/http';
 import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
+import * as entries from '../../src/lib/server/journals/entries';
+import * as upkeep from '../../src/lib/server/journals/upkeep';
 
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
 interface Row {
 	method?: 'GET' | 'POST' | 'DELETE';
-	/** `:tank` stands for a club-visible tank of another member. */
+	/** `:tank` stands for a club-visible tank of another member, `:entry` for an entry of it. */
 	path: string;
 	form?: () => Record<string, string>;
 	json?: unknown;
@@ -24,6 +26,10 @@ let people: Record<Exclude<Visitor, 'anonymous'>, TestPerson>;
 let target: TestPerson;
 /** A club-visible tank of `target`'s: everyone else may look at it but not change it. */
 let targetTank: number;
+/** An entry of that tank, a task of its schedule and a comment by its keeper. */
+let targetEntry: number;
+let targetTask: number;
+let targetComment: number;
 const apiSignedIn = (status: number) => ({ anonymous: 401, member: status, judge: status, admin: status });
 const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
 
@@ -52,7 +58,30 @@ const rows: Row[] = [
 	{ path: '/api/species?q=rotala', api: true, expect: apiSignedIn(200) },
 	{ method: 'POST', path: '/api/markdown/preview', api: true, json: { text: '*hi*' }, expect: apiSignedIn(200) },
 	{ method: 'POST', path: '/api/media', api: true, form: () => ({ note: 'no file here' }), expect: apiSignedIn(400) },
-	{ method: 'DELETE', path: '/api/media/999999999', api: true, expect: apiSignedIn(404) }
+	{ method: 'DELETE', path: '/api/media/999999999', api: true, expect: apiSignedIn(404) },
+	{ path: '/', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/?/done', form: () => ({ taskId: String(targetTask) }), expect: notOwner },
+	{ path: '/journals/showcase', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ path: '/journals/dose?tank=:tank', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ path: '/journals/:tank/feed.xml', expect: { anonymous: 404, member: 404, judge: 404, admin: 404 } },
+	{ path: '/api/tanks/:tank/water-tests', api: true, expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/journals/:tank?/admire', form: () => ({ want: 'on' }), expect: signedIn(200) },
+	{ method: 'POST', path: '/journals/:tank?/follow', form: () => ({ want: 'on' }), expect: signedIn(200) },
+	{ method: 'POST', path: '/journals/:tank?/done', form: () => ({ taskId: String(targetTask) }), expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank?/undoEvent', form: () => ({ eventId: '1' }), expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank?/deleteTest', form: () => ({ testId: '1' }), expect: notOwner },
+	{ path: '/journals/:tank/entries/new', expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank/entries/new', form: () => ({ entryOn: '2026-02-01', body: 'Taken over' }), expect: notOwner },
+	{ path: '/journals/:tank/entries/:entry', expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/journals/:tank/entries/:entry?/comment', form: () => ({ comment: 'Looks good.' }), expect: signedIn(200) },
+	{ method: 'POST', path: '/journals/:tank/entries/:entry?/removeComment', form: () => ({ commentId: String(targetComment) }), expect: { anonymous: 303, member: 404, judge: 404, admin: 200 } },
+	{ method: 'POST', path: '/journals/:tank/entries/:entry?/delete', form: () => ({}), expect: notOwner },
+	{ path: '/journals/:tank/entries/:entry/edit', expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank/entries/:entry/edit', form: () => ({ entryOn: '2026-02-01', body: 'Taken over' }), expect: notOwner },
+	{ path: '/journals/:tank/water-tests/new', expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank/water-tests/new', form: () => ({ testedOn: '2026-02-01', ph: '7' }), expect: notOwner },
+	{ path: '/journals/:tank/schedule', expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank/schedule', form: () => ({ 'tasks[0][kind]': 'other', 'tasks[0][label]': 'Taken over', 'tasks[0][intervalDays]': '3' }), expect: notOwner }
 ];
 
 beforeAll(async () => {
@@ -63,6 +92,11 @@ beforeAll(async () => {
 	};
 	target = await makePerson({ role: 'member', label: 'target' });
 	targetTank = await tanks.create({ id: target.id }, tankInput({ name: 'Guard tank', visibility: 'club' }));
+	const keeper = { id: target.id, email: target.email, displayName: target.displayName, role: target.role, units: 'metric' as const };
+	targetEntry = await entries.create(keeper, targetTank, { entryOn: '2026-02-01', title: 'Guard entry', body: 'Planted.', events: [] }, []);
+	await upkeep.saveSchedule(keeper, targetTank, [{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 }]);
+	targetTask = (await upkeep.listForTank(targetTank))[0]!.id;
+	targetComment = await entries.addComment(keeper, targetTank, targetEntry, 'Keeper’s own note.');
 });
 
 describe('role guards', () => {
@@ -70,7 +104,7 @@ describe('role guards', () => {
 		for (const visitor of ['anonymous', 'member', 'judge', 'admin'] as const) {
 			test(`${row.method ?? 'GET'} ${row.path} as ${visitor} → ${row.expect[visitor]}`, async () => {
 				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
-				const response = await request(row.path.replace(':tank', String(targetTank)), {
+				const response = await request(row.path.replaceAll(':tank', String(targetTank)).replace(':entry', String(targetEntry)), {
 					method: row.method ?? 'GET',
 					cookie,
 					form: row.form?.(),

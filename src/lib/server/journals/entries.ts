@@ -2,7 +2,7 @@
 // whoever may see the tank) and the events it records. Events that add or take out plants and
 // animals change the tank's lists in the same transaction. Comments on entries live here too.
 import { and, asc, count, desc, eq, inArray, isNull, max } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
@@ -153,7 +153,7 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 }
 
 /** Creates an entry on the viewer's tank; mails followers (at most once a day each). */
-export async function create(viewer: Viewer, tankId: number, input: EntryInput, photos: PhotoField[], database: Database = appDb, now = new Date()): Promise<number> {
+export async function create(viewer: Viewer, tankId: number, input: EntryInput, photos: PhotoField[], database: DbOrTx = appDb, now = new Date()): Promise<number> {
 	return database.transaction(async (tx) => {
 		const tank = await lockOwnTank(tx, viewer, tankId);
 		const [result] = await tx.insert(journalEntries).values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
@@ -172,7 +172,7 @@ export async function create(viewer: Viewer, tankId: number, input: EntryInput, 
  * they did and only their note changes), new ones are written, and events left out are removed;
  * removing a list event leaves the tank's list as it is (change it on the tank's form).
  */
-export async function update(viewer: Viewer, tankId: number, entryId: number, input: EntryInput, photos: PhotoField[], database: Database = appDb, now = new Date()): Promise<void> {
+export async function update(viewer: Viewer, tankId: number, entryId: number, input: EntryInput, photos: PhotoField[], database: DbOrTx = appDb, now = new Date()): Promise<void> {
 	const purge: Purge = await database.transaction(async (tx) => {
 		await lockOwnTank(tx, viewer, tankId);
 		const [entry] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId))).for('update');
@@ -206,7 +206,7 @@ export async function update(viewer: Viewer, tankId: number, entryId: number, in
 }
 
 /** Deletes an entry with its events, comments and photos (objects after the commit). */
-export async function remove(viewer: Viewer, tankId: number, entryId: number, database: Database = appDb, now = new Date()): Promise<void> {
+export async function remove(viewer: Viewer, tankId: number, entryId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
 	const purge = await database.transaction(async (tx) => {
 		await lockOwnTank(tx, viewer, tankId);
 		const [entry] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId))).for('update');
@@ -307,7 +307,7 @@ export async function comments(viewer: Viewer | null, tank: TankRow, entryId: nu
 }
 
 /** A member's comment on an entry of a tank they may see. */
-export async function addComment(viewer: Viewer, tankId: number, entryId: number, body: string, database: Database = appDb): Promise<number> {
+export async function addComment(viewer: Viewer, tankId: number, entryId: number, body: string, database: DbOrTx = appDb): Promise<number> {
 	const text = body.replace(/\r\n/g, '\n').trim();
 	if (!text) throw new EntryInputError({ comment: 'Write a comment first.' });
 	if (text.length > COMMENT_MAX) throw new EntryInputError({ comment: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
@@ -320,7 +320,7 @@ export async function addComment(viewer: Viewer, tankId: number, entryId: number
 }
 
 /** Removes a comment: its author, the keeper of the tank, or an admin; anyone else gets EntryNotFound. */
-export async function removeComment(viewer: Viewer, tankId: number, commentId: number, database: Database = appDb): Promise<void> {
+export async function removeComment(viewer: Viewer, tankId: number, commentId: number, database: DbOrTx = appDb): Promise<void> {
 	await database.transaction(async (tx) => {
 		const [row] = await tx
 			.select({ comment: entryComments, tankId: journalEntries.tankId })

@@ -1,7 +1,7 @@
 // What other members do with a tank: admire it (one each, a toggle), follow it (mail on a new
 // entry, at most one a day per tank and follower). Both need the viewer to be able to see it.
 import { and, count, eq, isNull, lte, ne, or, sql } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import { users } from '../club/schema';
 import { enqueue } from '../mail/outbox';
@@ -26,7 +26,7 @@ async function visibleOther(viewer: Viewer, tankId: number, tx: DbOrTx): Promise
 }
 
 /** Admires the tank, or takes the admiration back; returns whether the viewer now admires it. */
-export async function toggleAdmire(viewer: Viewer, tankId: number, want?: boolean, database: Database = appDb): Promise<boolean> {
+export async function toggleAdmire(viewer: Viewer, tankId: number, want?: boolean, database: DbOrTx = appDb): Promise<boolean> {
 	return database.transaction(async (tx) => {
 		await visibleOther(viewer, tankId, tx);
 		const [existing] = await tx
@@ -42,7 +42,7 @@ export async function toggleAdmire(viewer: Viewer, tankId: number, want?: boolea
 }
 
 /** Follows the tank, or stops; returns whether the viewer now follows it. */
-export async function toggleFollow(viewer: Viewer, tankId: number, want?: boolean, database: Database = appDb): Promise<boolean> {
+export async function toggleFollow(viewer: Viewer, tankId: number, want?: boolean, database: DbOrTx = appDb): Promise<boolean> {
 	return database.transaction(async (tx) => {
 		await visibleOther(viewer, tankId, tx);
 		const [existing] = await tx

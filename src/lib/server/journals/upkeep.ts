@@ -1,7 +1,7 @@
 // The upkeep schedule of each tank: its tasks, when each was last done (worked out from the
 // events and tests logged), what is due across a member's tanks, and "done today".
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import { scheduleAll, type ScheduledTask, type MaintenanceTask } from '../../journals/calc';
 import { asMaintenanceTask, doneEventKind, lastDoneOn, type LoggedUpkeep, type TaskDraft } from '../../journals/schedule';
@@ -56,7 +56,7 @@ export class ScheduleError extends Error {
  * Replaces the owner's schedule of a tank with `tasks` (in order). Rows carrying the id of a task
  * of this tank are updated, so events logged "done today" for them still point at them.
  */
-export async function saveSchedule(viewer: Viewer, tankId: number, tasks: (TaskDraft & { id?: number })[], database: Database = appDb, now = new Date()): Promise<void> {
+export async function saveSchedule(viewer: Viewer, tankId: number, tasks: (TaskDraft & { id?: number })[], database: DbOrTx = appDb, now = new Date()): Promise<void> {
 	if (tasks.length > SCHEDULE_MAX) throw new ScheduleError({ tasks: `Keep the schedule to ${SCHEDULE_MAX} tasks.` });
 	await database.transaction(async (tx) => {
 		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
@@ -114,7 +114,7 @@ export async function scheduleOfTank(tankId: number, now = new Date(), tx: DbOrT
  * "Done today": logs an event for the task on the owner's tank (not tied to an entry) and resets
  * it. Returns the tank's id; TankNotFound when the task is not the viewer's.
  */
-export async function markDone(viewer: Viewer, taskId: number, now = new Date(), database: Database = appDb): Promise<number> {
+export async function markDone(viewer: Viewer, taskId: number, now = new Date(), database: DbOrTx = appDb): Promise<number> {
 	return database.transaction(async (tx) => {
 		const [row] = await tx
 			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId })
@@ -141,7 +141,7 @@ export async function markDone(viewer: Viewer, taskId: number, now = new Date(),
 }
 
 /** Takes back an event logged on its own ("done today" by mistake); events of entries go with their entry. */
-export async function removeLoggedEvent(viewer: Viewer, tankId: number, eventId: number, database: Database = appDb, now = new Date()): Promise<void> {
+export async function removeLoggedEvent(viewer: Viewer, tankId: number, eventId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
 	await database.transaction(async (tx) => {
 		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
 		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();

@@ -1,6 +1,6 @@
 // Water tests of a tank: logged by its keeper, read by whoever may see the tank.
 import { and, desc, eq, inArray } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import { buildSeries, type Series, type WaterTestInput } from '../../journals/water-tests';
 import type { UnitSystem } from '../../journals/calc';
@@ -13,7 +13,7 @@ export type { WaterTestRow };
 /** Tests a chart draws at most (the newest ones). */
 export const SERIES_LIMIT = 120;
 
-export async function create(viewer: Viewer, tankId: number, input: WaterTestInput, database: Database = appDb, now = new Date()): Promise<number> {
+export async function create(viewer: Viewer, tankId: number, input: WaterTestInput, database: DbOrTx = appDb, now = new Date()): Promise<number> {
 	return database.transaction(async (tx) => {
 		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
 		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
@@ -24,7 +24,7 @@ export async function create(viewer: Viewer, tankId: number, input: WaterTestInp
 	});
 }
 
-export async function remove(viewer: Viewer, tankId: number, testId: number, database: Database = appDb, now = new Date()): Promise<void> {
+export async function remove(viewer: Viewer, tankId: number, testId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
 	await database.transaction(async (tx) => {
 		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
 		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();

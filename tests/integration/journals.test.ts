@@ -332,7 +332,7 @@ describe('admiring and the showcase', () => {
 	test('one admire per member, a toggle; public running tanks only; filters by style and size', async () => {
 		const keeper = await makePerson({ label: 'showcase-keeper' });
 		const style = `style-${keeper.id.slice(0, 8)}`;
-		const big = await tanks.create(viewerOf(keeper), tankInput({ name: 'Big public', style, visibility: 'public', lengthCm: 120, widthCm: 50, heightCm: 50 }));
+		const big = await tanks.create(viewerOf(keeper), tankInput({ name: 'Big public', style, visibility: 'public', lengthCm: 150, widthCm: 50, heightCm: 60 }));
 		const small = await tanks.create(viewerOf(keeper), tankInput({ name: 'Small public', style, visibility: 'public', lengthCm: 30, widthCm: 20, heightCm: 20 }));
 		await tanks.create(viewerOf(keeper), tankInput({ name: 'Club only', style, visibility: 'club' }));
 		for (let i = 0; i < 2; i++) await request(`/journals/${small}?/admire`, { cookie: member.cookie, form: { want: 'on' } });

@@ -251,6 +251,14 @@ async function hydrate(rows: EntryRow[], tx: DbOrTx): Promise<Entry[]> {
 	}));
 }
 
+/** An entry as a page shows it: the rendered HTML without the markdown source. */
+export type ShownEntry = Omit<Entry, 'body'>;
+export function shown(entry: Entry): ShownEntry {
+	const { body, ...rest } = entry;
+	void body;
+	return rest;
+}
+
 /** One entry of a tank the viewer may see, or null. */
 export async function get(viewer: Pick<Viewer, 'id'> | null, tankId: number, entryId: number, tx: DbOrTx = appDb): Promise<{ tank: TankRow; entry: Entry } | null> {
 	const tank = await tanks.findVisible(viewer, tankId, tx);

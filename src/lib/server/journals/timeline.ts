@@ -9,7 +9,7 @@ import * as water from './water';
 export const TIMELINE_PAGE_SIZE = 10;
 
 export type TimelineItem =
-	| { kind: 'entry'; key: string; on: string; entry: entries.Entry }
+	| { kind: 'entry'; key: string; on: string; entry: entries.ShownEntry }
 	| { kind: 'event'; key: string; on: string; event: EventRow & { taskLabel: string | null } }
 	| { kind: 'test'; key: string; on: string; test: WaterTestRow };
 
@@ -79,7 +79,7 @@ export async function pageOf(tankId: number, requested: number, tx: DbOrTx = app
 		const key = `${k.kind}-${k.id}`;
 		if (k.kind === 'entry') {
 			const entry = byId.entry.get(k.id);
-			return entry ? [{ kind: 'entry', key, on: k.on, entry }] : [];
+			return entry ? [{ kind: 'entry', key, on: k.on, entry: entries.shown(entry) }] : [];
 		}
 		if (k.kind === 'event') {
 			const event = byId.event.get(k.id);

@@ -11,7 +11,7 @@ export const load = (async (event) => {
 	const { tank, entry } = found;
 	return {
 		tank: { id: tank.id, name: tank.name, visibility: tank.visibility, volumeLitres: tank.volumeLitres },
-		entry,
+		entry: entries.shown(entry),
 		comments: await entries.comments(viewer, tank, entry.id),
 		isOwner: tanks.isOwner(viewer, tank)
 	};

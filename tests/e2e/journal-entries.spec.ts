@@ -60,7 +60,12 @@ test('a member keeps a journal that shows in the showcase; another admires it an
 	await expect(page.getByTestId('tank-weight')).toContainText('kg filled');
 	await expect(page.getByTestId('co2-estimate')).toContainText('mg/L');
 	await expect(page.getByTestId('water-warnings')).toContainText('Nitrate (NO₃) read 30 mg/L, above the usual 5–25 mg/L.');
+	// The chart of the reading off target is shown first; the others are a click away.
 	const chart = page.locator('[data-testid=water-chart][data-parameter=NO3]');
+	await expect(chart).toBeVisible();
+	await page.getByRole('group', { name: 'Choose what to chart' }).getByRole('button', { name: 'pH' }).click();
+	await expect(page.locator('[data-testid=water-chart][data-parameter=pH]')).toBeVisible();
+	await page.getByRole('group', { name: 'Choose what to chart' }).getByRole('button', { name: 'NO₃' }).click();
 	await expect(chart).toBeVisible();
 	await expect(chart.getByRole('group', { name: `Nitrate (NO₃) in ${name}` })).toBeVisible();
 	await chart.getByTestId('chart-point').first().focus();

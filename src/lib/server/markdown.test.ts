@@ -2,6 +2,7 @@ import { describe, expect, test } from 'vitest';
 import { parseFragment, type DefaultTreeAdapterMap } from 'parse5';
 import { ALLOWED_TAGS, LINK_REL, renderMarkdown } from './markdown';
 import { OWN_MEDIA_PATH } from '../media/urls';
+import { absoluteLinks } from '../journals/feed';
 
 type Node = DefaultTreeAdapterMap['node'];
 type Element = DefaultTreeAdapterMap['element'];
@@ -178,6 +179,20 @@ describe('markdown rendering keeps nothing harmful', () => {
 	test('hostile links keep their text but lose the link target', () => {
 		expect(renderMarkdown('[click](javascript:alert(1))')).toBe(`<p><a rel="${LINK_REL}">click</a></p>\n`);
 		expect(renderMarkdown('![x](https://evil.example/t.png) after')).toBe('<p> after</p>\n');
+	});
+});
+
+// Journal entries and comments use renderMarkdown as it is; the Atom feed carries the same HTML
+// with root-relative addresses made absolute, which must not open a way around the sanitiser.
+describe('the feed’s copy of an entry stays harmless', () => {
+	test.each(VECTORS)('%s', (vector) => {
+		const html = absoluteLinks(renderMarkdown(vector), BASE);
+		expect(structuralProblems(html)).toEqual([]);
+		expect(html).not.toMatch(/(href|src)="\/\//);
+	});
+	test('our own pictures and links become absolute on our origin, nothing else changes', () => {
+		const html = absoluteLinks(renderMarkdown('![Front](/media/12/medium) and [the tank](/journals/3) and [elsewhere](https://x.test/a)'), BASE);
+		expect(html).toBe(`<p><img src="https://riparia.test/media/12/medium" alt="Front" /> and <a href="https://riparia.test/journals/3" rel="${LINK_REL}">the tank</a> and <a href="https://x.test/a" rel="${LINK_REL}">elsewhere</a></p>\n`);
 	});
 });
 

@@ -55,6 +55,15 @@ try {
 		const page = await context.newPage();
 		for (const path of paths) {
 			const response = await page.goto(base + path, { waitUntil: 'networkidle' });
+			// Scroll through once so lazily loaded pictures are in the full-page shot.
+			await page.evaluate(async () => {
+				for (let y = 0; y < document.body.scrollHeight; y += window.innerHeight / 2) {
+					window.scrollTo(0, y);
+					await new Promise((r) => setTimeout(r, 60));
+				}
+				window.scrollTo(0, 0);
+			});
+			await page.waitForLoadState('networkidle');
 			const file = join(out, `${(path.replace(/[^a-z0-9]+/gi, '_').replace(/^_|_$/g, '') || 'home')}${as ? '-' + as.split('@')[0] : ''}-${width}.png`);
 			await page.screenshot({ path: file, fullPage: true });
 			console.log(`${response?.status()} ${path} → ${file}`);

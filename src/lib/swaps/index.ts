@@ -12,3 +12,4 @@ export * from './notify';
 export * from './pickup';
 export * from './restrictions';
 export * from './terms';
+export * from './places';

@@ -2,7 +2,7 @@
 // the checked input the server saves.
 import { checkAvailableUntil, DAY_MS, defaultAvailableUntil, LISTING_CATEGORIES, LISTING_KINDS, MAX_AVAILABLE_DAYS, type ListingCategory, type ListingKind } from './listing';
 import { checkQuantity, unitsFor, type Quantity } from './quantity';
-import { checkTerms, LISTING_TERMS, type ListingTerms } from './terms';
+import { checkTerms, type ListingTerms } from './terms';
 
 export const TITLE_MAX = 120;
 export const CONDITION_MAX = 500;
@@ -160,4 +160,3 @@ export function parseListingDraft(d: ListingDraft, now: Date): ParsedListing {
 	};
 }
 
-export { LISTING_TERMS };

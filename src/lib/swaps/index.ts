@@ -13,3 +13,4 @@ export * from './pickup';
 export * from './restrictions';
 export * from './terms';
 export * from './places';
+export * from './labels';

@@ -71,6 +71,7 @@ export interface ThreadView {
 	messages: MessageView[];
 	restrictions: Assessment;
 	cautions: readonly string[];
+	version: string;
 	pure: Listing;
 }
 
@@ -188,9 +189,14 @@ export async function get(viewer: Viewer | null, id: number, options: Options = 
 		messages,
 		restrictions,
 		cautions: CATEGORY_CAUTIONS[listing.category],
+		version: versionOf(listing),
 		pure
 	};
 }
+
+/** Changes whenever anything that moves the conversation page's buttons changes. */
+const versionOf = (l: typeof listings.$inferSelect) =>
+	`${l.state}:${l.reservedThreadId ?? ''}:${l.ownerConfirmedAt?.getTime() ?? ''}:${l.requesterConfirmedAt?.getTime() ?? ''}:${l.availableUntil.getTime()}`;
 
 /** Messages after `afterId` for the poller, marking those to the viewer read. Null when not visible. */
 export async function poll(viewer: Viewer | null, id: number, afterId: number, options: Options = {}) {
@@ -208,8 +214,7 @@ export async function poll(viewer: Viewer | null, id: number, afterId: number, o
 		messages: toViews(rows),
 		status: conversationStatus(pure, String(id), now),
 		listingState: effectiveState(pure, now),
-		/** Changes when anything that moves the page's buttons changes. */
-		version: `${listing.state}:${listing.reservedThreadId ?? ''}:${listing.ownerConfirmedAt?.getTime() ?? ''}:${listing.requesterConfirmedAt?.getTime() ?? ''}:${listing.availableUntil.getTime()}`
+		version: versionOf(listing)
 	};
 }
 

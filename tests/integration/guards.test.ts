@@ -5,6 +5,8 @@ import { makePerson, type TestPerson } from '../helpers/people';
 import { request } from '../helpers/http';
 import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
+import * as threads from '../../src/lib/server/swaps/threads';
+import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
 interface Row {
@@ -26,6 +28,9 @@ let target: TestPerson;
 let targetTank: number;
 const apiSignedIn = (status: number) => ({ anonymous: 401, member: status, judge: status, admin: status });
 const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
+const hidden = { anonymous: 404, member: 404, judge: 404, admin: 404 };
+let targetListing: number;
+let targetThread: number;
 
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
@@ -52,7 +57,41 @@ const rows: Row[] = [
 	{ path: '/api/species?q=rotala', api: true, expect: apiSignedIn(200) },
 	{ method: 'POST', path: '/api/markdown/preview', api: true, json: { text: '*hi*' }, expect: apiSignedIn(200) },
 	{ method: 'POST', path: '/api/media', api: true, form: () => ({ note: 'no file here' }), expect: apiSignedIn(400) },
-	{ method: 'DELETE', path: '/api/media/999999999', api: true, expect: apiSignedIn(404) }
+	{ method: 'DELETE', path: '/api/media/999999999', api: true, expect: apiSignedIn(404) },
+	// The swap board. `:listing` is an open listing of target's; `:thread` a conversation about it
+	// between target and another member, which does not exist for anyone else, signed out included.
+	{ path: '/swaps', expect: signedIn(200) },
+	{ path: '/swaps/new', expect: signedIn(200) },
+	{ method: 'POST', path: '/swaps/new', form: () => ({ title: '' }), expect: signedIn(400) },
+	{ path: '/swaps/mine', expect: signedIn(200) },
+	{ method: 'POST', path: '/swaps/mine?/unblock', form: () => ({ memberId: target.id }), expect: signedIn(200) },
+	{ path: '/swaps/:listing', expect: signedIn(200) },
+	{ path: '/swaps/:listing/edit', expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing/edit', form: () => ({ title: 'Taken over' }), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/withdraw', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/release', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/confirm', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/extend', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/request', form: () => ({ body: '' }), expect: signedIn(400) },
+	{ method: 'POST', path: '/swaps/:listing?/report', form: () => ({ reason: 'no' }), expect: signedIn(400) },
+	{ path: '/swaps/threads/:thread', expect: hidden },
+	...['send', 'propose', 'confirmPickup', 'accept', 'release', 'handover', 'block', 'unblock', 'report'].map(
+		(action): Row => ({ method: 'POST', path: `/swaps/threads/:thread?/${action}`, form: () => ({ body: 'hello' }), expect: hidden })
+	),
+	{ path: '/api/swaps/listings', api: true, expect: apiSignedIn(200) },
+	{ path: '/api/swaps/threads/:thread/messages', api: true, expect: hidden },
+	{ path: '/members/:member', expect: signedIn(200) },
+	{ method: 'POST', path: '/members/not-a-member?/block', form: () => ({}), expect: signedIn(404) },
+	{ path: '/admin/areas', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/areas?/add', form: () => ({ name: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/areas?/rename', form: () => ({ id: '0', name: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/areas?/remove', form: () => ({ id: '0' }), expect: adminOnly(404) },
+	{ path: '/admin/reports', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/reports?/decide', form: () => ({}), expect: adminOnly(400) },
+	{ path: '/admin/restricted', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/restricted?/add', form: () => ({}), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/restricted?/update', form: () => ({}), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/restricted?/remove', form: () => ({ id: '0' }), expect: adminOnly(400) }
 ];
 
 beforeAll(async () => {
@@ -63,6 +102,10 @@ beforeAll(async () => {
 	};
 	target = await makePerson({ role: 'member', label: 'target' });
 	targetTank = await tanks.create({ id: target.id }, tankInput({ name: 'Guard tank', visibility: 'club' }));
+	await placePerson(target, { lat: -50.5, lng: -30.5 });
+	targetListing = await createListing(target, { title: 'Guard listing' });
+	const asker = await makePerson({ label: 'guard-asker' });
+	targetThread = await threads.request(viewerOf(asker), targetListing, 'A guarded question');
 });
 
 describe('role guards', () => {
@@ -70,7 +113,8 @@ describe('role guards', () => {
 		for (const visitor of ['anonymous', 'member', 'judge', 'admin'] as const) {
 			test(`${row.method ?? 'GET'} ${row.path} as ${visitor} → ${row.expect[visitor]}`, async () => {
 				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
-				const response = await request(row.path.replace(':tank', String(targetTank)), {
+				const path = row.path.replace(':tank', String(targetTank)).replace(':listing', String(targetListing)).replace(':thread', String(targetThread)).replace(':member', target.id);
+				const response = await request(path, {
 					method: row.method ?? 'GET',
 					cookie,
 					form: row.form?.(),

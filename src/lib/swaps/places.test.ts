@@ -16,6 +16,12 @@ describe('pickup places', () => {
 		expect(nearestArea({ lat: 55.35, lng: 3.19 }, areas)?.name).toBe('North');
 		expect(nearestArea({ lat: 0, lng: 0 }, [])).toBeNull();
 	});
+	test('nothing is "near" beyond 30 km', () => {
+		// A degree along a meridian is πR/180 ≈ 111.19 km on the IUGG mean sphere: 0.26° ≈ 28.9 km, 0.28° ≈ 31.1 km.
+		expect(nearestArea({ lat: 55.46, lng: 3.2 }, areas.slice(0, 1))?.name).toBe('Centre');
+		expect(nearestArea({ lat: 55.48, lng: 3.2 }, areas.slice(0, 1))).toBeNull();
+		expect(nearestArea({ lat: -40, lng: -20 }, areas)).toBeNull();
+	});
 	test('a degree of longitude is shorter than one of latitude away from the equator', () => {
 		// At 55° N, 0.15° of longitude is about 9.6 km and 0.09° of latitude about 10.0 km: the
 		// area further away in degrees is the nearer one.

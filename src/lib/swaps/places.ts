@@ -9,12 +9,19 @@ export interface NamedPlace extends LatLng {
 	name: string;
 }
 
-/** The area whose centre is closest to `point` (great-circle), or null when there are none. */
-export function nearestArea<T extends NamedPlace>(point: LatLng, areas: readonly T[]): T | null {
+/**
+ * Beyond this, a point is not "near" any area (our choice, no source): a member far from the
+ * club's areas gets no area name rather than a misleading one.
+ */
+export const NEAR_AREA_MAX_M = 30_000;
+
+/** The area whose centre is closest to `point` (great-circle) within `maxMetres`, or null. */
+export function nearestArea<T extends NamedPlace>(point: LatLng, areas: readonly T[], maxMetres = NEAR_AREA_MAX_M): T | null {
 	let best: T | null = null;
 	let bestDistance = Infinity;
 	for (const area of areas) {
 		const d = haversineDistance(point, area);
+		if (d > maxMetres) continue;
 		if (d < bestDistance || (d === bestDistance && best !== null && area.name < best.name)) {
 			best = area;
 			bestDistance = d;

@@ -419,8 +419,8 @@ export async function note(tx: DbOrTx, thread: Pick<ThreadRow, 'id'>, senderId: 
 	await tx.update(swapThreads).set({ lastMessageAt: now }).where(eq(swapThreads.id, thread.id));
 }
 
-async function tell(tx: DbOrTx, userId: string, kind: NoticeKind, o: { threadId: number | null; listing: ListingRow; actorName: string; reason?: string }, now: Date) {
-	await queueNotice(tx, userId, (email) => noticeMail(email, { kind, threadId: o.threadId, listingId: o.listing.id, title: o.listing.title, actorName: o.actorName, reason: o.reason }), now);
+async function tell(tx: DbOrTx, userId: string, kind: NoticeKind, o: { threadId: number | null; listing: ListingRow; actorName: string; reason?: string }) {
+	await queueNotice(tx, userId, (email) => noticeMail(email, { kind, threadId: o.threadId, listingId: o.listing.id, title: o.listing.title, actorName: o.actorName, reason: o.reason }));
 }
 
 const threadsOf = (tx: DbOrTx, listingId: number) => tx.select().from(swapThreads).where(eq(swapThreads.listingId, listingId)).orderBy(asc(swapThreads.id));
@@ -453,11 +453,11 @@ export async function act(viewer: Viewer, id: number, action: OwnerAction, optio
 				const status = conversationStatus(before, String(t.id), now);
 				if (status !== 'waiting' && status !== 'accepted') continue;
 				await note(tx, t, viewer.id, t.requesterId, `${actorName} withdrew this listing, so it will not go ahead.`, now);
-				await tell(tx, t.requesterId, 'withdrawn', { threadId: t.id, listing: row, actorName }, now);
+				await tell(tx, t.requesterId, 'withdrawn', { threadId: t.id, listing: row, actorName });
 			}
 		} else if (action.type === 'release' && reservedThread) {
 			await note(tx, reservedThread, viewer.id, reservedThread.requesterId, `${actorName} released the reservation; the listing is open for requests again.`, now);
-			await tell(tx, reservedThread.requesterId, 'released', { threadId: reservedThread.id, listing: row, actorName }, now);
+			await tell(tx, reservedThread.requesterId, 'released', { threadId: reservedThread.id, listing: row, actorName });
 			if (result.listing.state === 'open') {
 				for (const t of threads) {
 					if (t.id !== reservedThread.id) await note(tx, t, viewer.id, t.requesterId, 'The listing is open for requests again.', now);
@@ -467,7 +467,7 @@ export async function act(viewer: Viewer, id: number, action: OwnerAction, optio
 			const otherId = viewer.id === row.ownerId ? reservedThread.requesterId : row.ownerId;
 			const done = result.listing.state === 'handed-over';
 			await note(tx, reservedThread, viewer.id, otherId, done ? `${actorName} confirmed the handover too: the swap is complete.` : `${actorName} confirmed the handover. Please confirm it too once it has changed hands.`, now);
-			await tell(tx, otherId, done ? 'handed-over' : 'confirmed-by-other', { threadId: reservedThread.id, listing: row, actorName }, now);
+			await tell(tx, otherId, done ? 'handed-over' : 'confirmed-by-other', { threadId: reservedThread.id, listing: row, actorName });
 		}
 		return result.listing.state;
 	});
@@ -493,11 +493,11 @@ export async function accept(viewer: Viewer, threadId: number, options: Options 
 		await save(tx, result);
 		const actorName = await nameOf(tx, viewer.id);
 		await note(tx, thread, viewer.id, thread.requesterId, `${actorName} accepted this request. Agree a day, a time and a public meeting place below.`, now);
-		await tell(tx, thread.requesterId, 'accepted', { threadId: thread.id, listing: row, actorName }, now);
+		await tell(tx, thread.requesterId, 'accepted', { threadId: thread.id, listing: row, actorName });
 		for (const other of await threadsOf(tx, row.id)) {
 			if (other.id === thread.id || conversationStatus(before, String(other.id), now) !== 'waiting') continue;
 			await note(tx, other, viewer.id, other.requesterId, `${actorName} accepted another request this time. Thank you for asking.`, now);
-			await tell(tx, other.requesterId, 'not-chosen', { threadId: other.id, listing: row, actorName }, now);
+			await tell(tx, other.requesterId, 'not-chosen', { threadId: other.id, listing: row, actorName });
 		}
 	});
 }
@@ -511,12 +511,12 @@ export async function moderatorWithdraw(admin: Viewer, id: number, reason: strin
 	if (!result.ok) throw new SwapError(409, result.error.code, result.error.message);
 	await save(tx, result, reason);
 	await tx.insert(auditLog).values({ actorId: admin.id, action: 'listing.withdraw', subjectType: 'listing', subjectId: String(id), detail: { reason, from: result.event.from } });
-	await tell(tx, row.ownerId, 'withdrawn-by-admin', { threadId: null, listing: row, actorName: 'The admins', reason }, now);
+	await tell(tx, row.ownerId, 'withdrawn-by-admin', { threadId: null, listing: row, actorName: 'The admins', reason });
 	for (const t of await threadsOf(tx, id)) {
 		const status = conversationStatus(before, String(t.id), now);
 		if (status !== 'waiting' && status !== 'accepted') continue;
 		await note(tx, t, null, t.requesterId, 'The club’s admins withdrew this listing.', now);
-		await tell(tx, t.requesterId, 'withdrawn-by-admin', { threadId: t.id, listing: row, actorName: 'The admins' }, now);
+		await tell(tx, t.requesterId, 'withdrawn-by-admin', { threadId: t.id, listing: row, actorName: 'The admins' });
 	}
 }
 

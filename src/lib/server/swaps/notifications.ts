@@ -2,7 +2,7 @@
 // conversation an hour for "each", one summary an hour for "hourly", none for "off". A message
 // is mailed at once when its conversation's hour is free; otherwise the periodic job below sends
 // what is still unread once the hour has passed. Everything is queued through the outbox inside
-// the transaction that causes it.
+// the transaction that causes it, for delivery straight away (`now` only decides the batching).
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
 import { db as appDb, type Database, type DbOrTx } from '../db';
 import { users } from '../club/schema';
@@ -35,8 +35,7 @@ export async function afterPost(tx: DbOrTx, thread: ThreadRow, message: { id: nu
 		const sender = displayName(await person(tx, message.senderId));
 		await enqueue(
 			tx,
-			threadMail(recipient.email, { threadId: thread.id, recipientId: message.recipientId, title: listing?.title ?? 'your swap', otherName: sender, messages: [{ senderName: sender, body: message.body }] }),
-			now
+			threadMail(recipient.email, { threadId: thread.id, recipientId: message.recipientId, title: listing?.title ?? 'your swap', otherName: sender, messages: [{ senderName: sender, body: message.body }] })
 		);
 		await tx.update(swapThreads).set({ [side]: now }).where(eq(swapThreads.id, thread.id));
 	}
@@ -44,10 +43,10 @@ export async function afterPost(tx: DbOrTx, thread: ThreadRow, message: { id: nu
 }
 
 /** A change the member hears about at once (accepted, withdrawn…), unless they turned swap mail off. */
-export async function queueNotice(tx: DbOrTx, userId: string, build: (email: string) => QueuedMail, now: Date): Promise<void> {
+export async function queueNotice(tx: DbOrTx, userId: string, build: (email: string) => QueuedMail): Promise<void> {
 	const recipient = await person(tx, userId);
 	if (!recipient?.email || recipient.notifyMessages === 'off') return;
-	await enqueue(tx, build(recipient.email), now);
+	await enqueue(tx, build(recipient.email));
 }
 
 /**
@@ -122,8 +121,7 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 							title: titles.get(t.listingId) ?? 'your swap',
 							otherName: otherOf(t),
 							messages: included.map((r) => ({ senderName: r.senderId ? (senders.get(r.senderId) ?? 'A member') : 'Riparia', body: r.body }))
-						}),
-						now
+						})
 					);
 					await tx.update(swapThreads).set({ [sideOf(t, recipientId)]: now }).where(eq(swapThreads.id, t.id));
 				} else {
@@ -132,7 +130,7 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 						const count = included.filter((r) => r.threadId === id).length;
 						return count ? [{ threadId: id, title: titles.get(t.listingId) ?? 'your swap', otherName: otherOf(t), count }] : [];
 					});
-					await enqueue(tx, summaryMail(recipient.email!, { recipientId, threads: summary }), now);
+					await enqueue(tx, summaryMail(recipient.email!, { recipientId, threads: summary }));
 					await tx
 						.insert(swapMailState)
 						.values({ userId: recipientId, summaryMailedAt: now })

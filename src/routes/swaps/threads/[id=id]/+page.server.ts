@@ -8,12 +8,17 @@ import { SwapError } from '$lib/server/swaps/errors';
 import { availableActions } from '$lib/swaps/listing-state';
 import type { Actions, PageServerLoad } from './$types';
 
+// A conversation does not exist for anyone but its two members (and an admin handling a report):
+// signed out included, so a link to it reveals nothing. The error page offers to sign in.
+const NOT_FOUND = 'We could not find that conversation.';
+
 export const load = (async (event) => {
+	if (!event.locals.user) error(404, NOT_FOUND);
 	const viewer = requireUser(event);
 	const now = new Date();
 	const id = Number(event.params.id);
 	const thread = await threads.get(viewer, id, { now });
-	if (!thread) error(404, 'We could not find that conversation.');
+	if (!thread) error(404, NOT_FOUND);
 	if (thread.role !== 'admin') await threads.markRead(viewer, id, now);
 	const { pure, ...shown } = thread;
 	const actions = thread.role === 'admin' ? [] : availableActions(pure, { kind: 'member', userId: viewer.id }, now);
@@ -30,9 +35,10 @@ export const load = (async (event) => {
 
 /** The thread for one of its two members; 404 for anyone else (admins read, they do not act). */
 async function forMember(event: RequestEvent) {
+	if (!event.locals.user) error(404, NOT_FOUND);
 	const viewer = requireUser(event);
 	const thread = await threads.get(viewer, Number(event.params.id));
-	if (!thread || thread.role === 'admin') error(404, 'We could not find that conversation.');
+	if (!thread || thread.role === 'admin') error(404, NOT_FOUND);
 	return { viewer, thread };
 }
 

@@ -13,6 +13,7 @@ import { restrictedSpecies, swapMessages } from '../../src/lib/server/swaps/sche
 import * as listings from '../../src/lib/server/swaps/listings';
 import * as threads from '../../src/lib/server/swaps/threads';
 import * as restricted from '../../src/lib/server/swaps/restricted';
+import * as reports from '../../src/lib/server/swaps/reports';
 import type { ListingInput } from '../../src/lib/swaps/listing-form';
 import { DAY_MS } from '../../src/lib/swaps/listing';
 import { CLUB_NAME, DEMO_PEOPLE } from './people';
@@ -273,6 +274,9 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 	await listings.act(who('joss'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 2));
 	await threads.post(who('mara'), filter, 'Running since Saturday, quiet as anything. Thank you!', opts(7, 5));
 	await listings.act(who('mara'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 5));
+
+	// A member asks the admins to look at the regulator: a faulty gas part is a safety matter.
+	await reports.reportListing(who('ines'), ids.get('regulator')!, 'It says it stopped working. Should a faulty CO2 regulator be passed on at all? Someone might use it without a check.', db);
 
 	// Ines's crypts passed their date: the expiry is recorded as the job would.
 	await listings.expireDue(now, db);

@@ -18,7 +18,7 @@ import { EMPTY_FILTER, type BoardFilter } from '../../src/lib/swaps/board';
 import type { LatLng } from '../../src/lib/club/location';
 import { request } from '../helpers/http';
 import { mailsTo, waitForMail } from '../helpers/mail';
-import { makePerson, type TestPerson } from '../helpers/people';
+import { makePerson } from '../helpers/people';
 import { createListing, memberAt, restrictedPlant, token, viewerOf } from '../helpers/swaps';
 
 const filter = (over: Partial<BoardFilter>): BoardFilter => ({ ...EMPTY_FILTER, ...over });

@@ -7,6 +7,8 @@ import { promoteConfiguredAdmin } from '../src/lib/server/club/users';
 import { seedClub } from './seed/club';
 import { seedSpecies } from './seed/species';
 import { seedJournalTanks, seedJournals } from './seed/journals';
+import { seedRestrictedSpecies } from './seed/restricted';
+import { seedSwaps } from './seed/swaps';
 
 interface SeedStep {
 	name: string;
@@ -19,7 +21,9 @@ const steps: SeedStep[] = [
 	{ name: 'club', demo: true, run: seedClub },
 	{ name: 'species', demo: false, run: seedSpecies },
 	{ name: 'journal-tanks', demo: true, run: seedJournalTanks },
-	{ name: 'journals', demo: true, run: seedJournals }
+	{ name: 'journals', demo: true, run: seedJournals },
+	{ name: 'swap-restricted-species', demo: false, run: seedRestrictedSpecies },
+	{ name: 'swap-demo', demo: true, run: seedSwaps }
 ];
 
 // A production database (DATABASE_URL given to `npm start`) gets reference data only.

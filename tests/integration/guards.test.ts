@@ -7,6 +7,8 @@ import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
+import * as threads from '../../src/lib/server/swaps/threads';
+import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
 interface Row {
@@ -32,6 +34,9 @@ let targetTask: number;
 let targetComment: number;
 const apiSignedIn = (status: number) => ({ anonymous: 401, member: status, judge: status, admin: status });
 const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
+const hidden = { anonymous: 404, member: 404, judge: 404, admin: 404 };
+let targetListing: number;
+let targetThread: number;
 
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
@@ -81,7 +86,41 @@ const rows: Row[] = [
 	{ path: '/journals/:tank/water-tests/new', expect: notOwner },
 	{ method: 'POST', path: '/journals/:tank/water-tests/new', form: () => ({ testedOn: '2026-02-01', ph: '7' }), expect: notOwner },
 	{ path: '/journals/:tank/schedule', expect: notOwner },
-	{ method: 'POST', path: '/journals/:tank/schedule', form: () => ({ 'tasks[0][kind]': 'other', 'tasks[0][label]': 'Taken over', 'tasks[0][intervalDays]': '3' }), expect: notOwner }
+	{ method: 'POST', path: '/journals/:tank/schedule', form: () => ({ 'tasks[0][kind]': 'other', 'tasks[0][label]': 'Taken over', 'tasks[0][intervalDays]': '3' }), expect: notOwner },
+	// The swap board. `:listing` is an open listing of target's; `:thread` a conversation about it
+	// between target and another member, which does not exist for anyone else, signed out included.
+	{ path: '/swaps', expect: signedIn(200) },
+	{ path: '/swaps/new', expect: signedIn(200) },
+	{ method: 'POST', path: '/swaps/new', form: () => ({ title: '' }), expect: signedIn(400) },
+	{ path: '/swaps/mine', expect: signedIn(200) },
+	{ method: 'POST', path: '/swaps/mine?/unblock', form: () => ({ memberId: target.id }), expect: signedIn(200) },
+	{ path: '/swaps/:listing', expect: signedIn(200) },
+	{ path: '/swaps/:listing/edit', expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing/edit', form: () => ({ title: 'Taken over' }), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/withdraw', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/release', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/confirm', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/extend', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/swaps/:listing?/request', form: () => ({ body: '' }), expect: signedIn(400) },
+	{ method: 'POST', path: '/swaps/:listing?/report', form: () => ({ reason: 'no' }), expect: signedIn(400) },
+	{ path: '/swaps/threads/:thread', expect: hidden },
+	...['send', 'propose', 'confirmPickup', 'accept', 'release', 'handover', 'block', 'unblock', 'report'].map(
+		(action): Row => ({ method: 'POST', path: `/swaps/threads/:thread?/${action}`, form: () => ({ body: 'hello' }), expect: hidden })
+	),
+	{ path: '/api/swaps/listings', api: true, expect: apiSignedIn(200) },
+	{ path: '/api/swaps/threads/:thread/messages', api: true, expect: hidden },
+	{ path: '/members/:member', expect: signedIn(200) },
+	{ method: 'POST', path: '/members/not-a-member?/block', form: () => ({}), expect: signedIn(404) },
+	{ path: '/admin/areas', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/areas?/add', form: () => ({ name: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/areas?/rename', form: () => ({ id: '0', name: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/areas?/remove', form: () => ({ id: '0' }), expect: adminOnly(404) },
+	{ path: '/admin/reports', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/reports?/decide', form: () => ({}), expect: adminOnly(400) },
+	{ path: '/admin/restricted', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/restricted?/add', form: () => ({}), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/restricted?/update', form: () => ({}), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/restricted?/remove', form: () => ({ id: '0' }), expect: adminOnly(400) }
 ];
 
 beforeAll(async () => {
@@ -97,6 +136,10 @@ beforeAll(async () => {
 	await upkeep.saveSchedule(keeper, targetTank, [{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 }]);
 	targetTask = (await upkeep.listForTank(targetTank))[0]!.id;
 	targetComment = await entries.addComment(keeper, targetTank, targetEntry, 'Keeper’s own note.');
+	await placePerson(target, { lat: -50.5, lng: -30.5 });
+	targetListing = await createListing(target, { title: 'Guard listing' });
+	const asker = await makePerson({ label: 'guard-asker' });
+	targetThread = await threads.request(viewerOf(asker), targetListing, 'A guarded question');
 });
 
 describe('role guards', () => {
@@ -104,7 +147,13 @@ describe('role guards', () => {
 		for (const visitor of ['anonymous', 'member', 'judge', 'admin'] as const) {
 			test(`${row.method ?? 'GET'} ${row.path} as ${visitor} → ${row.expect[visitor]}`, async () => {
 				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
-				const response = await request(row.path.replaceAll(':tank', String(targetTank)).replace(':entry', String(targetEntry)), {
+				const path = row.path
+					.replaceAll(':tank', String(targetTank))
+					.replace(':entry', String(targetEntry))
+					.replace(':listing', String(targetListing))
+					.replace(':thread', String(targetThread))
+					.replace(':member', target.id);
+				const response = await request(path, {
 					method: row.method ?? 'GET',
 					cookie,
 					form: row.form?.(),

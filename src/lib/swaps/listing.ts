@@ -45,12 +45,35 @@ export function checkAvailableUntil(until: Date, now: Date): string | null {
 }
 
 /**
- * Cautions to show with a listing (the usual ones; local rules on keeping, moving and selling
- * plants and animals come first).
+ * The usual cautions shown with every listing of a category, to both sides (on the listing and in
+ * its conversation). Common practice of the hobby, no single source; local rules on keeping,
+ * moving, selling and releasing plants and animals come first, and licensed practice for
+ * electrical and gas equipment.
  */
-export const CATEGORY_CAUTIONS: Readonly<Partial<Record<ListingCategory, string>>> = {
-	plants:
-		'Never release plants, trimmings or tank water into the wild. Some aquarium plants are restricted or banned where you live: check the local list before you swap.',
-	livestock:
-		'Carry animals in enough water with room to breathe, keep them out of heat and cold, and settle them in slowly. Never release animals or tank water into the wild, and follow local rules on keeping and moving animals.'
+export const CATEGORY_CAUTIONS: Readonly<Record<ListingCategory, readonly string[]>> = {
+	plants: [
+		'Never release plants, trimmings or tank water into ponds, rivers or drains, and never plant them outdoors.',
+		'Dry out unwanted trimmings and put them in the bin, not down the sink.',
+		'Rinse new plants, or dip them, before they go in your tank: snails, their eggs and other pests travel on leaves and roots.',
+		'Some aquarium plants are restricted or banned where you live. Check the local rules, which take precedence over anything here.'
+	],
+	livestock: [
+		'Carry animals in insulated bags or a cool box, with enough water and air, out of heat and cold; keep the journey short.',
+		'Settle them in slowly: float the bag, then add tank water little by little before moving them across.',
+		'Never release animals, plants or tank water into ponds, rivers or drains.',
+		'Rules on keeping, moving and passing on animals differ from place to place. Check the local rules, which take precedence.'
+	],
+	hardscape: [
+		'Scrub and rinse stones and wood before use; some stones raise the hardness of the water, so test a piece in a bucket first.',
+		'Stones and wood from someone else’s tank can carry snails and algae: rinse them well.'
+	],
+	equipment: [
+		'Check mains equipment before use: no cracked casings, cut cables or damaged seals. Use a residual-current device (RCD/GFCI) and drip loops, and leave repairs to a qualified electrician.',
+		'A second-hand CO2 cylinder or regulator must be inspected and, where required, retested by a licensed supplier before it is filled again; keep cylinders upright and secured.',
+		'A filled tank weighs about 1 kg per litre of water plus the glass and substrate: carry tanks empty and check the floor and stand.'
+	]
 };
+
+/** Shown beside the pickup arrangement in every conversation (common practice, no source). */
+export const PICKUP_CAUTION =
+	'Meet somewhere public, such as a library, a café or a club meeting, in daylight. You never need to give your home address; tell someone where you are going.';

@@ -23,6 +23,15 @@ export async function create(actor: Viewer, name: string, centre: LatLng): Promi
 	});
 }
 
+export async function rename(actor: Viewer, id: number, name: string): Promise<void> {
+	await db.transaction(async (tx) => {
+		const [before] = await tx.select().from(clubAreas).where(eq(clubAreas.id, id)).for('update');
+		if (!before) return;
+		await tx.update(clubAreas).set({ name }).where(eq(clubAreas.id, id));
+		await tx.insert(auditLog).values({ actorId: actor.id, action: 'area.rename', subjectType: 'club_area', subjectId: String(id), detail: { from: before.name, to: name } });
+	});
+}
+
 export async function remove(actor: Viewer, id: number): Promise<void> {
 	await db.transaction(async (tx) => {
 		await tx.update(users).set({ homeAreaId: null }).where(eq(users.homeAreaId, id));

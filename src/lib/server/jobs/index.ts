@@ -5,6 +5,8 @@ import { db } from '../db';
 import { signInRequests } from '../club/schema';
 import { sweepPending } from '../media';
 import { sendWeeklyDigests } from '../journals/digest';
+import { expireDue } from '../swaps/listings';
+import { sendDue } from '../swaps/notifications';
 import type { Job } from './runner';
 
 const pruneSignInRequests: Job = {
@@ -29,4 +31,18 @@ const weeklyJournalDigest: Job = {
 	run: (now) => sendWeeklyDigests(now)
 };
 
-export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest];
+/** Open swap listings whose date has passed are recorded as expired (reads never wait for this). */
+const expireSwapListings: Job = {
+	name: 'expire-swap-listings',
+	everyMs: 5 * 60_000,
+	run: (now) => expireDue(now)
+};
+
+/** Swap messages that waited for their conversation's hour, or for an hourly summary. */
+const mailSwapMessages: Job = {
+	name: 'mail-swap-messages',
+	everyMs: 2 * 60_000,
+	run: (now) => sendDue(now)
+};
+
+export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest, expireSwapListings, mailSwapMessages];

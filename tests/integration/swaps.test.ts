@@ -1,0 +1,345 @@
+// The swap board through the running app and its domain functions: the nearby search, who may
+// read a conversation, restricted species, blocks, accepting a request, and batched mail.
+import { describe, expect, test } from 'vitest';
+import { and, eq, like, sql } from 'drizzle-orm';
+import { db } from '../../src/lib/server/db';
+import { outbox } from '../../src/lib/server/mail/schema';
+import { listings as listingTable, swapMailState, swapMessages } from '../../src/lib/server/swaps/schema';
+import * as board from '../../src/lib/server/swaps/board';
+import * as listings from '../../src/lib/server/swaps/listings';
+import * as threads from '../../src/lib/server/swaps/threads';
+import * as blocks from '../../src/lib/server/swaps/blocks';
+import * as reports from '../../src/lib/server/swaps/reports';
+import * as notifications from '../../src/lib/server/swaps/notifications';
+import { SwapError } from '../../src/lib/server/swaps/errors';
+import { haversineDistance } from '../../src/lib/swaps/distance';
+import { formatDistance } from '../../src/lib/swaps/display';
+import { EMPTY_FILTER, type BoardFilter } from '../../src/lib/swaps/board';
+import type { LatLng } from '../../src/lib/club/location';
+import { request } from '../helpers/http';
+import { mailsTo, waitForMail } from '../helpers/mail';
+import { makePerson } from '../helpers/people';
+import { createListing, memberAt, restrictedPlant, token, viewerOf } from '../helpers/swaps';
+
+const filter = (over: Partial<BoardFilter>): BoardFilter => ({ ...EMPTY_FILTER, ...over });
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** The mail fake's messages to an address once there are at least `n` (newest first). */
+async function mailsOnceThere(address: string, n: number, timeoutMs = 15_000) {
+	const deadline = Date.now() + timeoutMs;
+	while (Date.now() < deadline) {
+		const all = await mailsTo(address);
+		if (all.length >= n) return all;
+		await sleep(250);
+	}
+	throw new Error(`Fewer than ${n} mails to ${address} arrived in time.`);
+}
+
+/** Grid points 0.01° apart around `centre` (members' points are stored with two decimals). */
+function gridAround(centre: LatLng, latSteps: number, lngSteps: number): LatLng[] {
+	const points: LatLng[] = [];
+	for (let i = -latSteps; i <= latSteps; i++) {
+		for (let j = -lngSteps; j <= lngSteps; j++) points.push({ lat: Math.round((centre.lat + i / 100) * 100) / 100, lng: Math.round((centre.lng + j / 100) * 100) / 100 });
+	}
+	return points;
+}
+
+describe('swap board: nearby search', () => {
+	test('a listing just inside the radius is found and one just outside is not, by the exact haversine figure, nearest first', async () => {
+		// Over the South Atlantic, away from every other test's listings.
+		const centre = { lat: -41.37, lng: -22.61 };
+		const radius = 25_000;
+		// Of the grid points, the farthest still within 25 km and the nearest beyond it, by the
+		// haversine function checked against @turf/distance in src/lib/swaps/distance.test.ts
+		// (here about 12 m inside and 3 m outside; a 25 km circle passes enough grid points).
+		const scored = gridAround(centre, 40, 50).map((p) => ({ p, d: haversineDistance(centre, p) }));
+		const inside = scored.filter((s) => s.d <= radius).sort((a, b) => b.d - a.d)[0]!;
+		const outside = scored.filter((s) => s.d > radius).sort((a, b) => a.d - b.d)[0]!;
+		expect(inside.d).toBeGreaterThan(radius - 30);
+		expect(outside.d).toBeLessThan(radius + 30);
+		const closestTo = (metres: number) => [...scored].sort((a, b) => Math.abs(a.d - metres) - Math.abs(b.d - metres))[0]!;
+		const near = closestTo(3_000);
+		const middle = closestTo(12_000);
+
+		const viewer = await memberAt(centre, 'nearby-viewer');
+		const tag = token('nearby');
+		const made: Record<string, number> = {};
+		for (const [name, spot] of Object.entries({ inside, outside, near, middle })) {
+			const owner = await memberAt(spot.p, `nearby-${name}`);
+			made[name] = await createListing(owner, { title: `${tag} ${name}` });
+		}
+
+		const within25 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 25 }));
+		expect(within25.order).toBe('distance');
+		expect(within25.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside]);
+		expect(within25.total).toBe(3);
+		const within50 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
+		expect(within50.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside, made.outside]);
+		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near]);
+		// Labels are coarse: "about 25 km" either side of the edge.
+		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => formatDistance(s.d).text));
+		expect(within50.rows.slice(2).map((r) => r.distance?.text)).toEqual(['about 25 km', 'about 25 km']);
+
+		// The SQL distance is the haversine figure to well under a millimetre.
+		for (const [name, spot] of Object.entries({ inside, outside })) {
+			const [row] = await db.select({ d: board.distanceSql(centre) }).from(listingTable).where(eq(listingTable.id, made[name]!));
+			expect(Math.abs(Number(row!.d) - spot.d)).toBeLessThan(1e-4);
+		}
+
+		// The JSON API answers the same, with labels but no coordinates.
+		const response = await request(`/api/swaps/listings?q=${tag}&radius=25`, { cookie: viewer.cookie, accept: 'application/json' });
+		expect(response.status).toBe(200);
+		const text = await response.text();
+		const body = JSON.parse(text) as { rows: { id: number; distance: { text: string } }[]; total: number };
+		expect(body.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside]);
+		expect(text).not.toMatch(/"lat"|"lng"|-41\.3|-22\.6/);
+		// And so does the page rendered without JavaScript.
+		const page = await (await request(`/swaps?q=${tag}&radius=25`, { cookie: viewer.cookie })).text();
+		expect(page).toContain(`${tag} inside`);
+		expect(page).not.toContain(`${tag} outside`);
+	});
+
+	test('across the antimeridian, and without a location the board is newest first with no distances', async () => {
+		const west = { lat: -44.12, lng: 179.98 };
+		const east = { lat: -44.12, lng: -179.98 };
+		const viewer = await memberAt(west, 'dateline-viewer');
+		const owner = await memberAt(east, 'dateline-owner');
+		const tag = token('dateline');
+		const id = await createListing(owner, { title: `${tag} across` });
+		// 0.04° of longitude at 44° S: about 3.2 km, straight across ±180°.
+		expect(haversineDistance(west, east)).toBeLessThan(5_000);
+		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 5 }))).rows.map((r) => r.id)).toEqual([id]);
+		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 2 }))).rows).toEqual([]);
+
+		const nowhere = await memberAt(null, 'no-location');
+		const second = await createListing(owner, { title: `${tag} later` });
+		const newest = await board.search(viewerOf(nowhere), filter({ q: tag, radiusKm: 2 }));
+		expect(newest.order).toBe('newest');
+		expect(newest.rows.map((r) => r.id)).toEqual([second, id]);
+		expect(newest.rows[0]!.distance).toBeNull();
+		const page = await (await request('/swaps', { cookie: nowhere.cookie })).text();
+		expect(page).toContain('data-testid="location-prompt"');
+	});
+});
+
+describe('swap conversations: who may read them', () => {
+	test('only the two members; a third member, a judge, an admin without a report and anonymous visitors get 404, pages and API alike', async () => {
+		const owner = await memberAt({ lat: -38.51, lng: -15.22 }, 'thread-owner');
+		const asker = await memberAt({ lat: -38.52, lng: -15.23 }, 'thread-asker');
+		const third = await makePerson({ label: 'thread-third' });
+		const admin = await makePerson({ role: 'admin', label: 'thread-admin' });
+		const judge = await makePerson({ role: 'judge', label: 'thread-judge' });
+		const id = await createListing(owner, { title: 'Private talk stems' });
+
+		const asked = await request(`/swaps/${id}?/request`, { cookie: asker.cookie, form: { body: 'Secret pickup details: ring twice' } });
+		expect(asked.status).toBe(303);
+		const threadPath = asked.headers.get('location')!;
+		expect(threadPath).toMatch(/^\/swaps\/threads\/\d+$/);
+		const threadId = Number(threadPath.split('/').pop());
+
+		for (const [who, person] of [['owner', owner], ['asker', asker]] as const) {
+			const page = await request(threadPath, { cookie: person.cookie });
+			expect(page.status, who).toBe(200);
+			expect(await page.text()).toContain('Secret pickup details');
+			expect((await request(`/api/swaps/threads/${threadId}/messages`, { cookie: person.cookie, accept: 'application/json' })).status, who).toBe(200);
+		}
+		for (const [who, person] of [['third member', third], ['judge', judge], ['admin', admin], ['anonymous', null]] as const) {
+			const page = await request(threadPath, { cookie: person?.cookie });
+			expect(page.status, `${who} page`).toBe(404);
+			expect(await page.text()).not.toContain('Secret pickup details');
+			const api = await request(`/api/swaps/threads/${threadId}/messages`, { cookie: person?.cookie, accept: 'application/json' });
+			expect(api.status, `${who} API`).toBe(404);
+			expect(JSON.stringify(await api.json())).not.toContain('Secret');
+			const post = await request(`${threadPath}?/send`, { cookie: person?.cookie, form: { body: 'sneaking in' } });
+			expect(post.status, `${who} posting`).toBe(404);
+		}
+		expect(await threads.get(viewerOf(third), threadId)).toBeNull();
+		expect(await threads.get(null, threadId)).toBeNull();
+
+		// An admin may read it while a report about one of its messages is open, and not after.
+		const [first] = await db.select().from(swapMessages).where(eq(swapMessages.threadId, threadId));
+		const reportId = await reports.reportMessage(viewerOf(owner), first!.id, 'This message asks me to ring at a house.');
+		const adminView = await request(threadPath, { cookie: admin.cookie });
+		expect(adminView.status).toBe(200);
+		expect(await adminView.text()).toContain('Secret pickup details');
+		expect((await request(`/api/swaps/threads/${threadId}/messages`, { cookie: admin.cookie, accept: 'application/json' })).status).toBe(200);
+		expect((await request(`${threadPath}?/send`, { cookie: admin.cookie, form: { body: 'admins do not write' } })).status).toBe(404);
+		expect((await request(threadPath, { cookie: third.cookie })).status).toBe(404);
+		const reportsPage = await (await request('/admin/reports', { cookie: admin.cookie })).text();
+		expect(reportsPage).toContain('This message asks me to ring at a house.');
+		await reports.decide(viewerOf(admin), reportId, { kind: 'dismiss', note: 'ok' });
+		expect((await request(threadPath, { cookie: admin.cookie })).status).toBe(404);
+	});
+});
+
+describe('swap restricted species', () => {
+	test('a banned species is refused with the reason, picked from the catalogue or typed', async () => {
+		const owner = await memberAt({ lat: -36.2, lng: -12.4 }, 'banned-owner');
+		const banned = await restrictedPlant('banned');
+		const form = { kind: 'offer', category: 'plants', title: 'Weed cuttings', speciesId: String(banned.speciesId), speciesName: banned.name, amount: '5', unit: 'stems', terms: 'free', termsNote: '', pickupAreaId: '', availableUntil: new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10), condition: '', description: '', tankId: '' };
+		const response = await request('/swaps/new', { cookie: owner.cookie, form });
+		expect(response.status).toBe(400);
+		const html = await response.text();
+		expect(html).toContain(`cannot be offered or asked for on the board: it is banned in ${banned.jurisdiction} (Test land weed order). Keep it out of ponds.`);
+		expect(html).toContain('Weed cuttings');
+
+		const typed = await request('/swaps/new', { cookie: owner.cookie, form: { ...form, speciesId: '', speciesName: banned.name.toUpperCase() } });
+		expect(typed.status).toBe(400);
+		await expect(createListing(owner, { speciesName: banned.name, kind: 'wanted' })).rejects.toMatchObject({ code: 'banned', status: 400 });
+		const [count] = await db.select({ n: sql<number>`COUNT(*)` }).from(listingTable).where(eq(listingTable.ownerId, owner.id));
+		expect(Number(count!.n)).toBe(0);
+	});
+
+	test('a cautioned species is allowed and carries the warning on the listing and, for both members, in the conversation', async () => {
+		const owner = await memberAt({ lat: -36.3, lng: -12.5 }, 'caution-owner');
+		const asker = await memberAt({ lat: -36.31, lng: -12.5 }, 'caution-asker');
+		const cautioned = await restrictedPlant('cautioned');
+		const id = await createListing(owner, { title: 'Cautioned cuttings', speciesId: cautioned.speciesId });
+		const warning = `is restricted in ${cautioned.jurisdiction} (Test land weed order). Keep it out of ponds.`;
+		const page = await (await request(`/swaps/${id}`, { cookie: asker.cookie })).text();
+		expect(page).toContain('data-testid="restriction-caution"');
+		expect(page).toContain(warning);
+		const threadId = await threads.request(viewerOf(asker), id, 'May I have some?');
+		for (const person of [owner, asker]) {
+			const thread = await (await request(`/swaps/threads/${threadId}`, { cookie: person.cookie })).text();
+			expect(thread).toContain(warning);
+		}
+		const card = (await board.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radiusKm: 2 }))).rows.find((r) => r.id === id);
+		expect(card?.restriction).toBe('cautioned');
+	});
+});
+
+describe('swap blocks', () => {
+	test('a blocked member can send neither a request nor a message, and the blocker no longer sees their listings', async () => {
+		const owner = await memberAt({ lat: -34.1, lng: -9.8 }, 'block-owner');
+		const pest = await memberAt({ lat: -34.11, lng: -9.8 }, 'block-pest');
+		const first = await createListing(owner, { title: 'Block test one' });
+		const second = await createListing(owner, { title: 'Block test two' });
+		const pestListing = await createListing(pest, { title: `${token('pest')} pest listing` });
+		const threadId = await threads.request(viewerOf(pest), first, 'Hello there');
+
+		const blocked = await request(`/members/${pest.id}?/block`, { cookie: owner.cookie, form: {} });
+		expect(blocked.status).toBe(303);
+
+		const message = await request(`/swaps/threads/${threadId}?/send`, { cookie: pest.cookie, form: { body: 'Why no answer?' } });
+		expect(message.status).toBe(403);
+		expect(await message.text()).toContain('This member is not taking requests or messages from you.');
+		const ask = await request(`/swaps/${second}?/request`, { cookie: pest.cookie, form: { body: 'And this one?' } });
+		expect(ask.status).toBe(403);
+		await expect(threads.post(viewerOf(pest), threadId, 'again')).rejects.toBeInstanceOf(SwapError);
+		await expect(threads.request(viewerOf(pest), second, 'again')).rejects.toMatchObject({ status: 403, code: 'blocked' });
+		// Writing is closed both ways, and the blocker cannot accept them either.
+		await expect(threads.post(viewerOf(owner), threadId, 'hello?')).rejects.toMatchObject({ code: 'you-blocked' });
+		await expect(listings.accept(viewerOf(owner), threadId)).rejects.toMatchObject({ status: 403 });
+		const messages = await db.select().from(swapMessages).where(eq(swapMessages.threadId, threadId));
+		expect(messages).toHaveLength(1);
+
+		const ownerBoard = await board.search(viewerOf(owner), filter({ q: 'pest listing', radiusKm: 5 }));
+		expect(ownerBoard.rows.map((r) => r.id)).not.toContain(pestListing);
+		const otherBoard = await board.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radiusKm: 5 }));
+		expect(otherBoard.rows.map((r) => r.id)).toContain(pestListing);
+
+		await blocks.unblock(viewerOf(owner), pest.id);
+		expect(await threads.post(viewerOf(pest), threadId, 'Sorry for the noise')).toBeGreaterThan(0);
+	});
+});
+
+describe('swap requests: accepting one', () => {
+	test('reserves the listing, tells the chosen member and, politely through the outbox, every other one', async () => {
+		const owner = await memberAt({ lat: -32.4, lng: -7.7 }, 'accept-owner');
+		const chosen = await memberAt({ lat: -32.41, lng: -7.7 }, 'accept-chosen');
+		const others = [await memberAt({ lat: -32.42, lng: -7.7 }, 'accept-other'), await memberAt({ lat: -32.43, lng: -7.7 }, 'accept-other')];
+		const id = await createListing(owner, { title: 'Popular stems' });
+		const chosenThread = await threads.request(viewerOf(chosen), id, 'Me please');
+		const otherThreads = [];
+		for (const o of others) otherThreads.push(await threads.request(viewerOf(o), id, 'Me too'));
+
+		const accepted = await request(`/swaps/threads/${chosenThread}?/accept`, { cookie: owner.cookie, form: {} });
+		expect(accepted.status).toBe(303);
+		const [row] = await db.select().from(listingTable).where(eq(listingTable.id, id));
+		expect(row).toMatchObject({ state: 'reserved', reservedRequesterId: chosen.id, reservedThreadId: chosenThread });
+
+		const yes = await waitForMail(chosen.email, { subject: /was accepted/ });
+		expect(yes.text).toContain('accepted your request for “Popular stems”');
+		for (const [i, o] of others.entries()) {
+			const mail = await waitForMail(o.email, { subject: /About your request for “Popular stems”/ });
+			expect(mail.text).toContain('Thank you for asking');
+			expect(mail.text).toContain('has accepted another request this time');
+			const queued = await db.select().from(outbox).where(and(eq(outbox.toAddress, o.email), eq(outbox.topic, `swap-listing:${id}`)));
+			expect(queued).toHaveLength(1);
+			// Their conversation is closed now.
+			const view = await threads.get(viewerOf(o), otherThreads[i]!);
+			expect(view).toMatchObject({ status: 'not-chosen', canWrite: false });
+			expect((await request(`/swaps/threads/${otherThreads[i]}?/send`, { cookie: o.cookie, form: { body: 'still there?' } })).status).toBe(409);
+		}
+		// A second acceptance is refused by the state machine.
+		await expect(listings.accept(viewerOf(owner), otherThreads[0]!)).rejects.toMatchObject({ status: 409, code: 'already-reserved' });
+	});
+});
+
+describe('swap message mail', () => {
+	test('"each": two messages in quick succession give one mail; what is still unread goes an hour later; read messages are not mailed', async () => {
+		const owner = await memberAt({ lat: -30.2, lng: -5.5 }, 'mail-owner', 'each');
+		const asker = await memberAt({ lat: -30.21, lng: -5.5 }, 'mail-asker', 'hourly');
+		const id = await createListing(owner, { title: 'Batched stems' });
+		const threadId = await threads.request(viewerOf(asker), id, 'First message');
+		await threads.post(viewerOf(asker), threadId, 'Second message, right after');
+
+		const mail = await waitForMail(owner.email, { subject: /New message about “Batched stems”/ });
+		expect(mail.text).toContain('First message');
+		// Give the outbox worker time to deliver anything else that was queued.
+		await sleep(5_000);
+		expect(await mailsTo(owner.email)).toHaveLength(1);
+		const queued = await db.select().from(outbox).where(eq(outbox.toAddress, owner.email));
+		expect(queued).toHaveLength(1);
+
+		// The periodic job an hour later mails the one still unread.
+		const later = new Date(Date.now() + 61 * 60_000);
+		expect(await notifications.sendDue(later)).toBeGreaterThanOrEqual(1);
+		const [second] = await mailsOnceThere(owner.email, 2);
+		expect(second!.subject).toBe('New message about “Batched stems”');
+		expect(second!.text).toContain('Second message, right after');
+		expect(second!.text).not.toContain('First message');
+
+		// Read on the site before its hour is up: no mail at all.
+		await threads.post(viewerOf(asker), threadId, 'Third message');
+		expect((await request(`/api/swaps/threads/${threadId}/messages`, { cookie: owner.cookie, accept: 'application/json' })).status).toBe(200);
+		await notifications.sendDue(new Date(Date.now() + 125 * 60_000));
+		await sleep(3_000);
+		expect(await mailsTo(owner.email)).toHaveLength(2);
+		expect(await threads.unreadCount(owner.id)).toBe(0);
+	});
+
+	test('"hourly": one summary for several messages, then nothing more within the hour; "off": never', async () => {
+		const owner = await memberAt({ lat: -30.3, lng: -5.6 }, 'summary-owner', 'hourly');
+		const quiet = await memberAt({ lat: -30.31, lng: -5.6 }, 'quiet-owner', 'off');
+		const asker = await memberAt({ lat: -30.32, lng: -5.6 }, 'summary-asker');
+		// As if a summary went half an hour ago: the app's own job (on real time) stays out of the
+		// way, and this test's runs decide when the next one goes.
+		const now = new Date();
+		await db.insert(swapMailState).values({ userId: owner.id, summaryMailedAt: new Date(now.getTime() - 30 * 60_000) });
+		const a = await createListing(owner, { title: 'Summary one' });
+		const b = await createListing(owner, { title: 'Summary two' });
+		const c = await createListing(quiet, { title: 'Never mailed' });
+		await threads.request(viewerOf(asker), a, 'One');
+		await threads.request(viewerOf(asker), b, 'Two');
+		await threads.request(viewerOf(asker), b, 'Three');
+		await threads.request(viewerOf(asker), c, 'Four');
+
+		const queuedFor = async (address: string) => (await db.select().from(outbox).where(eq(outbox.toAddress, address))).length;
+		await notifications.sendDue(new Date(now.getTime() + 20 * 60_000));
+		expect(await queuedFor(owner.email)).toBe(0);
+		await notifications.sendDue(new Date(now.getTime() + 31 * 60_000));
+		expect(await queuedFor(owner.email)).toBe(1);
+		await notifications.sendDue(new Date(now.getTime() + 41 * 60_000));
+		expect(await queuedFor(owner.email)).toBe(1);
+		const summary = await waitForMail(owner.email, { subject: /3 new swap messages/ });
+		expect(summary.text).toContain('“Summary one”: 1 from');
+		expect(summary.text).toContain('“Summary two”: 2 from');
+		await sleep(4_000);
+		expect(await mailsTo(owner.email)).toHaveLength(1);
+		expect(await mailsTo(quiet.email)).toHaveLength(0);
+		const pending = await db.select().from(outbox).where(like(outbox.toAddress, quiet.email));
+		expect(pending).toHaveLength(0);
+	});
+});

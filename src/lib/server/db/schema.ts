@@ -6,3 +6,4 @@ export * from '../mail/schema';
 export * from '../media/schema';
 export * from '../species/schema';
 export * from '../journals/schema';
+export * from '../contests/schema';

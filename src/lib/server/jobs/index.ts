@@ -4,6 +4,7 @@ import { lt } from 'drizzle-orm';
 import { db } from '../db';
 import { signInRequests } from '../club/schema';
 import { sweepPending } from '../media';
+import { sendDueReminders } from '../contests/reminders';
 import type { Job } from './runner';
 
 const pruneSignInRequests: Job = {
@@ -21,4 +22,11 @@ const sweepPendingMedia: Job = {
 	run: (now) => sweepPending({ now })
 };
 
-export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia];
+/** Contest windows whose date passed without the state moving, and judges with open cards. */
+const contestReminders: Job = {
+	name: 'contest-reminders',
+	everyMs: 15 * 60_000,
+	run: (now) => sendDueReminders(now)
+};
+
+export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, contestReminders];

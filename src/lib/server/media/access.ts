@@ -7,13 +7,15 @@
 // and then passes its scope name to media.attach / setPhotos / listFor / deleteFor.
 import type { Viewer } from '../club/users';
 import * as tanks from '../journals/tanks';
+import * as contestEntries from '../contests/entries';
 import type { MediaRow } from './schema';
 
 export type MediaAudience = 'public' | 'restricted';
 export type ScopeCheck = (viewer: Viewer | null, scopeId: number) => Promise<MediaAudience | null>;
 
 const scopes = {
-	tank: tanks.photoAudience
+	tank: tanks.photoAudience,
+	'contest-entry': contestEntries.photoAudience
 } satisfies Record<string, ScopeCheck>;
 
 export type MediaScope = keyof typeof scopes;

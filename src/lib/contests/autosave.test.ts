@@ -270,3 +270,21 @@ describe('refusals that retrying cannot fix', () => {
 		expect(await a.flush()).toBe(false);
 	});
 });
+
+test('a value the server refuses is not retried, but the next edit saves again', async () => {
+	server.script = [];
+	const real = server.send;
+	let refuse = true;
+	server.send = async (body) => (refuse ? { kind: 'refused', status: 400, code: 'invalid', message: 'Depth: 11 is above the maximum.' } : real(body));
+	const a = make();
+	a.edit(withScore(11));
+	await clock.advance(800);
+	expect(a.state.kind).toBe('stopped');
+	await clock.advance(10_000);
+	expect(server.card.version).toBe(0);
+	refuse = false;
+	a.edit(withScore(9));
+	await clock.advance(800);
+	expect(a.state.kind).toBe('saved');
+	expect(server.card.fields.scores.a).toBe(9);
+});

@@ -53,6 +53,8 @@ export interface AutosaveDeps {
 }
 
 export const DEBOUNCE_MS = 800;
+/** Refusals the judge can fix by editing (a score out of range), so the next edit saves again. */
+const RESUMABLE = new Set(['invalid', 'bad-request']);
 export const RETRY_BASE_MS = 1_000;
 export const RETRY_MAX_MS = 30_000;
 
@@ -153,7 +155,9 @@ export class CardAutosave {
 	edit(fields: CardFields) {
 		this.#local = fields;
 		this.#keep();
-		if (this.#state.kind === 'conflict' || this.#state.kind === 'stopped') return;
+		if (this.#state.kind === 'conflict') return;
+		// A refused value (out of range) may be fixed by the next edit; other refusals stand.
+		if (this.#state.kind === 'stopped' && !RESUMABLE.has(this.#state.code)) return;
 		if (this.#state.kind === 'retrying') return; // the pending retry sends the latest edits
 		if (!this.dirty && !this.#running) {
 			this.#forget();
@@ -240,7 +244,8 @@ export class CardAutosave {
 	}
 
 	async #once(): Promise<void> {
-		if (this.#state.kind === 'conflict' || this.#state.kind === 'stopped') return;
+		if (this.#state.kind === 'conflict') return;
+		if (this.#state.kind === 'stopped' && !RESUMABLE.has(this.#state.code)) return;
 		const fields = this.#local;
 		if (sameFields(fields, this.#confirmed)) {
 			this.#attempt = 0;

@@ -210,6 +210,8 @@ export interface TransitionContext {
 }
 
 export const OVERRIDE_REASON_MIN = 10;
+/** Corrections after publication need a reason as long. */
+export const CORRECTION_REASON_MIN = OVERRIDE_REASON_MIN;
 
 /** Why a transition cannot be taken now; empty when it can. */
 export function transitionProblems(name: TransitionName, ctx: TransitionContext): string[] {

@@ -10,7 +10,7 @@ import type { Photo } from '../media';
 import { computeResults, type RankBasis, type ResultsInput, type ResultsReport, type EntryResult } from '../../contests/results';
 import { checkDraftFields, normaliseFields, type CardFields } from '../../contests/card';
 import { validateScorecard } from '../../contests/scoring';
-import { TRANSITIONS, transitionProblems, OVERRIDE_REASON_MIN, type TransitionName } from '../../contests/lifecycle';
+import { CORRECTION_REASON_MIN, TRANSITIONS, transitionProblems, type TransitionName } from '../../contests/lifecycle';
 import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type EntryRow } from './schema';
 import { ContestError, ContestNotFound } from './errors';
 import { assertAdmin, load, rubricOf, tieBreakOf, windowsOf, type ContestDetail } from './contests';
@@ -303,7 +303,6 @@ export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = app
 
 // ---- Corrections after publication --------------------------------------------------------------
 
-export const CORRECTION_REASON_MIN = OVERRIDE_REASON_MIN;
 
 function requireReason(reason: string | null | undefined): string {
 	const r = (reason ?? '').trim();

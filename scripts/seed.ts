@@ -7,6 +7,7 @@ import { promoteConfiguredAdmin } from '../src/lib/server/club/users';
 import { seedClub } from './seed/club';
 import { seedSpecies } from './seed/species';
 import { seedJournalTanks } from './seed/journals';
+import { seedContests } from './seed/contests';
 
 interface SeedStep {
 	name: string;
@@ -18,7 +19,8 @@ interface SeedStep {
 const steps: SeedStep[] = [
 	{ name: 'club', demo: true, run: seedClub },
 	{ name: 'species', demo: false, run: seedSpecies },
-	{ name: 'journal-tanks', demo: true, run: seedJournalTanks }
+	{ name: 'journal-tanks', demo: true, run: seedJournalTanks },
+	{ name: 'contests', demo: true, run: seedContests }
 ];
 
 // A production database (DATABASE_URL given to `npm start`) gets reference data only.

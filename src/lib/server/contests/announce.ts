@@ -3,7 +3,7 @@
 // place and a link to their feedback. Queued through the outbox in one transaction, once per
 // results revision: the dedupe keys make a second click (or a second admin) send nothing twice.
 import { eq } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import { absoluteUrl } from '../config';
 import { enqueue, type QueuedMail } from '../mail/outbox';
@@ -110,7 +110,7 @@ export async function preview(viewer: Viewer, contestId: number, tx: DbOrTx = ap
 }
 
 /** Queues the announcement and the entrants' mails for the current results revision. */
-export async function send(viewer: Viewer, contestId: number, options: { now?: Date; database?: Database } = {}): Promise<{ queued: number }> {
+export async function send(viewer: Viewer, contestId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<{ queued: number }> {
 	assertAdmin(viewer);
 	const now = options.now ?? new Date();
 	return (options.database ?? appDb).transaction(async (tx) => {
@@ -118,18 +118,19 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 		if (!locked) throw new ContestNotFound('No such contest.');
 		const p = await plan(contestId, tx);
 		const rev = `r${p.revision}`;
+		// Entrants' own results first: with a large club the announcement takes a while to drain.
 		const mails: QueuedMail[] = [
-			...p.recipients.map((person) => ({
-				to: person.email,
-				...announcementMail(p.results, person.unsubscribeToken),
-				topic: `${topicPrefix(contestId)}announce`,
-				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
-			})),
 			...p.entrants.map(({ entry, person }) => ({
 				to: person.email,
 				...entrantMail(p.results, entry, person.displayName),
 				topic: `${topicPrefix(contestId)}entrant`,
 				dedupeKey: `contest:${contestId}:${rev}:entrant:${entry.entryId}`
+			})),
+			...p.recipients.map((person) => ({
+				to: person.email,
+				...announcementMail(p.results, person.unsubscribeToken),
+				topic: `${topicPrefix(contestId)}announce`,
+				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
 			}))
 		];
 		await enqueue(tx, mails, now);

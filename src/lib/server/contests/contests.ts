@@ -2,7 +2,7 @@
 // the admins' alone (anyone else gets null, so the page answers 404); from the moment it opens
 // its rules, categories and dates are public.
 import { and, asc, count, desc, eq, inArray, notInArray } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import type { Rubric } from '../../contests/rubric';
 import type { ContestWindows, ContestState } from '../../contests/lifecycle';
@@ -181,7 +181,7 @@ async function writeRubricAndCategories(tx: DbOrTx, contestId: number, input: Co
 		.where(keptCategories.length ? and(eq(contestCategories.contestId, contestId), notInArray(contestCategories.id, keptCategories)) : eq(contestCategories.contestId, contestId));
 }
 
-export async function create(viewer: Viewer, input: ContestInput, database: Database = appDb): Promise<number> {
+export async function create(viewer: Viewer, input: ContestInput, database: DbOrTx = appDb): Promise<number> {
 	assertAdmin(viewer);
 	return database.transaction(async (tx) => {
 		const [result] = await tx.insert(contests).values({
@@ -202,7 +202,7 @@ export async function create(viewer: Viewer, input: ContestInput, database: Data
  * Saves the admin's changes. Once the contest has opened, the rubric, categories, aggregation and
  * entry limit are fixed and only the title, rules and dates change; an archived contest changes no more.
  */
-export async function update(viewer: Viewer, id: number, input: ContestInput, database: Database = appDb): Promise<void> {
+export async function update(viewer: Viewer, id: number, input: ContestInput, database: DbOrTx = appDb): Promise<void> {
 	assertAdmin(viewer);
 	await database.transaction(async (tx) => {
 		const found = await row(id, tx, true);

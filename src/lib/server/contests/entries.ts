@@ -2,7 +2,7 @@
 // as checked for eligibility. Entries are made, changed and withdrawn only while the contest takes
 // entries; judges never reach them through here (see ./judging.ts for the blind view).
 import { and, asc, count, eq, ne } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import * as media from '../media';
 import type { Photo } from '../media';
@@ -119,7 +119,7 @@ const wrapMedia = (error: unknown): never => {
 	throw error;
 };
 
-export async function create(viewer: Viewer, contestId: number, input: EntryInput, options: { now?: Date; database?: Database } = {}): Promise<number> {
+export async function create(viewer: Viewer, contestId: number, input: EntryInput, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
 	const now = options.now ?? new Date();
 	return (options.database ?? appDb).transaction(async (tx) => {
 		const { values } = await vet(tx, viewer, contestId, input, null, now);
@@ -135,7 +135,7 @@ async function ownEntry(tx: DbOrTx, viewer: Viewer, entryId: number): Promise<En
 	return entry;
 }
 
-export async function update(viewer: Viewer, entryId: number, input: EntryInput, options: { now?: Date; database?: Database } = {}): Promise<void> {
+export async function update(viewer: Viewer, entryId: number, input: EntryInput, options: { now?: Date; database?: DbOrTx } = {}): Promise<void> {
 	const now = options.now ?? new Date();
 	const purge = await (options.database ?? appDb).transaction(async (tx) => {
 		const entry = await ownEntry(tx, viewer, entryId);
@@ -146,7 +146,7 @@ export async function update(viewer: Viewer, entryId: number, input: EntryInput,
 	await media.purge(purge).catch((e: unknown) => console.error(`[contests] removing replaced photos of entry ${entryId} failed:`, e));
 }
 
-export async function withdraw(viewer: Viewer, entryId: number, options: { now?: Date; database?: Database } = {}): Promise<number> {
+export async function withdraw(viewer: Viewer, entryId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
 	const now = options.now ?? new Date();
 	const { contestId, purge } = await (options.database ?? appDb).transaction(async (tx) => {
 		const entry = await ownEntry(tx, viewer, entryId);

@@ -4,7 +4,7 @@
 // number, and what comes back (BlindEntry) carries no entrant, no tank name or id, no photo owner
 // and no entry id. A judge never reaches their own entry or one they declared a conflict on.
 import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import * as media from '../media';
 import { renderMarkdown } from '../markdown';
@@ -37,7 +37,7 @@ export async function panel(contestId: number, tx: DbOrTx = appDb): Promise<peop
 
 const panelClosed = (state: ContestState) => state === 'published' || state === 'archived';
 
-export async function assign(viewer: Viewer, contestId: number, judgeId: string, database: Database = appDb): Promise<void> {
+export async function assign(viewer: Viewer, contestId: number, judgeId: string, database: DbOrTx = appDb): Promise<void> {
 	assertAdmin(viewer);
 	await database.transaction(async (tx) => {
 		const contest = await row(contestId, tx, true);
@@ -53,7 +53,7 @@ export async function assign(viewer: Viewer, contestId: number, judgeId: string,
 }
 
 /** Takes a judge off the panel; their cards are kept but no longer count. */
-export async function unassign(viewer: Viewer, contestId: number, judgeId: string, database: Database = appDb): Promise<void> {
+export async function unassign(viewer: Viewer, contestId: number, judgeId: string, database: DbOrTx = appDb): Promise<void> {
 	assertAdmin(viewer);
 	await database.transaction(async (tx) => {
 		const contest = await row(contestId, tx, true);
@@ -331,7 +331,7 @@ const DEADLOCK = 1213;
 const isDeadlock = (e: unknown) => (e as { errno?: number })?.errno === DEADLOCK || (e as { cause?: { errno?: number } })?.cause?.errno === DEADLOCK;
 
 /** Runs a short card transaction, once more if InnoDB picked it as a deadlock victim. */
-async function cardTransaction<T>(database: Database, work: (tx: DbOrTx) => Promise<T>): Promise<T> {
+async function cardTransaction<T>(database: DbOrTx, work: (tx: DbOrTx) => Promise<T>): Promise<T> {
 	try {
 		return await database.transaction(work);
 	} catch (error) {
@@ -345,7 +345,7 @@ async function cardTransaction<T>(database: Database, work: (tx: DbOrTx) => Prom
  * than the stored one (VersionConflict, with the stored card), or when a score is out of range.
  * A repeat of the last save (same save id) answers as the first time did and changes nothing.
  */
-export async function saveCard(viewer: Viewer, contestId: number, number: number, save: CardSave, options: { now?: Date; database?: Database } = {}): Promise<CardView> {
+export async function saveCard(viewer: Viewer, contestId: number, number: number, save: CardSave, options: { now?: Date; database?: DbOrTx } = {}): Promise<CardView> {
 	const now = options.now ?? new Date();
 	return cardTransaction(options.database ?? appDb, async (tx) => {
 		const { contest, entry } = await access(tx, viewer, contestId, number);
@@ -373,7 +373,7 @@ export async function saveCard(viewer: Viewer, contestId: number, number: number
 }
 
 /** Submits the card the judge last saw (its version); every criterion needs a score. */
-export async function submitCard(viewer: Viewer, contestId: number, number: number, version: number, options: { now?: Date; database?: Database } = {}): Promise<CardView> {
+export async function submitCard(viewer: Viewer, contestId: number, number: number, version: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<CardView> {
 	const now = options.now ?? new Date();
 	return cardTransaction(options.database ?? appDb, async (tx) => {
 		const { contest, entry } = await access(tx, viewer, contestId, number);
@@ -393,7 +393,7 @@ export async function submitCard(viewer: Viewer, contestId: number, number: numb
 }
 
 /** Reopens a submitted card while the judging window lasts. */
-export async function reopenCard(viewer: Viewer, contestId: number, number: number, options: { now?: Date; database?: Database } = {}): Promise<CardView> {
+export async function reopenCard(viewer: Viewer, contestId: number, number: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<CardView> {
 	const now = options.now ?? new Date();
 	return cardTransaction(options.database ?? appDb, async (tx) => {
 		const { contest, entry } = await access(tx, viewer, contestId, number);
@@ -416,7 +416,7 @@ export const CONFLICT_REASON_MAX = 300;
  * The judge declares a conflict (they know the entrant or the tank, helped with it …): they are
  * taken off the entry for good and any card of theirs for it is deleted. The reason is for the admins.
  */
-export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, database: Database = appDb): Promise<void> {
+export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, database: DbOrTx = appDb): Promise<void> {
 	await database.transaction(async (tx) => {
 		const { entry } = await access(tx, viewer, contestId, number);
 		await tx.insert(contestConflicts).values({ entryId: entry.id, judgeId: viewer.id, reason: reason.slice(0, CONFLICT_REASON_MAX) });
@@ -469,7 +469,7 @@ export function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 
  * The admin reminds judges (all with open cards, or the ones named) by mail through the outbox.
  * One reminder per judge per hour: a double click sends nothing twice.
  */
-export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: string[] | null, options: { now?: Date; database?: Database } = {}): Promise<number> {
+export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: string[] | null, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
 	assertAdmin(viewer);
 	const now = options.now ?? new Date();
 	return (options.database ?? appDb).transaction(async (tx) => {

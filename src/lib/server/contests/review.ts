@@ -3,7 +3,7 @@
 // matrix, the public results and each entrant's feedback show. Also the state transitions that
 // depend on it (publication) and the corrections admins may make after publication.
 import { and, asc, eq, inArray } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
 import * as media from '../media';
 import type { Photo } from '../media';
@@ -119,7 +119,7 @@ function shuffledNumbers(n: number): number[] {
 export interface TransitionOptions {
 	overrideReason?: string | null;
 	now?: Date;
-	database?: Database;
+	database?: DbOrTx;
 }
 
 /** Takes one admin step in the contest's life, after the confirmation step; recorded in the audit log. */
@@ -311,7 +311,7 @@ function requireReason(reason: string | null | undefined): string {
 }
 
 /** Ranking basis: before publication a setting; after it a correction with a reason, shown publicly. */
-export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankBasis, reason: string | null, database: Database = appDb): Promise<void> {
+export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankBasis, reason: string | null, database: DbOrTx = appDb): Promise<void> {
 	assertAdmin(viewer);
 	await database.transaction(async (tx) => {
 		const [c] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
@@ -329,7 +329,7 @@ export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankB
 }
 
 /** An admin corrects a submitted card after publication (say a judge reports a slip), with a reason. */
-export async function amendCard(viewer: Viewer, cardId: number, fields: CardFields, reason: string, database: Database = appDb): Promise<number> {
+export async function amendCard(viewer: Viewer, cardId: number, fields: CardFields, reason: string, database: DbOrTx = appDb): Promise<number> {
 	assertAdmin(viewer);
 	return database.transaction(async (tx) => {
 		const [card] = await tx.select().from(contestCards).where(eq(contestCards.id, cardId)).for('update');

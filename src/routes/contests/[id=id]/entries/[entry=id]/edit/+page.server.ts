@@ -38,6 +38,8 @@ export const actions = {
 	default: async (event) => {
 		const viewer = requireUser(event);
 		const entryId = Number(event.params.entry);
+		const found = await entries.getOwn(viewer, entryId);
+		if (!found || found.entry.entrantId !== viewer.id || found.contest.id !== Number(event.params.id)) error(404, 'We could not find that entry.');
 		const read = await readEntryForm(event.request, viewer, entryId);
 		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, photos: read.photos });
 		try {

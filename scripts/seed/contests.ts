@@ -39,10 +39,10 @@ const TIE_BREAK = ['Sense of depth', 'Plant vigour', 'Hardscape balance', 'Care 
 
 /** Leniency (added to the 0–1 quality) and steadiness (SD of each judgement) of each demo judge. */
 const JUDGE_STYLE: Record<string, { bias: number; noise: number }> = {
-	sefa: { bias: 0.05, noise: 0.05 },
-	tamsin: { bias: -0.08, noise: 0.04 },
-	ugo: { bias: 0.0, noise: 0.08 },
-	nell: { bias: 0.02, noise: 0.06 }
+	sefa: { bias: 0.04, noise: 0.04 },
+	tamsin: { bias: -0.05, noise: 0.035 },
+	ugo: { bias: 0.0, noise: 0.06 },
+	nell: { bias: 0.015, noise: 0.05 }
 };
 
 type Shape = { l: number; w: number; h: number; glass: number; substrate: number; rock: number; style: string };
@@ -273,8 +273,9 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			tieBreak: TIE_BREAK.map((label) => `k${DEMO_RUBRIC.findIndex((c) => c.label === label)}`),
 			categories: plan.categories
 		};
-		const contestId = await contests.create(admin, input, db);
-		for (const judge of plan.judges) await judging.assign(admin, contestId, people.get(judge)!, db);
+		const prepared = new Date(opened.getTime() - 6 * DAY);
+		const contestId = await contests.create(admin, input, db, prepared);
+		for (const judge of plan.judges) await judging.assign(admin, contestId, people.get(judge)!, db, new Date(prepared.getTime() + 3_600_000));
 		await transition(admin, contestId, 'open-entries', { now: opened, database: db });
 		const contest = (await contests.load(contestId, db))!;
 
@@ -320,7 +321,7 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 
 		for (const [judge, index, reason] of plan.conflicts) {
 			const viewer = await viewerOf(db, people.get(judge)!);
-			await judging.declareConflict(viewer, contestId, numbers.get(entryIds[index]!)!, reason, db);
+			await judging.declareConflict(viewer, contestId, numbers.get(entryIds[index]!)!, reason, db, new Date(judgingOpens.getTime() + 2 * 3_600_000));
 		}
 
 		const rubricIds = contest.criteria.map((c) => String(c.id));

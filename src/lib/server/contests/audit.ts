@@ -6,8 +6,9 @@ import { auditLog, users } from '../club/schema';
 
 export const SUBJECT = 'contest';
 
-export async function record(tx: DbOrTx, actorId: string | null, action: string, contestId: number, detail: Record<string, unknown> = {}): Promise<void> {
-	await tx.insert(auditLog).values({ actorId, action, subjectType: SUBJECT, subjectId: String(contestId), detail });
+/** `at` defaults to the database's clock; steps taken on a given day (the demo data) pass theirs. */
+export async function record(tx: DbOrTx, actorId: string | null, action: string, contestId: number, detail: Record<string, unknown> = {}, at?: Date): Promise<void> {
+	await tx.insert(auditLog).values({ actorId, action, subjectType: SUBJECT, subjectId: String(contestId), detail, ...(at ? { createdAt: at } : {}) });
 }
 
 export interface AuditEntry {

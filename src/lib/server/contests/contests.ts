@@ -181,7 +181,7 @@ async function writeRubricAndCategories(tx: DbOrTx, contestId: number, input: Co
 		.where(keptCategories.length ? and(eq(contestCategories.contestId, contestId), notInArray(contestCategories.id, keptCategories)) : eq(contestCategories.contestId, contestId));
 }
 
-export async function create(viewer: Viewer, input: ContestInput, database: DbOrTx = appDb): Promise<number> {
+export async function create(viewer: Viewer, input: ContestInput, database: DbOrTx = appDb, now?: Date): Promise<number> {
 	assertAdmin(viewer);
 	return database.transaction(async (tx) => {
 		const [result] = await tx.insert(contests).values({
@@ -189,11 +189,12 @@ export async function create(viewer: Viewer, input: ContestInput, database: DbOr
 			entriesPerMember: input.entriesPerMember,
 			aggregation: input.aggregation,
 			createdBy: viewer.id,
-			updatedAt: new Date()
+			updatedAt: now ?? new Date(),
+			...(now ? { createdAt: now } : {})
 		});
 		const id = result.insertId;
 		await writeRubricAndCategories(tx, id, input);
-		await audit.record(tx, viewer.id, 'contest.create', id, { title: input.title });
+		await audit.record(tx, viewer.id, 'contest.create', id, { title: input.title }, now);
 		return id;
 	});
 }

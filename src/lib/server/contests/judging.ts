@@ -37,7 +37,7 @@ export async function panel(contestId: number, tx: DbOrTx = appDb): Promise<peop
 
 const panelClosed = (state: ContestState) => state === 'published' || state === 'archived';
 
-export async function assign(viewer: Viewer, contestId: number, judgeId: string, database: DbOrTx = appDb): Promise<void> {
+export async function assign(viewer: Viewer, contestId: number, judgeId: string, database: DbOrTx = appDb, now?: Date): Promise<void> {
 	assertAdmin(viewer);
 	await database.transaction(async (tx) => {
 		const contest = await row(contestId, tx, true);
@@ -47,8 +47,8 @@ export async function assign(viewer: Viewer, contestId: number, judgeId: string,
 		if (!person || person.role !== 'judge') throw new ContestError(400, 'Only members with the judge role can be assigned.', 'not-a-judge');
 		const [existing] = await tx.select().from(contestJudges).where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, judgeId)));
 		if (existing) return;
-		await tx.insert(contestJudges).values({ contestId, judgeId, assignedBy: viewer.id });
-		await audit.record(tx, viewer.id, 'panel.assign', contestId, { judgeId, judge: person.displayName });
+		await tx.insert(contestJudges).values({ contestId, judgeId, assignedBy: viewer.id, ...(now ? { assignedAt: now } : {}) });
+		await audit.record(tx, viewer.id, 'panel.assign', contestId, { judgeId, judge: person.displayName }, now);
 	});
 }
 
@@ -416,12 +416,12 @@ export const CONFLICT_REASON_MAX = 300;
  * The judge declares a conflict (they know the entrant or the tank, helped with it …): they are
  * taken off the entry for good and any card of theirs for it is deleted. The reason is for the admins.
  */
-export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, database: DbOrTx = appDb): Promise<void> {
+export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, database: DbOrTx = appDb, now?: Date): Promise<void> {
 	await database.transaction(async (tx) => {
 		const { entry } = await access(tx, viewer, contestId, number);
-		await tx.insert(contestConflicts).values({ entryId: entry.id, judgeId: viewer.id, reason: reason.slice(0, CONFLICT_REASON_MAX) });
+		await tx.insert(contestConflicts).values({ entryId: entry.id, judgeId: viewer.id, reason: reason.slice(0, CONFLICT_REASON_MAX), ...(now ? { declaredAt: now } : {}) });
 		await tx.delete(contestCards).where(and(eq(contestCards.entryId, entry.id), eq(contestCards.judgeId, viewer.id)));
-		await audit.record(tx, viewer.id, 'judge.conflict', contestId, { entryId: entry.id, number, reason: reason.slice(0, CONFLICT_REASON_MAX) });
+		await audit.record(tx, viewer.id, 'judge.conflict', contestId, { entryId: entry.id, number, reason: reason.slice(0, CONFLICT_REASON_MAX) }, now);
 	});
 }
 

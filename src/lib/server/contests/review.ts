@@ -170,7 +170,7 @@ export async function transition(viewer: Viewer, contestId: number, name: Transi
 				}));
 			}
 		}
-		await audit.record(tx, viewer.id, `contest.${name}`, contestId, detail);
+		await audit.record(tx, viewer.id, `contest.${name}`, contestId, detail, now);
 	});
 }
 

@@ -1,6 +1,6 @@
-// Two demo contests, run through the real contest functions: one published (three categories,
-// 19 entries, four judges, one declared conflict, one judge who entered a tank himself) and one
-// being judged with some cards still open. Entries are made on dates in the past by passing
+// Three demo contests, run through the real contest functions: one published (three categories,
+// 19 entries, four judges, one declared conflict, one judge who entered a tank himself), one
+// being judged with some cards still open, and one just opened for entries. Entries are made on dates in the past by passing
 // `now`, scores come from a small model of judges (each entry has an underlying quality per
 // criterion, each judge a leniency and a steadiness), and the published results are whatever
 // the server computes from those cards.
@@ -161,7 +161,8 @@ interface ContestPlan {
 	conflicts: [string, number, string][];
 	/** Share of each judge's cards to submit (1 = all); the rest are drafts or not started. */
 	finished: Record<string, number>;
-	publish: boolean;
+	/** The state the contest is left in. */
+	until: 'open' | 'judging' | 'published';
 }
 
 function plans(rnd: () => number): ContestPlan[] {
@@ -178,6 +179,7 @@ function plans(rnd: () => number): ContestPlan[] {
 		...['mara', 'corin', 'rafe', 'pim', 'fenna'].map((owner, i) => ({ owner, category: 0, shape: OPEN[(i + 2) % OPEN.length]!, quality: quality(0.5 + rnd() * 0.4), photos: 1 })),
 		...['joss', 'lio', 'yara', 'ines'].map((owner, i) => ({ owner, category: 1, shape: NANO[(i + 1) % NANO.length]!, quality: quality(0.5 + rnd() * 0.4), photos: 1 }))
 	];
+	const third: EntryPlan[] = ['dov', 'yara'].map((owner, i) => ({ owner, category: 0, shape: OPEN[(i + 3) % OPEN.length]!, quality: quality(0.6), photos: 1 }));
 	return [
 		{
 			title: 'Kettlewater Scapes, first round',
@@ -197,7 +199,7 @@ function plans(rnd: () => number): ContestPlan[] {
 			entries: published,
 			conflicts: [['tamsin', 1, 'I helped set up the hardscape of this tank and would recognise it anywhere.']],
 			finished: { sefa: 1, tamsin: 1, ugo: 1, nell: 1 },
-			publish: true
+			until: 'published'
 		},
 		{
 			title: 'Kettlewater Scapes, second round',
@@ -215,7 +217,22 @@ function plans(rnd: () => number): ContestPlan[] {
 			entries: current,
 			conflicts: [],
 			finished: { sefa: 1, tamsin: 0.5, nell: 0.25 },
-			publish: false
+			until: 'judging'
+		},
+		{
+			title: 'Kettlewater Scapes, third round',
+			rules: 'One tank per member this time, any size, running at least four weeks. Photos of the tank as it is now; fish stay in their own tank.',
+			categories: [{ id: null, name: 'Open', description: 'Any style, any size.', minLitres: null, maxLitres: null, minAgeWeeks: 4 }],
+			aggregation: 'trimmed-mean',
+			entriesPerMember: 1,
+			judges: ['sefa', 'tamsin', 'ugo', 'nell'],
+			openedDaysAgo: 3,
+			entriesCloseDaysAgo: -25,
+			judgingClosesInDays: 40,
+			entries: third,
+			conflicts: [],
+			finished: {},
+			until: 'open'
 		}
 	];
 }
@@ -280,7 +297,7 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 		const contest = (await contests.load(contestId, db))!;
 
 		// Entries, spread over the entry window.
-		const span = entriesClose.getTime() - opened.getTime();
+		const span = Math.min(entriesClose.getTime(), now.getTime() - 3_600_000) - opened.getTime();
 		const entryIds: number[] = [];
 		for (const [i, e] of plan.entries.entries()) {
 			const ownerId = people.get(e.owner);
@@ -316,6 +333,7 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			entryIds.push(id);
 		}
 
+		if (plan.until === 'open') continue;
 		await transition(admin, contestId, 'start-judging', { now: judgingOpens, database: db });
 		const numbers = new Map((await db.select({ id: contestEntries.id, number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.contestId, contestId))).map((r) => [r.id, r.number!]));
 
@@ -347,6 +365,6 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			}
 		}
 
-		if (plan.publish) await transition(admin, contestId, 'publish', { now: new Date(judgingCloses.getTime() + DAY), database: db });
+		if (plan.until === 'published') await transition(admin, contestId, 'publish', { now: new Date(judgingCloses.getTime() + DAY), database: db });
 	}
 }

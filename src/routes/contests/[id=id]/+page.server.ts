@@ -14,7 +14,7 @@ export const load = (async (event) => {
 	if (!contest) error(404, 'We could not find that contest.');
 	const accepting = entriesAccepted(contest.state, contests.windowsOf(contest), new Date());
 	const mine = viewer ? await entries.listOwn(viewer, contest.id) : [];
-	const results = await publicResults(contest.id);
+	const results = contest.state === 'published' || contest.state === 'archived' ? await publicResults(contest.id) : null;
 	return {
 		contest: {
 			id: contest.id,

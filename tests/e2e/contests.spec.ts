@@ -5,7 +5,8 @@ import { db } from '../../src/lib/server/db';
 import { contestEntries } from '../../src/lib/server/contests/schema';
 import { makePerson, type TestPerson } from '../helpers/people';
 import { waitForMail } from '../helpers/mail';
-import { openTank } from '../helpers/contests';
+import * as judging from '../../src/lib/server/contests/judging';
+import { contestFixture, openTank, viewerOf } from '../helpers/contests';
 import { contextFor } from './fixtures';
 
 test.describe.configure({ mode: 'serial' });
@@ -160,4 +161,40 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 	await adminPage.reload();
 	await expect(adminPage.getByTestId('delivery')).toContainText(members[0]!.email);
 	await adminPage.context().close();
+});
+
+test('the scorecard keeps edits through a dropped connection and a closed tab', async ({ browser }) => {
+	const f = await contestFixture({ judges: 1, entrantNames: ['Offline Entrant'] });
+	const judge = f.judges[0]!;
+	const number = f.entries[0]!.number!;
+	const context = await contextFor(browser, judge, { viewport: { width: 390, height: 844 } });
+	const page = await context.newPage();
+	await page.goto(`/judging/${f.contestId}/${number}`);
+	const card = page.getByTestId('scorecard');
+	await card.getByLabel('Depth', { exact: true }).fill('7.5');
+	await expect(page.getByTestId('save-state')).toHaveText('✓ Saved', { timeout: 10_000 });
+
+	// The connection drops: the card says so, keeps the edit and retries.
+	await context.setOffline(true);
+	await card.getByLabel('Finish', { exact: true }).fill('4');
+	await expect(page.getByTestId('save-state')).toContainText('Offline: kept on this device', { timeout: 10_000 });
+	await context.setOffline(false);
+	await expect(page.getByTestId('save-state')).toHaveText('✓ Saved', { timeout: 15_000 });
+	const stored = await judging.getCard(viewerOf(judge), f.contestId, number);
+	expect(stored.fields.scores).toEqual({ [f.criteria[0]!]: 7.5, [f.criteria[1]!]: 4 });
+
+	// Offline again, a comment typed, the tab closed before it could be saved …
+	await context.setOffline(true);
+	await card.getByLabel('Comment for the entrant').fill('Typed on the train');
+	await expect(page.getByTestId('save-state')).toContainText('Offline', { timeout: 10_000 });
+	await page.close();
+	await context.setOffline(false);
+	// … is back on the next visit and saved then.
+	const again = await context.newPage();
+	await again.goto(`/judging/${f.contestId}/${number}`);
+	await expect(again.getByText('Changes you made earlier on this device')).toBeVisible();
+	await expect(again.getByTestId('scorecard').getByLabel('Comment for the entrant')).toHaveValue('Typed on the train');
+	await expect(again.getByTestId('save-state')).toHaveText('✓ Saved', { timeout: 10_000 });
+	expect((await judging.getCard(viewerOf(judge), f.contestId, number)).fields.entrantComment).toBe('Typed on the train');
+	await context.close();
 });

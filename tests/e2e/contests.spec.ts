@@ -158,8 +158,11 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 	const announcement = await waitForMail(judges[0]!.email, { subject: new RegExp(`^Results: ${title}`), timeoutMs: 120_000 });
 	expect(announcement.text).toContain(`1st ${members[0]!.displayName} (76.00 %)`);
 	expect(announcement.headers['list-unsubscribe']).toContain('/unsubscribe/');
-	await adminPage.reload();
-	await expect(adminPage.getByTestId('delivery')).toContainText(members[0]!.email);
+	await adminPage.getByLabel('Recipient').fill(members[0]!.email);
+	await adminPage.getByRole('button', { name: 'Find' }).click();
+	const rowsFor = adminPage.getByTestId('delivery').locator('tbody tr');
+	await expect(rowsFor).toHaveCount(2);
+	await expect(rowsFor.filter({ hasText: 'Personal result' })).toContainText('Delivered');
 	await adminPage.context().close();
 });
 

@@ -380,8 +380,9 @@ describe('announcement', () => {
 		const delivered = await waitForMail(winner.email, { subject: /^Results: /, timeoutMs: 90_000 });
 		expect(delivered.headers['list-unsubscribe']).toMatch(/\/unsubscribe\/[0-9a-f]{32}\?kind=announcements/);
 
-		const status = await (await request(`/admin/contests/${f.contestId}/announce`, { cookie: f.admin.cookie })).text();
+		const status = await (await request(`/admin/contests/${f.contestId}/announce?address=${encodeURIComponent(winner.email)}`, { cookie: f.admin.cookie })).text();
 		expect(status).toContain(winner.email);
+		expect(status).toContain('Personal result');
 	});
 });
 

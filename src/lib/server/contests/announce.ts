@@ -142,9 +142,9 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 	});
 }
 
-/** Per-recipient delivery of this contest's results mails. */
-export async function delivery(viewer: Viewer, contestId: number, page: number) {
+/** Per-recipient delivery of this contest's results mails, optionally for addresses containing `address`. */
+export async function delivery(viewer: Viewer, contestId: number, page: number, address?: string) {
 	assertAdmin(viewer);
-	const [summary, listing] = await Promise.all([deliverySummary(topicPrefix(contestId)), listOutbox({ topic: topicPrefix(contestId), page })]);
+	const [summary, listing] = await Promise.all([deliverySummary(topicPrefix(contestId)), listOutbox({ topic: topicPrefix(contestId), address: address || undefined, page })]);
 	return { summary, ...listing };
 }

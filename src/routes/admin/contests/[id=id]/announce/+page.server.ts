@@ -6,19 +6,20 @@ import * as announce from '$lib/server/contests/announce';
 import { ContestError } from '$lib/server/contests/errors';
 import type { Actions, PageServerLoad } from './$types';
 
-const query = z.object({ page: z.coerce.number().int().min(1).max(10_000).catch(1) });
+const query = z.object({ page: z.coerce.number().int().min(1).max(10_000).catch(1), address: z.string().trim().max(200).catch('') });
 
 export const load = (async (event) => {
 	const viewer = requireRole(event, 'admin');
 	const contest = await contests.get(viewer, Number(event.params.id));
 	if (!contest) error(404, 'We could not find that contest.');
-	const { page } = query.parse(Object.fromEntries(event.url.searchParams));
+	const { page, address } = query.parse({ page: event.url.searchParams.get('page') ?? undefined, address: event.url.searchParams.get('address') ?? '' });
 	const published = contest.state === 'published' || contest.state === 'archived';
 	return {
 		contest: { id: contest.id, title: contest.title, state: contest.state },
 		preview: published ? await announce.preview(viewer, contest.id) : null,
-		delivery: await announce.delivery(viewer, contest.id, page),
-		page
+		delivery: await announce.delivery(viewer, contest.id, page, address),
+		page,
+		address
 	};
 }) satisfies PageServerLoad;
 

@@ -39,8 +39,8 @@ const TIE_BREAK = ['Sense of depth', 'Plant vigour', 'Hardscape balance', 'Care 
 
 /** Leniency (added to the 0–1 quality) and steadiness (SD of each judgement) of each demo judge. */
 const JUDGE_STYLE: Record<string, { bias: number; noise: number }> = {
-	sefa: { bias: 0.04, noise: 0.04 },
-	tamsin: { bias: -0.05, noise: 0.035 },
+	sefa: { bias: 0.025, noise: 0.04 },
+	tamsin: { bias: -0.035, noise: 0.035 },
 	ugo: { bias: 0.0, noise: 0.06 },
 	nell: { bias: 0.015, noise: 0.05 }
 };

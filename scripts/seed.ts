@@ -9,6 +9,7 @@ import { seedSpecies } from './seed/species';
 import { seedJournalTanks, seedJournals } from './seed/journals';
 import { seedRestrictedSpecies } from './seed/restricted';
 import { seedSwaps } from './seed/swaps';
+import { seedContests } from './seed/contests';
 
 interface SeedStep {
 	name: string;
@@ -23,7 +24,8 @@ const steps: SeedStep[] = [
 	{ name: 'journal-tanks', demo: true, run: seedJournalTanks },
 	{ name: 'journals', demo: true, run: seedJournals },
 	{ name: 'swap-restricted-species', demo: false, run: seedRestrictedSpecies },
-	{ name: 'swap-demo', demo: true, run: seedSwaps }
+	{ name: 'swap-demo', demo: true, run: seedSwaps },
+	{ name: 'contests', demo: true, run: seedContests }
 ];
 
 // A production database (DATABASE_URL given to `npm start`) gets reference data only.

@@ -10,10 +10,14 @@ import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 
+import * as judging from '../../src/lib/server/contests/judging';
+import { cardIdOf, contestFixture, fields, viewerOf as contestViewer, type Fixture } from '../helpers/contests';
+
+
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
 interface Row {
-	method?: 'GET' | 'POST' | 'DELETE';
-	/** `:tank` stands for a club-visible tank of another member, `:entry` for an entry of it. */
+	method?: 'GET' | 'POST' | 'PUT' | 'DELETE';
+	/** `:tank` stands for a club-visible tank of another member, `:entry` for a journal entry of it. */
 	path: string;
 	form?: () => Record<string, string>;
 	json?: unknown;
@@ -37,6 +41,12 @@ const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
 const hidden = { anonymous: 404, member: 404, judge: 404, admin: 404 };
 let targetListing: number;
 let targetThread: number;
+/** A contest being judged, with an entry of `target`'s and one card by a judge of its panel. */
+let contest: Fixture;
+let cardId: number;
+const judgesOnly = (status: number) => ({ anonymous: 303, member: 403, judge: status, admin: status });
+const judgeApi = (status: number) => ({ anonymous: 401, member: 403, judge: status, admin: status });
+const blankCard = { baseVersion: 0, saveId: 'guard-test-save', fields: { scores: {}, comments: {}, entrantComment: '', panelNote: '' } };
 
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
@@ -120,7 +130,44 @@ const rows: Row[] = [
 	{ path: '/admin/restricted', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/restricted?/add', form: () => ({}), expect: adminOnly(400) },
 	{ method: 'POST', path: '/admin/restricted?/update', form: () => ({}), expect: adminOnly(400) },
-	{ method: 'POST', path: '/admin/restricted?/remove', form: () => ({ id: '0' }), expect: adminOnly(400) }
+	{ method: 'POST', path: '/admin/restricted?/remove', form: () => ({ id: '0' }), expect: adminOnly(400) },
+	// Contests. :contest is being judged; :contestEntry is target's contest entry in it, :number its number, :card a card of it.
+	{ path: '/contests', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ path: '/contests/:contest/enter', expect: signedIn(200) },
+	{ method: 'POST', path: '/contests/:contest/enter', form: () => ({ statement: '' }), expect: signedIn(400) },
+	{ path: '/contests/:contest/entries/:contestEntry', expect: { anonymous: 303, member: 404, judge: 404, admin: 200 } },
+	{ path: '/contests/:contest/entries/:contestEntry/edit', expect: notOwner },
+	{ method: 'POST', path: '/contests/:contest/entries/:contestEntry/edit', form: () => ({ statement: 'Taken over' }), expect: notOwner },
+	{ method: 'POST', path: '/contests/:contest/entries/:contestEntry?/withdraw', form: () => ({ confirm: 'withdraw' }), expect: notOwner },
+	{ path: '/judging', expect: judgesOnly(200) },
+	// A judge who is not on this contest's panel, and admins (who do not judge), find nothing.
+	{ path: '/judging/:contest', expect: judgesOnly(404) },
+	{ path: '/judging/:contest/:number', expect: judgesOnly(404) },
+	{ method: 'POST', path: '/judging/:contest/:number?/conflict', form: () => ({ reason: 'guard test', confirm: 'yes' }), expect: judgesOnly(404) },
+	{ path: '/api/judging/:contest/:number/card', api: true, expect: judgeApi(404) },
+	{ method: 'PUT', path: '/api/judging/:contest/:number/card', api: true, json: blankCard, expect: judgeApi(404) },
+	{ method: 'POST', path: '/api/judging/:contest/:number/card/submit', api: true, json: { version: 1 }, expect: judgeApi(404) },
+	{ method: 'POST', path: '/api/judging/:contest/:number/card/reopen', api: true, json: {}, expect: judgeApi(404) },
+	{ path: '/admin/contests', expect: adminOnly(200) },
+	{ path: '/admin/contests/new', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/new', form: () => ({ title: '' }), expect: adminOnly(400) },
+	{ path: '/admin/contests/:contest', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/:contest?/step', form: () => ({ step: 'publish' }), expect: adminOnly(400) },
+	{ path: '/admin/contests/:contest/edit', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/:contest/edit', form: () => ({ title: '' }), expect: adminOnly(400) },
+	{ path: '/admin/contests/:contest/judging', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/:contest/judging?/assign', form: () => ({ judgeId: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/contests/:contest/judging?/unassign', form: () => ({ judgeId: 'nobody' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/contests/:contest/judging?/remind', form: () => ({}), expect: adminOnly(200) },
+	{ path: '/admin/contests/:contest/results', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/:contest/results?/rankBy', form: () => ({ rankBy: 'by-feel' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/contests/:contest/results?/step', form: () => ({ step: 'publish' }), expect: adminOnly(400) },
+	{ path: '/admin/contests/:contest/cards/:card', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/:contest/cards/:card', form: () => ({ reason: '' }), expect: adminOnly(400) },
+	{ path: '/admin/contests/:contest/announce', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/contests/:contest/announce?/send', form: () => ({}), expect: adminOnly(400) },
+	{ path: '/admin/contests/:contest/export/results', expect: adminOnly(200) },
+	{ path: '/admin/contests/:contest/export/cards', expect: adminOnly(200) }
 ];
 
 beforeAll(async () => {
@@ -140,6 +187,9 @@ beforeAll(async () => {
 	targetListing = await createListing(target, { title: 'Guard listing' });
 	const asker = await makePerson({ label: 'guard-asker' });
 	targetThread = await threads.request(viewerOf(asker), targetListing, 'A guarded question');
+	contest = await contestFixture({ judges: 1, entrants: [target] });
+	await judging.saveCard(contestViewer(contest.judges[0]!), contest.contestId, contest.entries[0]!.number!, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(contest.criteria, [5, null]) });
+	cardId = await cardIdOf(contest.entries[0]!.entryId, contest.judges[0]!.id);
 });
 
 describe('role guards', () => {
@@ -149,10 +199,14 @@ describe('role guards', () => {
 				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
 				const path = row.path
 					.replaceAll(':tank', String(targetTank))
-					.replace(':entry', String(targetEntry))
-					.replace(':listing', String(targetListing))
-					.replace(':thread', String(targetThread))
-					.replace(':member', target.id);
+					.replaceAll(':contestEntry', String(contest.entries[0]!.entryId))
+					.replaceAll(':entry', String(targetEntry))
+					.replaceAll(':listing', String(targetListing))
+					.replaceAll(':thread', String(targetThread))
+					.replaceAll(':member', target.id)
+					.replaceAll(':contest', String(contest.contestId))
+					.replaceAll(':number', String(contest.entries[0]!.number))
+					.replaceAll(':card', String(cardId));
 				const response = await request(path, {
 					method: row.method ?? 'GET',
 					cookie,

@@ -8,3 +8,7 @@ export * from './concordance';
 export * from './outliers';
 export * from './readiness';
 export { mean, median, populationStandardDeviation, sampleStandardDeviation } from './stats';
+export * from './lifecycle';
+export * from './eligibility';
+export * from './results';
+export * from './card';

@@ -7,3 +7,4 @@ export * from '../media/schema';
 export * from '../species/schema';
 export * from '../journals/schema';
 export * from '../swaps/schema';
+export * from '../contests/schema';

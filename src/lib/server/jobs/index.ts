@@ -7,6 +7,7 @@ import { sweepPending } from '../media';
 import { sendWeeklyDigests } from '../journals/digest';
 import { expireDue } from '../swaps/listings';
 import { sendDue } from '../swaps/notifications';
+import { sendDueReminders } from '../contests/reminders';
 import type { Job } from './runner';
 
 const pruneSignInRequests: Job = {
@@ -45,4 +46,18 @@ const mailSwapMessages: Job = {
 	run: (now) => sendDue(now)
 };
 
-export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest, expireSwapListings, mailSwapMessages];
+/** Contest windows whose date passed without the state moving, and judges with open cards. */
+const contestReminders: Job = {
+	name: 'contest-reminders',
+	everyMs: 15 * 60_000,
+	run: (now) => sendDueReminders(now)
+};
+
+export const jobs: Job[] = [
+	pruneSignInRequests,
+	sweepPendingMedia,
+	weeklyJournalDigest,
+	expireSwapListings,
+	mailSwapMessages,
+	contestReminders
+];

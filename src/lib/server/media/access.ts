@@ -9,6 +9,7 @@ import type { Viewer } from '../club/users';
 import * as tanks from '../journals/tanks';
 import * as entries from '../journals/entries';
 import * as listings from '../swaps/listings';
+import * as contestEntries from '../contests/entries';
 import type { MediaRow } from './schema';
 
 export type MediaAudience = 'public' | 'restricted';
@@ -17,7 +18,8 @@ export type ScopeCheck = (viewer: Viewer | null, scopeId: number) => Promise<Med
 const scopes = {
 	tank: tanks.photoAudience,
 	entry: entries.photoAudience,
-	listing: listings.photoAudience
+	listing: listings.photoAudience,
+	'contest-entry': contestEntries.photoAudience
 } satisfies Record<string, ScopeCheck>;
 
 export type MediaScope = keyof typeof scopes;

@@ -1,0 +1,85 @@
+// Which tanks a category accepts: an optional water-volume range and an optional minimum age,
+// both checked against the figures of the tank profile (see $lib/journals/figures).
+
+export interface EligibilityRule {
+	/** Inclusive bounds in litres of water; null for no bound. */
+	minLitres: number | null;
+	maxLitres: number | null;
+	/** Whole weeks the tank must have been running on the day it is entered; null for no minimum. */
+	minAgeWeeks: number | null;
+}
+
+export interface TankFacts {
+	/** The tank's water volume (measured, else estimated); null when it cannot be worked out. */
+	litres: number | null;
+	volumeSource: 'measured' | 'estimated' | null;
+	/** Whole weeks since set-up; null without a set-up date. */
+	ageWeeks: number | null;
+	retired: boolean;
+}
+
+export interface EligibilityCheck {
+	eligible: boolean;
+	/** One sentence per unmet condition, for the member. */
+	reasons: string[];
+	/** The volume as compared and shown: rounded to one decimal, so what the member reads is what is judged. */
+	comparedLitres: number | null;
+}
+
+export const LITRES_DECIMALS = 1;
+
+export const roundLitres = (litres: number) => Math.round(litres * 10 ** LITRES_DECIMALS) / 10 ** LITRES_DECIMALS;
+
+const fmt = (n: number) => n.toLocaleString('en-GB', { maximumFractionDigits: LITRES_DECIMALS });
+const weeks = (n: number) => `${n} week${n === 1 ? '' : 's'}`;
+
+/** "10–60 L of water, running at least 8 weeks", or "Any tank". */
+export function describeRule(rule: EligibilityRule): string {
+	const parts: string[] = [];
+	if (rule.minLitres !== null && rule.maxLitres !== null) parts.push(`${fmt(rule.minLitres)}–${fmt(rule.maxLitres)} L of water`);
+	else if (rule.minLitres !== null) parts.push(`at least ${fmt(rule.minLitres)} L of water`);
+	else if (rule.maxLitres !== null) parts.push(`up to ${fmt(rule.maxLitres)} L of water`);
+	if (rule.minAgeWeeks !== null && rule.minAgeWeeks > 0) parts.push(`running at least ${weeks(rule.minAgeWeeks)}`);
+	if (parts.length === 0) return 'Any running tank';
+	const text = parts.join(', ');
+	return text[0]!.toUpperCase() + text.slice(1);
+}
+
+export function checkEligibility(rule: EligibilityRule, tank: TankFacts): EligibilityCheck {
+	const reasons: string[] = [];
+	const comparedLitres = tank.litres === null ? null : roundLitres(tank.litres);
+	if (tank.retired) reasons.push('The tank is retired; only running tanks can be entered.');
+	if (rule.minLitres !== null || rule.maxLitres !== null) {
+		if (comparedLitres === null) {
+			reasons.push('Its water volume cannot be worked out: check the size on the tank profile, or enter a measured volume.');
+		} else {
+			if (rule.minLitres !== null && comparedLitres < rule.minLitres) {
+				reasons.push(`It holds ${fmt(comparedLitres)} L of water; this category needs at least ${fmt(rule.minLitres)} L.`);
+			}
+			if (rule.maxLitres !== null && comparedLitres > rule.maxLitres) {
+				reasons.push(`It holds ${fmt(comparedLitres)} L of water; this category takes at most ${fmt(rule.maxLitres)} L.`);
+			}
+		}
+	}
+	if (rule.minAgeWeeks !== null && rule.minAgeWeeks > 0) {
+		if (tank.ageWeeks === null) reasons.push('Its set-up date is missing: add it to the tank profile so its age can be checked.');
+		else if (tank.ageWeeks < rule.minAgeWeeks) {
+			reasons.push(`It has been running ${weeks(tank.ageWeeks)}; this category needs at least ${weeks(rule.minAgeWeeks)}.`);
+		}
+	}
+	return { eligible: reasons.length === 0, reasons, comparedLitres };
+}
+
+/** Problems with a rule as an admin typed it, keyed by field. */
+export function validateRule(rule: EligibilityRule): Partial<Record<keyof EligibilityRule, string>> {
+	const errors: Partial<Record<keyof EligibilityRule, string>> = {};
+	if (rule.minLitres !== null && !(rule.minLitres >= 0)) errors.minLitres = 'Give a volume of 0 litres or more.';
+	if (rule.maxLitres !== null && !(rule.maxLitres > 0)) errors.maxLitres = 'Give a volume above 0 litres.';
+	if (rule.minLitres !== null && rule.maxLitres !== null && rule.maxLitres < rule.minLitres) {
+		errors.maxLitres = 'The largest volume must not be below the smallest.';
+	}
+	if (rule.minAgeWeeks !== null && !(Number.isInteger(rule.minAgeWeeks) && rule.minAgeWeeks >= 0)) {
+		errors.minAgeWeeks = 'Give a whole number of weeks.';
+	}
+	return errors;
+}

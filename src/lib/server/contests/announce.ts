@@ -1,0 +1,150 @@
+// The results announcement: one mail to every member who takes announcements (with an
+// unsubscribe link and List-Unsubscribe header) and one personal mail to each entrant with their
+// place and a link to their feedback. Queued through the outbox in one transaction, once per
+// results revision: the dedupe keys make a second click (or a second admin) send nothing twice.
+import { eq } from 'drizzle-orm';
+import { db as appDb, type DbOrTx } from '../db';
+import type { Viewer } from '../club/users';
+import { absoluteUrl } from '../config';
+import { enqueue, type QueuedMail } from '../mail/outbox';
+import { renderMail } from '../mail/templates';
+import { unsubscribeHeaders, unsubscribeUrl } from '../mail/unsubscribe';
+import { deliverySummary, listOutbox } from '../mail/report';
+import { formatPercent, formatPlace } from '../../contests/format';
+import { contests } from './schema';
+import { ContestError, ContestNotFound } from './errors';
+import { assertAdmin } from './contests';
+import { publicResults, type PublicEntry, type PublicResults } from './review';
+import * as people from './people';
+import * as audit from './audit';
+
+export const topicPrefix = (contestId: number) => `contest:${contestId}:results:`;
+
+const resultsUrl = (contestId: number) => absoluteUrl(`/contests/${contestId}`);
+const feedbackUrl = (contestId: number, entryId: number) => absoluteUrl(`/contests/${contestId}/entries/${entryId}`);
+
+function podium(results: PublicResults): string[] {
+	return results.categories.map((cat) => {
+		const top = cat.entries.filter((e) => e.place !== null && e.place <= 3);
+		if (top.length === 0) return `${cat.name}: no placed entries.`;
+		return `${cat.name}: ${top.map((e) => `${formatPlace(e.place)} ${e.entrantName} (${formatPercent(e.score)})`).join('; ')}.`;
+	});
+}
+
+export function announcementMail(results: PublicResults, token: string) {
+	const c = results.contest;
+	const { html, text } = renderMail({
+		heading: `Results of “${c.title}”`,
+		paragraphs: [
+			`The judges have finished and the results of “${c.title}” are out.`,
+			...podium(results),
+			`Every entry with its photos, scores by criterion and the judges’ comments is on the results page. Judged by ${results.panel.join(', ') || 'the club’s panel'}.`
+		],
+		action: { label: 'See the results', url: resultsUrl(c.id) },
+		footer: 'You get this mail because you take club announcements.',
+		unsubscribeUrl: unsubscribeUrl(token, 'announcements')
+	});
+	return { subject: `Results: ${c.title}`, html, text, headers: unsubscribeHeaders(token, 'announcements') };
+}
+
+export function entrantMail(results: PublicResults, entry: PublicEntry, name: string) {
+	const c = results.contest;
+	const category = results.categories.find((k) => k.id === entry.categoryId)!;
+	const placed =
+		entry.place === null
+			? `Your entry in ${category.name} could not be placed: no judge’s card counted for it.`
+			: `Your entry in ${category.name}${entry.number ? ` (number ${entry.number})` : ''} placed ${formatPlace(entry.place, entry.sharedWith > 0)} of ${category.entries.length} with ${formatPercent(entry.score)}.`;
+	const { html, text } = renderMail({
+		heading: `Your result in “${c.title}”`,
+		paragraphs: [
+			`Hello ${name},`,
+			placed,
+			'Each judge’s scores and comments for your entry are on your feedback page; the results page shows every entry.'
+		],
+		action: { label: 'Read your feedback', url: feedbackUrl(c.id, entry.entryId) },
+		footer: 'You get this mail because you entered this contest.'
+	});
+	return { subject: `Your result in “${c.title}”`, html, text };
+}
+
+export interface AnnouncementPlan {
+	results: PublicResults;
+	recipients: people.Person[];
+	entrants: { entry: PublicEntry; person: people.Person }[];
+	revision: number;
+	announcedRevision: number | null;
+}
+
+async function plan(contestId: number, tx: DbOrTx): Promise<AnnouncementPlan> {
+	const results = await publicResults(contestId, tx);
+	if (!results) throw new ContestError(409, 'The results are not published yet.', 'not-published');
+	const recipients = await people.announcementRecipients(tx);
+	const entries = results.categories.flatMap((c) => c.entries);
+	const who = await people.byIds(entries.map((e) => e.entrantId), tx);
+	return {
+		results,
+		recipients,
+		entrants: entries.flatMap((entry) => {
+			const person = who.get(entry.entrantId);
+			return person?.email ? [{ entry, person }] : [];
+		}),
+		revision: results.contest.resultsRevision,
+		announcedRevision: results.contest.announcedRevision
+	};
+}
+
+/** What would be sent, for the admin to read before sending. */
+export async function preview(viewer: Viewer, contestId: number, tx: DbOrTx = appDb) {
+	assertAdmin(viewer);
+	const p = await plan(contestId, tx);
+	const sampleToken = p.recipients[0]?.unsubscribeToken ?? '0'.repeat(32);
+	const sample = p.entrants[0];
+	return {
+		announcement: announcementMail(p.results, sampleToken),
+		entrantSample: sample ? { name: sample.person.displayName, ...entrantMail(p.results, sample.entry, sample.person.displayName) } : null,
+		recipients: p.recipients.length,
+		entrants: p.entrants.length,
+		revision: p.revision,
+		announcedRevision: p.announcedRevision
+	};
+}
+
+/** Queues the announcement and the entrants' mails for the current results revision. */
+export async function send(viewer: Viewer, contestId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<{ queued: number }> {
+	assertAdmin(viewer);
+	const now = options.now ?? new Date();
+	return (options.database ?? appDb).transaction(async (tx) => {
+		const [locked] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
+		if (!locked) throw new ContestNotFound('No such contest.');
+		const p = await plan(contestId, tx);
+		const rev = `r${p.revision}`;
+		// Entrants' own results first: with a large club the announcement takes a while to drain.
+		const mails: QueuedMail[] = [
+			...p.entrants.map(({ entry, person }) => ({
+				to: person.email,
+				...entrantMail(p.results, entry, person.displayName),
+				topic: `${topicPrefix(contestId)}entrant`,
+				dedupeKey: `contest:${contestId}:${rev}:entrant:${entry.entryId}`
+			})),
+			...p.recipients.map((person) => ({
+				to: person.email,
+				...announcementMail(p.results, person.unsubscribeToken),
+				topic: `${topicPrefix(contestId)}announce`,
+				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
+			}))
+		];
+		await enqueue(tx, mails, now);
+		if (locked.announcedRevision !== p.revision) {
+			await tx.update(contests).set({ announcedRevision: p.revision }).where(eq(contests.id, contestId));
+			await audit.record(tx, viewer.id, 'results.announce', contestId, { revision: p.revision, announcements: p.recipients.length, entrants: p.entrants.length });
+		}
+		return { queued: mails.length };
+	});
+}
+
+/** Per-recipient delivery of this contest's results mails, optionally for addresses containing `address`. */
+export async function delivery(viewer: Viewer, contestId: number, page: number, address?: string) {
+	assertAdmin(viewer);
+	const [summary, listing] = await Promise.all([deliverySummary(topicPrefix(contestId)), listOutbox({ topic: topicPrefix(contestId), address: address || undefined, page })]);
+	return { summary, ...listing };
+}

@@ -1,0 +1,230 @@
+// Members' entries: which tank in which category, its photos and statement, the tank's figures
+// as checked for eligibility. Entries are made, changed and withdrawn only while the contest takes
+// entries; judges never reach them through here (see ./judging.ts for the blind view).
+import { and, asc, count, eq, ne } from 'drizzle-orm';
+import { db as appDb, type DbOrTx } from '../db';
+import type { Viewer } from '../club/users';
+import * as media from '../media';
+import type { Photo } from '../media';
+import * as tanks from '../journals/tanks';
+import type { PhotoField } from '../../media/form';
+import { checkEligibility, type EligibilityCheck, type TankFacts } from '../../contests/eligibility';
+import { entriesAccepted } from '../../contests/lifecycle';
+import { ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, type EntryFields } from '../../contests/entry-form';
+import { contestCategories, contestEntries, contestJudges, contestConflicts, contests, type ContestEntryRow } from './schema';
+import { ContestError, ContestNotFound } from './errors';
+import { isAdminViewer, load, ruleOf, row, windowsOf, type ContestDetail } from './contests';
+import * as audit from './audit';
+
+export const SCOPE = 'contest-entry' as const;
+
+export interface TankOption {
+	id: number;
+	name: string;
+	cover: Photo | null;
+	facts: TankFacts;
+	ageLabel: string | null;
+	/** Keyed by category id. */
+	eligibility: Record<number, EligibilityCheck>;
+	/** Already entered in this contest (by another of the member's entries). */
+	enteredAs: number | null;
+}
+
+export function factsOf(tank: tanks.Tank, now = new Date()): { facts: TankFacts; ageLabel: string | null } {
+	const figures = tanks.tankFigures(tank, now);
+	return {
+		facts: {
+			litres: figures.volume?.litres ?? null,
+			volumeSource: figures.volume?.source ?? null,
+			ageWeeks: figures.age?.weeks ?? null,
+			retired: tank.retiredOn !== null
+		},
+		ageLabel: figures.age?.label ?? null
+	};
+}
+
+/** The member's tanks with their figures and what each category says about them. */
+export async function tankOptions(viewer: Viewer, contest: ContestDetail, now = new Date()): Promise<TankOption[]> {
+	const own = await tanks.listOwn(viewer);
+	const entered = await appDb
+		.select({ id: contestEntries.id, tankId: contestEntries.tankId })
+		.from(contestEntries)
+		.where(and(eq(contestEntries.contestId, contest.id), eq(contestEntries.entrantId, viewer.id)));
+	const enteredAs = new Map(entered.filter((e) => e.tankId !== null).map((e) => [e.tankId!, e.id]));
+	const options: TankOption[] = [];
+	for (const summary of own) {
+		const tank = await tanks.getOwn(viewer, summary.id);
+		if (!tank) continue;
+		const { facts, ageLabel } = factsOf(tank, now);
+		options.push({
+			id: tank.id,
+			name: tank.name,
+			cover: summary.cover,
+			facts,
+			ageLabel,
+			eligibility: Object.fromEntries(contest.categories.map((c) => [c.id, checkEligibility(ruleOf(c), facts)])),
+			enteredAs: enteredAs.get(tank.id) ?? null
+		});
+	}
+	return options;
+}
+
+export interface EntryInput extends EntryFields {
+	photos: PhotoField[];
+}
+
+/** Checks an entry against the contest's rules inside the transaction that saves it. */
+async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryInput, entryId: number | null, now: Date) {
+	const contest = await row(contestId, tx, true);
+	if (!contest || contest.state === 'draft') throw new ContestNotFound('No such contest.');
+	if (!entriesAccepted(contest.state, windowsOf(contest), now)) throw new ContestError(409, 'This contest is not taking entries or changes any more.', 'closed');
+	const [category] = await tx
+		.select()
+		.from(contestCategories)
+		.where(and(eq(contestCategories.id, input.categoryId), eq(contestCategories.contestId, contestId)));
+	if (!category) throw new ContestError(400, 'Choose one of this contest’s categories.', 'bad-category', { categoryId: 'Choose one of this contest’s categories.' });
+	const tank = await tanks.getOwn(viewer, input.tankId, tx);
+	if (!tank) throw new ContestError(400, 'Choose one of your own tanks.', 'bad-tank', { tankId: 'Choose one of your own tanks.' });
+	const { facts } = factsOf(tank, now);
+	const check = checkEligibility(ruleOf(category), facts);
+	if (!check.eligible) {
+		throw new ContestError(400, `“${tank.name}” cannot be entered in ${category.name}: ${check.reasons.join(' ')}`, 'ineligible', { tankId: check.reasons.join(' ') });
+	}
+	const others = and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id), entryId === null ? undefined : ne(contestEntries.id, entryId));
+	const [mine] = await tx.select({ n: count() }).from(contestEntries).where(others);
+	if ((mine?.n ?? 0) >= contest.entriesPerMember) {
+		throw new ContestError(409, `Each member may enter ${contest.entriesPerMember} ${contest.entriesPerMember === 1 ? 'tank' : 'tanks'} in this contest.`, 'limit');
+	}
+	const [sameTank] = await tx.select({ id: contestEntries.id }).from(contestEntries).where(and(others, eq(contestEntries.tankId, tank.id)));
+	if (sameTank) throw new ContestError(409, 'This tank is already entered in this contest.', 'tank-entered', { tankId: 'This tank is already entered in this contest.' });
+	if (input.photos.length < ENTRY_PHOTOS_MIN || input.photos.length > ENTRY_PHOTOS_MAX) {
+		throw new ContestError(400, `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos.`, 'photos', { photos: `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos; the first one shows the whole tank from the front.` });
+	}
+	return {
+		contest,
+		values: {
+			categoryId: category.id,
+			tankId: tank.id,
+			statement: input.statement,
+			litres: check.comparedLitres,
+			volumeSource: facts.volumeSource,
+			ageWeeks: facts.ageWeeks,
+			updatedAt: now
+		}
+	};
+}
+
+const wrapMedia = (error: unknown): never => {
+	if (error instanceof media.MediaError) throw new ContestError(error.status, error.message, 'photos', { photos: error.message });
+	throw error;
+};
+
+export async function create(viewer: Viewer, contestId: number, input: EntryInput, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
+	const now = options.now ?? new Date();
+	return (options.database ?? appDb).transaction(async (tx) => {
+		const { values } = await vet(tx, viewer, contestId, input, null, now);
+		const [result] = await tx.insert(contestEntries).values({ ...values, contestId, entrantId: viewer.id });
+		await media.setPhotos(tx, viewer.id, SCOPE, result.insertId, input.photos, { max: ENTRY_PHOTOS_MAX, now }).catch(wrapMedia);
+		return result.insertId;
+	});
+}
+
+async function ownEntry(tx: DbOrTx, viewer: Viewer, entryId: number): Promise<ContestEntryRow> {
+	const [entry] = await tx.select().from(contestEntries).where(eq(contestEntries.id, entryId)).limit(1);
+	if (!entry || entry.entrantId !== viewer.id) throw new ContestNotFound('No such entry.');
+	return entry;
+}
+
+export async function update(viewer: Viewer, entryId: number, input: EntryInput, options: { now?: Date; database?: DbOrTx } = {}): Promise<void> {
+	const now = options.now ?? new Date();
+	const purge = await (options.database ?? appDb).transaction(async (tx) => {
+		const entry = await ownEntry(tx, viewer, entryId);
+		const { values } = await vet(tx, viewer, entry.contestId, input, entry.id, now);
+		await tx.update(contestEntries).set(values).where(eq(contestEntries.id, entry.id));
+		return media.setPhotos(tx, viewer.id, SCOPE, entry.id, input.photos, { max: ENTRY_PHOTOS_MAX, now }).catch(wrapMedia);
+	});
+	await media.purge(purge).catch((e: unknown) => console.error(`[contests] removing replaced photos of entry ${entryId} failed:`, e));
+}
+
+export async function withdraw(viewer: Viewer, entryId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
+	const now = options.now ?? new Date();
+	const { contestId, purge } = await (options.database ?? appDb).transaction(async (tx) => {
+		const entry = await ownEntry(tx, viewer, entryId);
+		const contest = await row(entry.contestId, tx, true);
+		if (!contest || !entriesAccepted(contest.state, windowsOf(contest), now)) {
+			throw new ContestError(409, 'Entries can no longer be withdrawn: the entry window has closed.', 'closed');
+		}
+		const keys = await media.deleteFor(tx, SCOPE, entry.id);
+		await tx.delete(contestEntries).where(eq(contestEntries.id, entry.id));
+		await audit.record(tx, viewer.id, 'entry.withdraw', entry.contestId, { entryId: entry.id });
+		return { contestId: entry.contestId, purge: keys };
+	});
+	await media.purge(purge).catch((e: unknown) => console.error(`[contests] removing photos of withdrawn entry ${entryId} failed:`, e));
+	return contestId;
+}
+
+export interface OwnEntry extends ContestEntryRow {
+	categoryName: string;
+	tankName: string | null;
+	photos: Photo[];
+}
+
+/** The viewer's entries in a contest, oldest first. */
+export async function listOwn(viewer: Viewer, contestId: number, tx: DbOrTx = appDb): Promise<OwnEntry[]> {
+	const rows = await tx
+		.select({ entry: contestEntries, categoryName: contestCategories.name })
+		.from(contestEntries)
+		.innerJoin(contestCategories, eq(contestCategories.id, contestEntries.categoryId))
+		.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id)))
+		.orderBy(asc(contestEntries.id));
+	const photos = await media.listForMany(SCOPE, rows.map((r) => r.entry.id), tx);
+	const names = new Map((await tanks.listOwn(viewer, {}, tx)).map((t) => [t.id, t.name]));
+	return rows.map((r) => ({ ...r.entry, categoryName: r.categoryName, tankName: r.entry.tankId ? (names.get(r.entry.tankId) ?? null) : null, photos: photos.get(r.entry.id) ?? [] }));
+}
+
+/** One entry for its entrant (or an admin), with its contest; null for anyone else. */
+export async function getOwn(viewer: Viewer, entryId: number, tx: DbOrTx = appDb): Promise<{ entry: OwnEntry; contest: ContestDetail } | null> {
+	const [found] = await tx
+		.select({ entry: contestEntries, categoryName: contestCategories.name })
+		.from(contestEntries)
+		.innerJoin(contestCategories, eq(contestCategories.id, contestEntries.categoryId))
+		.where(eq(contestEntries.id, entryId))
+		.limit(1);
+	if (!found || (found.entry.entrantId !== viewer.id && !isAdminViewer(viewer))) return null;
+	const contest = await load(found.entry.contestId, tx);
+	if (!contest) return null;
+	const tank = found.entry.tankId && found.entry.entrantId === viewer.id ? await tanks.getOwn(viewer, found.entry.tankId, tx) : null;
+	return {
+		entry: { ...found.entry, categoryName: found.categoryName, tankName: tank?.name ?? null, photos: await media.listFor(SCOPE, entryId, tx) },
+		contest
+	};
+}
+
+/**
+ * Media access for scope 'contest-entry' (registered in ../media/access.ts): the entrant and
+ * admins always; during judging the contest's judges who did not declare a conflict on the entry
+ * (a judge's own entry is theirs as entrant); everyone once the results are published.
+ */
+export async function photoAudience(viewer: Viewer | null, entryId: number): Promise<'public' | 'restricted' | null> {
+	const [found] = await appDb
+		.select({ entrantId: contestEntries.entrantId, contestId: contestEntries.contestId, state: contests.state })
+		.from(contestEntries)
+		.innerJoin(contests, eq(contests.id, contestEntries.contestId))
+		.where(eq(contestEntries.id, entryId))
+		.limit(1);
+	if (!found) return null;
+	if (found.state === 'published' || found.state === 'archived') return 'public';
+	if (!viewer) return null;
+	if (viewer.id === found.entrantId || isAdminViewer(viewer)) return 'restricted';
+	if (found.state !== 'judging' || viewer.role !== 'judge') return null;
+	const [onPanel] = await appDb
+		.select({ judgeId: contestJudges.judgeId })
+		.from(contestJudges)
+		.where(and(eq(contestJudges.contestId, found.contestId), eq(contestJudges.judgeId, viewer.id)));
+	if (!onPanel) return null;
+	const [conflict] = await appDb
+		.select({ judgeId: contestConflicts.judgeId })
+		.from(contestConflicts)
+		.where(and(eq(contestConflicts.entryId, entryId), eq(contestConflicts.judgeId, viewer.id)));
+	return conflict ? null : 'restricted';
+}

@@ -1,0 +1,372 @@
+// The server's arithmetic, done openly: loads a contest's entries, panel, conflicts and cards,
+// hands them to $lib/contests (computeResults) and shapes what the admin's review, the progress
+// matrix, the public results and each entrant's feedback show. Also the state transitions that
+// depend on it (publication) and the corrections admins may make after publication.
+import { and, asc, eq, inArray } from 'drizzle-orm';
+import { db as appDb, type DbOrTx } from '../db';
+import type { Viewer } from '../club/users';
+import * as media from '../media';
+import type { Photo } from '../media';
+import { computeResults, type RankBasis, type ResultsInput, type ResultsReport, type EntryResult } from '../../contests/results';
+import { checkDraftFields, normaliseFields, type CardFields } from '../../contests/card';
+import { validateScorecard } from '../../contests/scoring';
+import { CORRECTION_REASON_MIN, TRANSITIONS, transitionProblems, type TransitionName } from '../../contests/lifecycle';
+import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type ContestEntryRow } from './schema';
+import { ContestError, ContestNotFound } from './errors';
+import { assertAdmin, load, rubricOf, tieBreakOf, windowsOf, type ContestDetail } from './contests';
+import { SCOPE } from './entries';
+import * as people from './people';
+import * as audit from './audit';
+
+export interface ContestData {
+	contest: ContestDetail;
+	entries: ContestEntryRow[];
+	panel: people.Person[];
+	conflicts: { entryId: number; judgeId: string; reason: string }[];
+	cards: CardRow[];
+	/** Entrants, judges, anyone with a card. */
+	people: Map<string, people.Person>;
+}
+
+export async function loadData(contestId: number, tx: DbOrTx = appDb): Promise<ContestData | null> {
+	const contest = await load(contestId, tx);
+	if (!contest) return null;
+	const [entries, panelRows, conflicts, cards] = await Promise.all([
+		tx.select().from(contestEntries).where(eq(contestEntries.contestId, contestId)).orderBy(asc(contestEntries.number), asc(contestEntries.id)),
+		tx.select({ judgeId: contestJudges.judgeId }).from(contestJudges).where(eq(contestJudges.contestId, contestId)),
+		tx
+			.select({ entryId: contestConflicts.entryId, judgeId: contestConflicts.judgeId, reason: contestConflicts.reason })
+			.from(contestConflicts)
+			.innerJoin(contestEntries, eq(contestEntries.id, contestConflicts.entryId))
+			.where(eq(contestEntries.contestId, contestId)),
+		tx.select().from(contestCards).where(eq(contestCards.contestId, contestId)).orderBy(asc(contestCards.id))
+	]);
+	const who = await people.byIds([...entries.map((e) => e.entrantId), ...panelRows.map((p) => p.judgeId), ...cards.map((c) => c.judgeId)], tx);
+	const panel = panelRows
+		.map((p) => who.get(p.judgeId))
+		.filter((p): p is people.Person => !!p)
+		.sort((a, b) => a.displayName.localeCompare(b.displayName));
+	return { contest, entries, panel, conflicts, cards: cards.filter((c) => c.version > 0), people: who };
+}
+
+export function inputOf(data: ContestData, rankBy: RankBasis = data.contest.rankBy): ResultsInput {
+	return {
+		rubric: rubricOf(data.contest.criteria),
+		tieBreakOrder: tieBreakOf(data.contest.criteria),
+		method: data.contest.aggregation,
+		rankBy,
+		categoryIds: data.contest.categories.map((c) => String(c.id)),
+		entries: data.entries.map((e) => ({ entryId: String(e.id), categoryId: String(e.categoryId), entrantId: e.entrantId })),
+		judgeIds: data.panel.map((p) => p.id),
+		conflicts: data.conflicts.map((c) => ({ entryId: String(c.entryId), judgeId: c.judgeId })),
+		cards: data.cards.map((c) => ({ cardId: String(c.id), entryId: String(c.entryId), judgeId: c.judgeId, status: c.status, scores: c.fields.scores }))
+	};
+}
+
+export type MatrixCell = 'self' | 'conflicted' | 'empty' | 'draft' | 'submitted';
+
+export interface ProgressMatrix {
+	judges: { id: string; name: string; submitted: number; expected: number }[];
+	rows: { entryId: number; number: number | null; category: string; entrant: string; cells: MatrixCell[] }[];
+}
+
+export function progressMatrix(data: ContestData, report: ResultsReport): ProgressMatrix {
+	const excluded = new Map(report.duties.excluded.map((x) => [`${x.entryId}|${x.judgeId}`, x.reason]));
+	const cardState = new Map(data.cards.map((c) => [`${c.entryId}|${c.judgeId}`, c.status]));
+	const categoryName = new Map(data.contest.categories.map((c) => [c.id, c.name]));
+	const order = new Map(data.contest.categories.map((c, i) => [c.id, i]));
+	const rows = [...data.entries]
+		.sort((a, b) => order.get(a.categoryId)! - order.get(b.categoryId)! || (a.number ?? a.id) - (b.number ?? b.id))
+		.map((e) => ({
+			entryId: e.id,
+			number: e.number,
+			category: categoryName.get(e.categoryId) ?? '',
+			entrant: data.people.get(e.entrantId)?.displayName ?? 'A member',
+			cells: data.panel.map((j): MatrixCell => {
+				const reason = excluded.get(`${e.id}|${j.id}`);
+				if (reason) return reason === 'self-entry' ? 'self' : 'conflicted';
+				return cardState.get(`${e.id}|${j.id}`) ?? 'empty';
+			})
+		}));
+	const byJudge = new Map(report.readiness.byJudge.map((j) => [j.judgeId, j]));
+	return {
+		judges: data.panel.map((j) => ({ id: j.id, name: j.displayName, submitted: byJudge.get(j.id)?.submitted ?? 0, expected: byJudge.get(j.id)?.expected ?? 0 })),
+		rows
+	};
+}
+
+/** Everything the admin's review page shows. */
+export async function review(viewer: Viewer, contestId: number, tx: DbOrTx = appDb) {
+	assertAdmin(viewer);
+	const data = await loadData(contestId, tx);
+	if (!data) return null;
+	const report = computeResults(inputOf(data));
+	return { data, report, matrix: progressMatrix(data, report) };
+}
+
+// ---- Transitions -------------------------------------------------------------------------
+
+/** Random entry numbers 1…n, so the order of numbers tells judges nothing about who entered when. */
+function shuffledNumbers(n: number): number[] {
+	const numbers = Array.from({ length: n }, (_, i) => i + 1);
+	for (let i = n - 1; i > 0; i--) {
+		const j = crypto.getRandomValues(new Uint32Array(1))[0]! % (i + 1);
+		[numbers[i], numbers[j]] = [numbers[j]!, numbers[i]!];
+	}
+	return numbers;
+}
+
+export interface TransitionOptions {
+	overrideReason?: string | null;
+	now?: Date;
+	database?: DbOrTx;
+}
+
+/** Takes one admin step in the contest's life, after the confirmation step; recorded in the audit log. */
+export async function transition(viewer: Viewer, contestId: number, name: TransitionName, options: TransitionOptions = {}): Promise<void> {
+	assertAdmin(viewer);
+	const now = options.now ?? new Date();
+	await (options.database ?? appDb).transaction(async (tx) => {
+		const [locked] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
+		if (!locked) throw new ContestNotFound('No such contest.');
+		const data = (await loadData(contestId, tx))!;
+		const report = computeResults(inputOf(data));
+		const override = report.readiness.ready ? null : (options.overrideReason ?? '').trim() || null;
+		const problems = transitionProblems(name, {
+			state: locked.state,
+			title: locked.title,
+			windows: windowsOf(locked),
+			rubric: rubricOf(data.contest.criteria),
+			categories: data.contest.categories.length,
+			entries: data.entries.length,
+			judges: data.panel.length,
+			judgingComplete: report.readiness.ready,
+			overrideReason: override
+		});
+		if (problems.length) throw new ContestError(409, problems.join(' '), 'not-ready');
+		const to = TRANSITIONS[name].to;
+		const stamp =
+			name === 'open-entries' ? { openedAt: now } : name === 'start-judging' ? { judgingStartedAt: now } : name === 'publish' ? { publishedAt: now } : { archivedAt: now };
+		await tx
+			.update(contests)
+			.set({ state: to, ...stamp, updatedAt: now })
+			.where(eq(contests.id, contestId));
+		if (name === 'start-judging') {
+			const numbers = shuffledNumbers(data.entries.length);
+			for (const [i, entry] of data.entries.entries()) {
+				await tx.update(contestEntries).set({ number: numbers[i]! }).where(eq(contestEntries.id, entry.id));
+			}
+		}
+		const detail: Record<string, unknown> = { from: locked.state, to };
+		if (name === 'start-judging') detail.entries = data.entries.length;
+		if (name === 'publish') {
+			detail.cards = report.readiness.overall;
+			if (override) {
+				detail.overrideReason = override;
+				detail.missing = report.readiness.missing.map((m) => ({
+					number: data.entries.find((e) => String(e.id) === m.entryId)?.number ?? null,
+					judge: data.people.get(m.judgeId)?.displayName ?? m.judgeId,
+					state: m.state
+				}));
+			}
+		}
+		await audit.record(tx, viewer.id, `contest.${name}`, contestId, detail, now);
+	});
+}
+
+// ---- Public results and feedback ---------------------------------------------------------------
+
+export interface PublicEntry {
+	entryId: number;
+	number: number | null;
+	categoryId: number;
+	entrantId: string;
+	entrantName: string;
+	place: number | null;
+	placeRaw: number | null;
+	placeStandardised: number | null;
+	sharedWith: number;
+	tieBrokenBy: string | null;
+	score: number | null;
+	standardised: number | null;
+	cardCount: number;
+	method: string;
+	methodNote: string | null;
+	criteria: { id: string; label: string; maxPoints: number; value: number | null }[];
+	/** The judges' overall comments meant for the entrant (never the notes for the panel). */
+	comments: string[];
+	photos: Photo[];
+	litres: number | null;
+	ageWeeks: number | null;
+}
+
+export interface PublicCategory {
+	id: number;
+	name: string;
+	description: string;
+	entries: PublicEntry[];
+	unevenPanel: boolean;
+}
+
+export const PUBLIC_CORRECTION_ACTIONS = ['results.amend-card', 'results.rank-by'];
+
+function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo[]>): PublicEntry {
+	const entry = data.entries.find((e) => String(e.id) === result.entryId)!;
+	const criteria = data.contest.criteria;
+	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
+	const separated = result.separatedFromAbove ? criteria.find((c) => String(c.id) === result.separatedFromAbove!.criterionId)?.label ?? null : null;
+	return {
+		entryId: entry.id,
+		number: entry.number,
+		categoryId: entry.categoryId,
+		entrantId: entry.entrantId,
+		entrantName: data.people.get(entry.entrantId)?.displayName ?? 'A member',
+		place: result.place,
+		placeRaw: result.placeRaw,
+		placeStandardised: result.placeStandardised,
+		sharedWith: result.sharedWith.length,
+		tieBrokenBy: separated,
+		score: result.score,
+		standardised: result.standardised,
+		cardCount: result.cards.length,
+		method: result.aggregate?.total.used ?? data.contest.aggregation,
+		methodNote: result.aggregate?.total.note ?? null,
+		criteria: criteria.map((c) => ({ id: String(c.id), label: c.label, maxPoints: c.maxPoints, value: result.aggregate?.criteria[String(c.id)]?.value ?? null })),
+		comments: result.cards.map((c) => cards.get(c.cardId)?.fields.entrantComment.trim() ?? '').filter(Boolean),
+		photos: photos.get(entry.id) ?? [],
+		litres: entry.litres,
+		ageWeeks: entry.ageWeeks
+	};
+}
+
+export interface PublicResults {
+	contest: ContestDetail;
+	categories: PublicCategory[];
+	panel: string[];
+	corrections: audit.AuditEntry[];
+	unevenPanel: boolean;
+}
+
+/** The published results: ranked entries with names revealed; null before publication. */
+export async function publicResults(contestId: number, tx: DbOrTx = appDb): Promise<PublicResults | null> {
+	const data = await loadData(contestId, tx);
+	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
+	const report = computeResults(inputOf(data));
+	const photos = await media.listForMany(SCOPE, data.entries.map((e) => e.id), tx);
+	return {
+		contest: data.contest,
+		categories: data.contest.categories.map((category, i) => {
+			const cat = report.categories[i]!;
+			return { id: category.id, name: category.name, description: category.description, unevenPanel: cat.unevenPanel, entries: cat.entries.map((r) => shape(data, r, photos)) };
+		}),
+		panel: data.panel.map((p) => p.displayName),
+		corrections: await audit.trail(contestId, PUBLIC_CORRECTION_ACTIONS, tx),
+		unevenPanel: report.unevenPanel
+	};
+}
+
+export interface Feedback {
+	entry: PublicEntry;
+	categoryName: string;
+	entriesInCategory: number;
+	cards: { label: string; total: number; dropped: 'low' | 'high' | null; scores: { label: string; maxPoints: number; score: number | null; comment: string }[]; comment: string }[];
+}
+
+/** An entrant's full feedback on their entry (or an admin's view of it), after publication. */
+export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = appDb): Promise<Feedback | null> {
+	const [entry] = await tx.select().from(contestEntries).where(eq(contestEntries.id, entryId)).limit(1);
+	if (!entry || (entry.entrantId !== viewer.id && viewer.role !== 'admin')) return null;
+	const data = await loadData(entry.contestId, tx);
+	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
+	const report = computeResults(inputOf(data));
+	const index = data.contest.categories.findIndex((c) => c.id === entry.categoryId);
+	const cat = report.categories[index]!;
+	const result = cat.entries.find((e) => e.entryId === String(entryId))!;
+	const photos = await media.listForMany(SCOPE, [entryId], tx);
+	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
+	return {
+		entry: shape(data, result, photos),
+		categoryName: data.contest.categories[index]!.name,
+		entriesInCategory: cat.entries.length,
+		cards: result.cards.map((c, i) => {
+			const fields = cards.get(c.cardId)!.fields;
+			return {
+				label: `Judge ${i + 1}`,
+				total: c.total,
+				dropped: c.dropped,
+				comment: fields.entrantComment,
+				scores: data.contest.criteria.map((k) => ({ label: k.label, maxPoints: k.maxPoints, score: fields.scores[String(k.id)] ?? null, comment: fields.comments[String(k.id)] ?? '' }))
+			};
+		})
+	};
+}
+
+// ---- Corrections after publication --------------------------------------------------------------
+
+
+function requireReason(reason: string | null | undefined): string {
+	const r = (reason ?? '').trim();
+	if (r.length < CORRECTION_REASON_MIN) throw new ContestError(400, `Give a reason of at least ${CORRECTION_REASON_MIN} characters; it is shown with the results.`, 'reason', { reason: 'Give a reason.' });
+	return r;
+}
+
+/** Ranking basis: before publication a setting; after it a correction with a reason, shown publicly. */
+export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankBasis, reason: string | null, database: DbOrTx = appDb): Promise<void> {
+	assertAdmin(viewer);
+	await database.transaction(async (tx) => {
+		const [c] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
+		if (!c) throw new ContestNotFound('No such contest.');
+		if (c.rankBy === rankBy) return;
+		if (c.state === 'archived') throw new ContestError(409, 'An archived contest cannot be changed.');
+		const published = c.state === 'published';
+		const why = published ? requireReason(reason) : null;
+		await tx
+			.update(contests)
+			.set({ rankBy, updatedAt: new Date(), ...(published ? { resultsRevision: c.resultsRevision + 1 } : {}) })
+			.where(eq(contests.id, contestId));
+		await audit.record(tx, viewer.id, published ? 'results.rank-by' : 'contest.rank-by', contestId, { from: c.rankBy, to: rankBy, ...(why ? { reason: why } : {}) });
+	});
+}
+
+/** An admin corrects a submitted card after publication (say a judge reports a slip), with a reason. */
+export async function amendCard(viewer: Viewer, cardId: number, fields: CardFields, reason: string, database: DbOrTx = appDb): Promise<number> {
+	assertAdmin(viewer);
+	return database.transaction(async (tx) => {
+		const [card] = await tx.select().from(contestCards).where(eq(contestCards.id, cardId)).for('update');
+		if (!card) throw new ContestNotFound('No such card.');
+		const [c] = await tx.select().from(contests).where(eq(contests.id, card.contestId)).for('update');
+		if (!c || c.state !== 'published') throw new ContestError(409, 'Cards can be corrected only while the results are published (not before, and not once archived).');
+		if (card.status !== 'submitted') throw new ContestError(409, 'Only submitted cards count, so only they can be corrected.');
+		const why = requireReason(reason);
+		const detail = (await load(c.id, tx))!;
+		const rubric = rubricOf(detail.criteria);
+		const checked = checkDraftFields(rubric, fields);
+		if (!checked.ok) throw new ContestError(400, checked.message, 'invalid');
+		if (!validateScorecard(rubric, checked.fields.scores).submittable) throw new ContestError(400, 'Every criterion needs a score.', 'incomplete');
+		const before = normaliseFields(rubric, card.fields);
+		await tx
+			.update(contestCards)
+			.set({ fields: { ...checked.fields, panelNote: before.panelNote }, version: card.version + 1, updatedAt: new Date() })
+			.where(eq(contestCards.id, cardId));
+		await tx.update(contests).set({ resultsRevision: c.resultsRevision + 1, updatedAt: new Date() }).where(eq(contests.id, c.id));
+		const [entry] = await tx.select({ number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.id, card.entryId));
+		await audit.record(tx, viewer.id, 'results.amend-card', c.id, {
+			reason: why,
+			cardId,
+			entryNumber: entry?.number ?? null,
+			before: before.scores,
+			after: checked.fields.scores
+		});
+		return c.id;
+	});
+}
+
+/** Cards of several entries with their judge, for the admin's correction form and the CSV. */
+export async function cardsOf(contestId: number, entryIds: number[], tx: DbOrTx = appDb): Promise<CardRow[]> {
+	if (entryIds.length === 0) return [];
+	return tx
+		.select()
+		.from(contestCards)
+		.where(and(eq(contestCards.contestId, contestId), inArray(contestCards.entryId, entryIds)))
+		.orderBy(asc(contestCards.id));
+}

@@ -1,0 +1,40 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { z } from 'zod';
+import { requireRole } from '$lib/server/club/guards';
+import * as contests from '$lib/server/contests/contests';
+import * as announce from '$lib/server/contests/announce';
+import { ContestError } from '$lib/server/contests/errors';
+import type { Actions, PageServerLoad } from './$types';
+
+const query = z.object({ page: z.coerce.number().int().min(1).max(10_000).catch(1), address: z.string().trim().max(200).catch('') });
+
+export const load = (async (event) => {
+	const viewer = requireRole(event, 'admin');
+	const contest = await contests.get(viewer, Number(event.params.id));
+	if (!contest) error(404, 'We could not find that contest.');
+	const { page, address } = query.parse({ page: event.url.searchParams.get('page') ?? undefined, address: event.url.searchParams.get('address') ?? '' });
+	const published = contest.state === 'published' || contest.state === 'archived';
+	return {
+		contest: { id: contest.id, title: contest.title, state: contest.state },
+		preview: published ? await announce.preview(viewer, contest.id) : null,
+		delivery: await announce.delivery(viewer, contest.id, page, address),
+		page,
+		address
+	};
+}) satisfies PageServerLoad;
+
+export const actions = {
+	send: async (event) => {
+		const viewer = requireRole(event, 'admin');
+		const form = await event.request.formData();
+		if (form.get('confirm') !== 'yes') return fail(400, { sendError: 'Tick the box to confirm that you have read the preview.' });
+		let queued = 0;
+		try {
+			queued = (await announce.send(viewer, Number(event.params.id))).queued;
+		} catch (e) {
+			if (e instanceof ContestError) return fail(e.status === 404 ? 404 : 409, { sendError: e.message });
+			throw e;
+		}
+		redirect(303, `/admin/contests/${event.params.id}/announce?sent=${queued}`);
+	}
+} satisfies Actions;

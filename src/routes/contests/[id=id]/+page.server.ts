@@ -1,0 +1,59 @@
+import { error } from '@sveltejs/kit';
+import * as contests from '$lib/server/contests/contests';
+import * as entries from '$lib/server/contests/entries';
+import { publicResults } from '$lib/server/contests/review';
+import { renderMarkdown } from '$lib/server/markdown';
+import { describeRule } from '$lib/contests/eligibility';
+import { entriesAccepted } from '$lib/contests/lifecycle';
+import type { PageServerLoad } from './$types';
+
+// Public once the contest has opened; a contest in preparation is the admins' (404 for others).
+export const load = (async (event) => {
+	const viewer = event.locals.user;
+	const contest = await contests.get(viewer, Number(event.params.id));
+	if (!contest) error(404, 'We could not find that contest.');
+	const accepting = entriesAccepted(contest.state, contests.windowsOf(contest), new Date());
+	const mine = viewer ? await entries.listOwn(viewer, contest.id) : [];
+	const results = contest.state === 'published' || contest.state === 'archived' ? await publicResults(contest.id) : null;
+	return {
+		contest: {
+			id: contest.id,
+			title: contest.title,
+			state: contest.state,
+			entryOpensOn: contest.entryOpensOn,
+			entryClosesOn: contest.entryClosesOn,
+			judgingOpensOn: contest.judgingOpensOn,
+			judgingClosesOn: contest.judgingClosesOn,
+			entriesPerMember: contest.entriesPerMember,
+			aggregation: contest.aggregation,
+			rankBy: contest.rankBy,
+			publishedAt: contest.publishedAt
+		},
+		rulesHtml: renderMarkdown(contest.rules),
+		criteria: contest.criteria.map((c) => ({ id: c.id, label: c.label, guidance: c.guidance, maxPoints: c.maxPoints, weight: c.weight, tieBreakRank: c.tieBreakRank })),
+		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
+		accepting,
+		mine: mine.map((e) => ({ id: e.id, categoryName: e.categoryName, tankName: e.tankName, number: e.number, thumb: e.photos[0]?.urls.thumb ?? null, alt: e.photos[0]?.alt ?? '' })),
+		canEnter: !!viewer && accepting && mine.length < contest.entriesPerMember,
+		results: results && {
+			panel: results.panel,
+			unevenPanel: results.unevenPanel,
+			corrections: results.corrections.map((c) => ({ id: c.id, action: c.action, createdAt: c.createdAt, reason: String(c.detail.reason ?? '') })),
+			categories: results.categories.map((cat) => ({
+				id: cat.id,
+				name: cat.name,
+				entries: cat.entries.map((e) => ({
+					entryId: e.entryId,
+					number: e.number,
+					place: e.place,
+					shared: e.sharedWith > 0,
+					entrantName: e.entrantName,
+					score: e.score,
+					standardised: e.standardised,
+					thumb: e.photos[0]?.urls.thumb ?? null,
+					alt: e.photos[0]?.alt ?? ''
+				}))
+			}))
+		}
+	};
+}) satisfies PageServerLoad;

@@ -1,0 +1,53 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/club/guards';
+import * as entries from '$lib/server/contests/entries';
+import { ContestError } from '$lib/server/contests/errors';
+import { feedback } from '$lib/server/contests/review';
+import { renderMarkdown } from '$lib/server/markdown';
+import { windowsOf } from '$lib/server/contests/contests';
+import { entriesAccepted } from '$lib/contests/lifecycle';
+import type { Actions, PageServerLoad } from './$types';
+
+// The entrant's own entry (admins may look too): status, what was entered, feedback once published.
+export const load = (async (event) => {
+	const viewer = requireUser(event);
+	const found = await entries.getOwn(viewer, Number(event.params.entry));
+	if (!found || found.contest.id !== Number(event.params.id)) error(404, 'We could not find that entry.');
+	const { entry, contest } = found;
+	return {
+		contest: { id: contest.id, title: contest.title, state: contest.state, entryClosesOn: contest.entryClosesOn, judgingClosesOn: contest.judgingClosesOn },
+		entry: {
+			id: entry.id,
+			number: entry.number,
+			categoryName: entry.categoryName,
+			tankName: entry.tankName,
+			tankId: entry.entrantId === viewer.id ? entry.tankId : null,
+			litres: entry.litres,
+			volumeSource: entry.volumeSource,
+			ageWeeks: entry.ageWeeks,
+			statementHtml: renderMarkdown(entry.statement),
+			photos: entry.photos.map((p) => ({ id: p.id, alt: p.alt, caption: p.caption, urls: p.urls, width: p.renditions.medium.width, height: p.renditions.medium.height }))
+		},
+		own: entry.entrantId === viewer.id,
+		changeable: entry.entrantId === viewer.id && entriesAccepted(contest.state, windowsOf(contest), new Date()),
+		feedback: await feedback(viewer, entry.id)
+	};
+}) satisfies PageServerLoad;
+
+export const actions = {
+	withdraw: async (event) => {
+		const viewer = requireUser(event);
+		const form = await event.request.formData();
+		if (form.get('confirm') !== 'withdraw') return fail(400, { withdrawError: 'Tick the box to confirm that you withdraw this entry.' });
+		try {
+			const contestId = await entries.withdraw(viewer, Number(event.params.entry));
+			redirect(303, `/contests/${contestId}?withdrawn=1`);
+		} catch (e) {
+			if (e instanceof ContestError) {
+				if (e.status === 404) error(404, 'We could not find that entry.');
+				return fail(e.status, { withdrawError: e.message });
+			}
+			throw e;
+		}
+	}
+} satisfies Actions;

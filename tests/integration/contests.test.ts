@@ -1,0 +1,460 @@
+// Contest judging through the running app and the contest functions: blind judging, conflicts,
+// autosave versions under concurrency, publication, results, announcement, export and reminders.
+import { describe, expect, test } from 'vitest';
+import { and, eq, like } from 'drizzle-orm';
+import { parse } from 'csv-parse/sync';
+import { db } from '../../src/lib/server/db';
+import { auditLog } from '../../src/lib/server/club/schema';
+import { outbox } from '../../src/lib/server/mail/schema';
+import { contestCards } from '../../src/lib/server/contests/schema';
+import * as contests from '../../src/lib/server/contests/contests';
+import * as entries from '../../src/lib/server/contests/entries';
+import * as judging from '../../src/lib/server/contests/judging';
+import * as announce from '../../src/lib/server/contests/announce';
+import { ContestError } from '../../src/lib/server/contests/errors';
+import { inputOf, loadData, publicResults, transition } from '../../src/lib/server/contests/review';
+import { sendDueReminders } from '../../src/lib/server/contests/reminders';
+import { computeResults } from '../../src/lib/contests/results';
+import { request } from '../helpers/http';
+import { makePerson } from '../helpers/people';
+import { waitForMail } from '../helpers/mail';
+import { contestFixture, fields, openTank, photoOf, scoreAll, smallTank, viewerOf } from '../helpers/contests';
+
+const api = (contestId: number, number: number | null, tail = '') => `/api/judging/${contestId}/${number}/card${tail}`;
+const save = (cookie: string, contestId: number, number: number | null, body: unknown) => request(api(contestId, number), { cookie, method: 'PUT', json: body, accept: 'application/json' });
+
+describe('judges never reach their own entries or conflicted ones', () => {
+	test('a judge who entered a tank cannot load, save or see the page for it; a conflict removes them from an entry', async () => {
+		const judgeWhoEnters = await makePerson({ role: 'judge', label: 'judge-entrant' });
+		const other = await makePerson({ label: 'entrant' });
+		const f = await contestFixture({ judges: 2, entrants: [judgeWhoEnters, other] });
+		await judging.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
+		const own = f.entries[0]!;
+		const theirs = f.entries[1]!;
+		const cookie = judgeWhoEnters.cookie;
+
+		for (const response of [
+			await request(api(f.contestId, own.number), { cookie, accept: 'application/json' }),
+			await save(cookie, f.contestId, own.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, 3]) }),
+			await request(api(f.contestId, own.number, '/submit'), { cookie, json: { version: 1 }, accept: 'application/json' }),
+			await request(`/judging/${f.contestId}/${own.number}`, { cookie })
+		]) {
+			expect(response.status).toBe(404);
+		}
+		expect(await db.select().from(contestCards).where(eq(contestCards.entryId, own.entryId))).toHaveLength(0);
+		// Their own entry is not in their list either.
+		const list = await (await request(`/judging/${f.contestId}`, { cookie })).text();
+		expect(list).not.toContain(`href="/judging/${f.contestId}/${own.number}"`);
+		expect(list).toContain(`href="/judging/${f.contestId}/${theirs.number}"`);
+
+		// A draft, then a declared conflict: the draft goes, and so does access.
+		expect((await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, null]) })).status).toBe(200);
+		const photo = (await entries.getOwn(viewerOf(other), theirs.entryId))!.entry.photos[0]!;
+		expect((await request(photo.urls.thumb, { cookie, accept: 'image/webp' })).status).toBe(200);
+		const declared = await request(`/judging/${f.contestId}/${theirs.number}?/conflict`, { cookie, form: { reason: 'I know this tank', confirm: 'yes' } });
+		expect(declared.status).toBe(303);
+		expect(await db.select().from(contestCards).where(and(eq(contestCards.entryId, theirs.entryId), eq(contestCards.judgeId, judgeWhoEnters.id)))).toHaveLength(0);
+		expect((await request(api(f.contestId, theirs.number), { cookie, accept: 'application/json' })).status).toBe(404);
+		expect((await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, 3]) })).status).toBe(404);
+		expect((await request(`/judging/${f.contestId}/${theirs.number}`, { cookie })).status).toBe(404);
+		expect((await request(photo.urls.thumb, { cookie, accept: 'image/webp' })).status).toBe(404);
+		// Another judge still sees the photo; the conflict is in the log.
+		expect((await request(photo.urls.thumb, { cookie: f.judges[0]!.cookie, accept: 'image/webp' })).status).toBe(200);
+		const log = await db.select().from(auditLog).where(and(eq(auditLog.subjectId, String(f.contestId)), eq(auditLog.action, 'judge.conflict')));
+		expect(log).toHaveLength(1);
+	});
+});
+
+describe('blind judging', () => {
+	test('before publication no judge-facing page or API response names the entrant, their address or the tank', async () => {
+		const f = await contestFixture({ judges: 2 });
+		const judge = f.judges[0]!;
+		const secrets = f.entries.flatMap((e) => [e.entrant.displayName, e.entrant.email, e.entrant.id, e.tankName]);
+		const bodies: string[] = [];
+		bodies.push(await (await request('/judging', { cookie: judge.cookie })).text());
+		bodies.push(await (await request(`/judging/${f.contestId}`, { cookie: judge.cookie })).text());
+		for (const e of f.entries) {
+			const pageResponse = await request(`/judging/${f.contestId}/${e.number}`, { cookie: judge.cookie });
+			expect(pageResponse.status).toBe(200);
+			bodies.push(await pageResponse.text());
+			const card = await request(api(f.contestId, e.number), { cookie: judge.cookie, accept: 'application/json' });
+			expect(card.status).toBe(200);
+			bodies.push(await card.text());
+			const saved = await save(judge.cookie, f.contestId, e.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [6, 3]) });
+			bodies.push(await saved.text());
+			const submitted = await request(api(f.contestId, e.number, '/submit'), { cookie: judge.cookie, json: { version: 1 }, accept: 'application/json' });
+			expect(submitted.status).toBe(200);
+			bodies.push(await submitted.text());
+		}
+		expect(bodies.join('\n')).toContain('Stems at the back'); // the statement is there…
+		for (const body of bodies) for (const secret of secrets) expect(body).not.toContain(secret); // …the entrant is not
+		// The public contest page does not list entries before publication either.
+		const publicPage = await (await request(`/contests/${f.contestId}`, { cookie: judge.cookie })).text();
+		for (const secret of secrets) expect(publicPage).not.toContain(secret);
+	});
+
+	test('judges cannot see each other’s cards before publication', async () => {
+		const f = await contestFixture({ judges: 2 });
+		const [a, b] = f.judges as [Awaited<ReturnType<typeof makePerson>>, Awaited<ReturnType<typeof makePerson>>];
+		const number = f.entries[0]!.number;
+		await save(a.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [9.5, 4.5], { panelNote: 'Note-from-A-for-the-panel', entrantComment: 'Comment-from-A' }) });
+		const seenByB = await (await request(api(f.contestId, number), { cookie: b.cookie, accept: 'application/json' })).json();
+		expect(seenByB.version).toBe(0);
+		const pageForB = await (await request(`/judging/${f.contestId}/${number}`, { cookie: b.cookie })).text();
+		expect(pageForB).not.toContain('Note-from-A');
+		expect(pageForB).not.toContain('Comment-from-A');
+	});
+});
+
+describe('members and judging', () => {
+	test('a member cannot reach judging pages or the card API', async () => {
+		const f = await contestFixture({ judges: 1 });
+		const member = await makePerson({ label: 'plain-member' });
+		const number = f.entries[0]!.number;
+		for (const path of ['/judging', `/judging/${f.contestId}`, `/judging/${f.contestId}/${number}`]) {
+			expect((await request(path, { cookie: member.cookie })).status, path).toBe(403);
+		}
+		const get = await request(api(f.contestId, number), { cookie: member.cookie, accept: 'application/json' });
+		expect(get.status).toBe(403);
+		expect(get.headers.get('content-type')).toContain('application/json');
+		expect((await save(member.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) })).status).toBe(403);
+		expect((await request(api(f.contestId, number, '/submit'), { cookie: member.cookie, json: { version: 1 }, accept: 'application/json' })).status).toBe(403);
+		expect((await request(api(f.contestId, number, '/reopen'), { cookie: member.cookie, json: {}, accept: 'application/json' })).status).toBe(403);
+		expect((await request(`/judging/${f.contestId}/${number}?/conflict`, { cookie: member.cookie, form: { reason: 'xyz', confirm: 'yes' } })).status).toBe(403);
+		expect(await db.select().from(contestCards).where(eq(contestCards.contestId, f.contestId))).toHaveLength(0);
+	});
+
+	test('a judge not on the panel finds nothing', async () => {
+		const f = await contestFixture({ judges: 1 });
+		const outsider = await makePerson({ role: 'judge', label: 'outsider' });
+		expect((await request(`/judging/${f.contestId}`, { cookie: outsider.cookie })).status).toBe(404);
+		expect((await request(api(f.contestId, f.entries[0]!.number), { cookie: outsider.cookie, accept: 'application/json' })).status).toBe(404);
+	});
+});
+
+describe('autosave versions', () => {
+	test('two judges saving cards at once lose nothing', async () => {
+		const f = await contestFixture({ judges: 2 });
+		const rounds = 8;
+		// Each judge saves every entry's card `rounds` times in a row; all chains run at once.
+		const chains = f.judges.flatMap((judge, j) =>
+			f.entries.map(async (entry, e) => {
+				let version = 0;
+				for (let r = 1; r <= rounds; r++) {
+					const response = await save(judge.cookie, f.contestId, entry.number, {
+						baseVersion: version,
+						saveId: crypto.randomUUID(),
+						fields: fields(f.criteria, [r, (j + e) % 5], { entrantComment: `judge ${j} entry ${e} round ${r}` })
+					});
+					expect(response.status).toBe(200);
+					version = (await response.json()).version;
+				}
+				return version;
+			})
+		);
+		expect(await Promise.all(chains)).toEqual(new Array(f.judges.length * f.entries.length).fill(rounds));
+		for (const [j, judge] of f.judges.entries()) {
+			for (const [e, entry] of f.entries.entries()) {
+				const card = await (await request(api(f.contestId, entry.number), { cookie: judge.cookie, accept: 'application/json' })).json();
+				expect(card.version).toBe(rounds);
+				expect(card.fields.entrantComment).toBe(`judge ${j} entry ${e} round ${rounds}`);
+				expect(card.fields.scores[f.criteria[0]!]).toBe(rounds);
+			}
+		}
+	});
+
+	test('of simultaneous saves based on the same version exactly one wins; the others get the winner back', async () => {
+		const f = await contestFixture({ judges: 1 });
+		const judge = f.judges[0]!;
+		const number = f.entries[0]!.number;
+		const bodies = Array.from({ length: 6 }, (_, i) => ({ baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [i + 1, 2]) }));
+		const responses = await Promise.all(bodies.map((b) => save(judge.cookie, f.contestId, number, b)));
+		const statuses = responses.map((r) => r.status).sort();
+		expect(statuses).toEqual([200, 409, 409, 409, 409, 409]);
+		const winner = bodies[responses.findIndex((r) => r.status === 200)]!;
+		for (const r of responses.filter((x) => x.status === 409)) {
+			const body = await r.json();
+			expect(body.code).toBe('version-conflict');
+			expect(body.current).toMatchObject({ version: 1, lastSaveId: winner.saveId });
+		}
+		const [stored] = await db.select().from(contestCards).where(eq(contestCards.entryId, f.entries[0]!.entryId));
+		expect(stored!.fields.scores[f.criteria[0]!]).toBe(winner.fields.scores[f.criteria[0]!]);
+	});
+
+	test('an older autosave does not overwrite a newer one; a retried save is recognised', async () => {
+		const f = await contestFixture({ judges: 1 });
+		const judge = f.judges[0]!;
+		const number = f.entries[0]!.number;
+		const first = { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [3, 1]) };
+		const newer = { baseVersion: 1, saveId: crypto.randomUUID(), fields: fields(f.criteria, [8, 4], { entrantComment: 'newer' }) };
+		expect((await (await save(judge.cookie, f.contestId, number, first)).json()).version).toBe(1);
+		expect((await (await save(judge.cookie, f.contestId, number, newer)).json()).version).toBe(2);
+		// A save another tab based on version 1, arriving late:
+		const stale = await save(judge.cookie, f.contestId, number, { baseVersion: 1, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 0], { entrantComment: 'stale' }) });
+		expect(stale.status).toBe(409);
+		expect((await stale.json()).current.fields.entrantComment).toBe('newer');
+		// The first request, retried by a flaky network after the newer one landed:
+		expect((await save(judge.cookie, f.contestId, number, first)).status).toBe(409);
+		// The newer one retried: answered as before, nothing changes.
+		const replay = await save(judge.cookie, f.contestId, number, newer);
+		expect(replay.status).toBe(200);
+		expect((await replay.json()).version).toBe(2);
+		const card = await (await request(api(f.contestId, number), { cookie: judge.cookie, accept: 'application/json' })).json();
+		expect(card).toMatchObject({ version: 2, fields: { entrantComment: 'newer' } });
+	});
+
+	test('scores out of range are refused; incomplete cards cannot be submitted; submitted cards reopen only while judging lasts', async () => {
+		const f = await contestFixture({ judges: 1 });
+		const judge = f.judges[0]!;
+		const number = f.entries[0]!.number;
+		const bad = await save(judge.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [10.5, 2]) });
+		expect(bad.status).toBe(400);
+		const off = await save(judge.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [7.25, 2]) });
+		expect(off.status).toBe(400);
+		await save(judge.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [7.5, null]) });
+		expect((await request(api(f.contestId, number, '/submit'), { cookie: judge.cookie, json: { version: 1 }, accept: 'application/json' })).status).toBe(400);
+		await save(judge.cookie, f.contestId, number, { baseVersion: 1, saveId: crypto.randomUUID(), fields: fields(f.criteria, [7.5, 4]) });
+		const submitted = await request(api(f.contestId, number, '/submit'), { cookie: judge.cookie, json: { version: 2 }, accept: 'application/json' });
+		expect(submitted.status).toBe(200);
+		expect((await submitted.json()).status).toBe('submitted');
+		const afterSubmit = await save(judge.cookie, f.contestId, number, { baseVersion: 3, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) });
+		expect(afterSubmit.status).toBe(409);
+		expect((await afterSubmit.json()).code).toBe('submitted');
+		// After the judging window: no reopening (the judge is told why).
+		const late = new Date(Date.now() + 30 * 86_400_000);
+		await expect(judging.reopenCard(viewerOf(judge), f.contestId, number!, { now: late })).rejects.toMatchObject({ code: 'closed' });
+		const reopened = await request(api(f.contestId, number, '/reopen'), { cookie: judge.cookie, json: {}, accept: 'application/json' });
+		expect(reopened.status).toBe(200);
+		expect((await reopened.json()).status).toBe('draft');
+	});
+});
+
+describe('publication', () => {
+	test('refused while a non-conflicted card is missing, unless an admin gives a reason (audited); then cards are locked', async () => {
+		const f = await contestFixture({ judges: 2 });
+		await scoreAll(f, (j, e) => (j === 1 && e === 2 ? [null, null] : [5 + e, 3]));
+		// Judge 1 left the third entry's card as an empty draft.
+		const form = { step: 'publish', confirm: 'yes' };
+		const refused = await request(`/admin/contests/${f.contestId}/results?/step`, { cookie: f.admin.cookie, form });
+		expect(refused.status).toBe(409);
+		expect(await refused.text()).toContain('Some cards are still missing');
+		expect((await contests.load(f.contestId))!.state).toBe('judging');
+		await expect(transition(viewerOf(f.admin), f.contestId, 'publish', { overrideReason: 'short' })).rejects.toBeInstanceOf(ContestError);
+
+		const published = await request(`/admin/contests/${f.contestId}/results?/step`, { cookie: f.admin.cookie, form: { ...form, reason: 'The second judge is ill and cannot finish.' } });
+		expect(published.status).toBe(303);
+		expect((await contests.load(f.contestId))!.state).toBe('published');
+		const [entry] = await db.select().from(auditLog).where(and(eq(auditLog.subjectId, String(f.contestId)), eq(auditLog.action, 'contest.publish')));
+		expect(entry!.detail).toMatchObject({ overrideReason: 'The second judge is ill and cannot finish.', missing: [{ number: f.entries[2]!.number, state: 'draft' }] });
+		// Locked: no judge can save or reopen any more.
+		const judge = f.judges[0]!;
+		expect((await save(judge.cookie, f.contestId, f.entries[0]!.number, { baseVersion: 2, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) })).status).toBe(404);
+		expect((await request(api(f.contestId, f.entries[0]!.number, '/reopen'), { cookie: judge.cookie, json: {}, accept: 'application/json' })).status).toBe(404);
+	});
+
+	test('published results rank as computed, reveal names, show comments for entrants and never the notes for the panel', async () => {
+		const f = await contestFixture({ judges: 3 });
+		// Entry 0: 8/10 and 4/5 from everyone; entry 1: 6 and 3; entry 2: 9 and 5.
+		const scores = [
+			[8, 4],
+			[6, 3],
+			[9, 5]
+		];
+		await scoreAll(
+			f,
+			(_, e) => scores[e]!,
+			(j, e) => ({ entrantComment: `Comment ${j}-${e} for the entrant`, panelNote: `Private note ${j}-${e}` })
+		);
+		await transition(viewerOf(f.admin), f.contestId, 'publish');
+		const results = (await publicResults(f.contestId))!;
+		const open = results.categories.find((c) => c.name === 'Open')!;
+		expect(open.entries.map((e) => e.entryId)).toEqual([f.entries[2]!.entryId, f.entries[0]!.entryId, f.entries[1]!.entryId]);
+		// (2·9 + 5) / 25 = 92 %, (2·8 + 4) / 25 = 80 %, (2·6 + 3) / 25 = 60 %
+		expect(open.entries.map((e) => e.score)).toEqual([92, 80, 60]);
+
+		const page = await (await request(`/contests/${f.contestId}/results/${f.categories[1]}`)).text();
+		for (const e of f.entries) expect(page).toContain(e.entrant.displayName);
+		expect(page.indexOf(f.entries[2]!.entrant.displayName)).toBeLessThan(page.indexOf(f.entries[0]!.entrant.displayName));
+		expect(page).toContain('92.00 %');
+		expect(page).toContain('Comment 0-2 for the entrant');
+		expect(page).not.toContain('Private note');
+
+		const feedback = await request(`/contests/${f.contestId}/entries/${f.entries[0]!.entryId}`, { cookie: f.entries[0]!.entrant.cookie });
+		const feedbackHtml = await feedback.text();
+		expect(feedbackHtml).toContain('Judge 3');
+		expect(feedbackHtml).toContain('Comment 2-0 for the entrant');
+		expect(feedbackHtml).not.toContain('Private note');
+		// Someone else's feedback page is not theirs to read.
+		expect((await request(`/contests/${f.contestId}/entries/${f.entries[0]!.entryId}`, { cookie: f.entries[1]!.entrant.cookie })).status).toBe(404);
+		// Photos are public now.
+		const photo = open.entries[0]!.photos[0]!;
+		const anonymous = await request(photo.urls.thumb, { accept: 'image/webp' });
+		expect(anonymous.status).toBe(200);
+		expect(anonymous.headers.get('cache-control')).toContain('public');
+	});
+
+	test('a correction after publication needs a reason, changes the result and is shown publicly', async () => {
+		const f = await contestFixture({ judges: 1 });
+		await scoreAll(f, (_, e) => [5 + e, 2]);
+		await transition(viewerOf(f.admin), f.contestId, 'publish');
+		const [card] = await db.select().from(contestCards).where(eq(contestCards.entryId, f.entries[0]!.entryId));
+		const short = await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, { cookie: f.admin.cookie, form: { [`score-${f.criteria[0]}`]: '10', [`score-${f.criteria[1]}`]: '5', reason: 'typo' } });
+		expect(short.status).toBe(400);
+		const fixed = await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, {
+			cookie: f.admin.cookie,
+			form: { [`score-${f.criteria[0]}`]: '10', [`score-${f.criteria[1]}`]: '5', entrantComment: '', reason: 'The judge reported a slip on entry one.' }
+		});
+		expect(fixed.status).toBe(303);
+		const results = (await publicResults(f.contestId))!;
+		expect(results.categories[1]!.entries[0]!.entryId).toBe(f.entries[0]!.entryId);
+		expect(results.contest.resultsRevision).toBe(1);
+		expect(await (await request(`/contests/${f.contestId}`)).text()).toContain('The judge reported a slip on entry one.');
+		// A member cannot correct anything.
+		expect((await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, { cookie: f.entries[1]!.entrant.cookie, form: { reason: 'x' } })).status).toBe(403);
+	});
+});
+
+describe('entries', () => {
+	test('an ineligible tank is refused with the reason; limits per member hold', async () => {
+		const f = await contestFixture({ judges: 1, state: 'open', entrantNames: ['Keen Entrant'], input: { entriesPerMember: 1 } });
+		const member = await makePerson({ label: 'big-tank' });
+		const big = await openTank(member, 'Big one');
+		const photo = await photoOf(member);
+		const small = f.categories[0]!;
+		const response = await request(`/contests/${f.contestId}/enter`, {
+			cookie: member.cookie,
+			form: { categoryId: String(small), tankId: String(big), statement: 'A big tank', 'photos[0][id]': String(photo.id), 'photos[0][alt]': 'Front', 'photos[0][caption]': '' }
+		});
+		expect(response.status).toBe(400);
+		expect(await response.text()).toMatch(/this category takes at most 40 L/);
+		// The same tank fits "Open"; a second entry is over the limit of one.
+		await entries.create(viewerOf(member), f.contestId, { categoryId: f.categories[1]!, tankId: big, statement: 'A big tank', photos: [{ id: photo.id, alt: 'Front', caption: '' }] });
+		const tiny = await smallTank(member, 'Tiny one');
+		const second = await photoOf(member);
+		await expect(
+			entries.create(viewerOf(member), f.contestId, { categoryId: small, tankId: tiny, statement: 'Small', photos: [{ id: second.id, alt: '', caption: '' }] })
+		).rejects.toMatchObject({ code: 'limit' });
+	});
+
+	test('entrants can withdraw until entries close; photos follow the contest’s rules', async () => {
+		const f = await contestFixture({ judges: 1, state: 'open', entrantNames: ['Withdrawing Entrant'] });
+		const entry = f.entries[0]!;
+		const photo = (await entries.getOwn(viewerOf(entry.entrant), entry.entryId))!.entry.photos[0]!;
+		expect((await request(photo.urls.thumb, { cookie: entry.entrant.cookie, accept: 'image/webp' })).status).toBe(200);
+		expect((await request(photo.urls.thumb, { cookie: f.admin.cookie, accept: 'image/webp' })).status).toBe(200);
+		expect((await request(photo.urls.thumb, { cookie: f.judges[0]!.cookie, accept: 'image/webp' })).status).toBe(404); // not judging yet
+		expect((await request(photo.urls.thumb, { accept: 'image/webp' })).status).toBe(404);
+		const withdrawn = await request(`/contests/${f.contestId}/entries/${entry.entryId}?/withdraw`, { cookie: entry.entrant.cookie, form: { confirm: 'withdraw' } });
+		expect(withdrawn.status).toBe(303);
+		expect((await request(photo.urls.thumb, { cookie: entry.entrant.cookie, accept: 'image/webp' })).status).toBe(404);
+		expect(await entries.listOwn(viewerOf(entry.entrant), f.contestId)).toEqual([]);
+	});
+});
+
+describe('announcement', () => {
+	test('queued once per results version, with unsubscribe links; entrants get their place', { timeout: 120_000 }, async () => {
+		const f = await contestFixture({ judges: 1 });
+		await scoreAll(f, (_, e) => [4 + e, 3]);
+		await transition(viewerOf(f.admin), f.contestId, 'publish');
+		const first = await request(`/admin/contests/${f.contestId}/announce?/send`, { cookie: f.admin.cookie, form: { confirm: 'yes' } });
+		expect(first.status).toBe(303);
+		const rows = () => db.select().from(outbox).where(like(outbox.topic, `contest:${f.contestId}:results:%`));
+		const count = (await rows()).length;
+		expect(count).toBeGreaterThan(f.entries.length);
+		// A double click, or a second admin: nothing new.
+		await announce.send(viewerOf(f.admin), f.contestId);
+		await request(`/admin/contests/${f.contestId}/announce?/send`, { cookie: f.admin.cookie, form: { confirm: 'yes' } });
+		expect((await rows()).length).toBe(count);
+
+		const winner = f.entries[2]!.entrant;
+		const queued = (await rows()).filter((r) => r.toAddress === winner.email);
+		expect(queued.map((r) => r.topic).sort()).toEqual([`contest:${f.contestId}:results:announce`, `contest:${f.contestId}:results:entrant`]);
+		const general = queued.find((r) => r.topic!.endsWith(':announce'))!;
+		expect(general.headers!['List-Unsubscribe']).toMatch(/^<http.*\/unsubscribe\/[0-9a-f]{32}\?kind=announcements>$/);
+		expect(general.textBody).toContain('Unsubscribe:');
+		expect(queued.find((r) => r.topic!.endsWith(':entrant'))!.headers).toBeNull();
+		// Delivered through the outbox to the mail fake (every member gets the announcement, so allow time).
+		const personal = await waitForMail(winner.email, { subject: /Your result/, timeoutMs: 60_000 });
+		expect(personal.text).toContain('placed 1st of 3');
+		expect(personal.text).toContain(`/contests/${f.contestId}/entries/${f.entries[2]!.entryId}`);
+		const delivered = await waitForMail(winner.email, { subject: /^Results: /, timeoutMs: 90_000 });
+		expect(delivered.headers['list-unsubscribe']).toMatch(/\/unsubscribe\/[0-9a-f]{32}\?kind=announcements/);
+
+		const status = await (await request(`/admin/contests/${f.contestId}/announce?address=${encodeURIComponent(winner.email)}`, { cookie: f.admin.cookie })).text();
+		expect(status).toContain(winner.email);
+		expect(status).toContain('Personal result');
+	});
+});
+
+describe('export', () => {
+	test('results and cards as CSV with a byte-order mark, for admins only', async () => {
+		const f = await contestFixture({ judges: 2, entrantNames: ['Comma, Entrant', 'Quote "Entrant"', '=Formula'] });
+		await scoreAll(f, (j, e) => [5 + e + j, 3], (j) => ({ entrantComment: j === 0 ? 'Line one\nline two' : '' }));
+		const response = await request(`/admin/contests/${f.contestId}/export/cards`, { cookie: f.admin.cookie, accept: 'text/csv' });
+		expect(response.status).toBe(200);
+		expect(response.headers.get('content-type')).toBe('text/csv; charset=utf-8');
+		expect(response.headers.get('content-disposition')).toMatch(/attachment; filename=".*-cards\.csv"/);
+		const bytes = new Uint8Array(await response.arrayBuffer());
+		expect([...bytes.slice(0, 3)]).toEqual([0xef, 0xbb, 0xbf]);
+		const rows = parse(new TextDecoder().decode(bytes), { bom: true }) as string[][];
+		expect(rows).toHaveLength(1 + 2 * 3);
+		const entrantColumn = rows[0]!.indexOf('Entrant');
+		const names = rows.slice(1).map((r) => r[entrantColumn]!);
+		expect(names.filter((n) => n.startsWith('Comma, Entrant '))).toHaveLength(2);
+		expect(names.filter((n) => n.startsWith('Quote "Entrant" '))).toHaveLength(2);
+		expect(names.filter((n) => n.startsWith("'=Formula "))).toHaveLength(2); // made inert for spreadsheets
+		expect(rows.slice(1).some((r) => r.includes('Line one\nline two'))).toBe(true);
+
+		const results = parse(await (await request(`/admin/contests/${f.contestId}/export/results`, { cookie: f.admin.cookie })).text(), { bom: true }) as string[][];
+		expect(results).toHaveLength(1 + 3);
+		expect((await request(`/admin/contests/${f.contestId}/export/results`, { cookie: f.judges[0]!.cookie })).status).toBe(403);
+	});
+});
+
+describe('reminders', () => {
+	test('admins hear once when entries closed but judging did not start; judges with open cards as judging closes', async () => {
+		const f = await contestFixture({ judges: 2, state: 'open' });
+		const contest = (await contests.load(f.contestId))!;
+		const afterEntries = new Date(`${contest.entryClosesOn}T12:00:00Z`);
+		afterEntries.setUTCDate(afterEntries.getUTCDate() + 1);
+		await sendDueReminders(afterEntries);
+		await sendDueReminders(afterEntries);
+		const reminders = () => db.select().from(outbox).where(eq(outbox.topic, `contest:${f.contestId}:reminder`));
+		const adminMails = (await reminders()).filter((r) => r.toAddress === f.admin.email);
+		expect(adminMails).toHaveLength(1);
+		expect(adminMails[0]!.subject).toMatch(/have closed/);
+
+		await transition(viewerOf(f.admin), f.contestId, 'start-judging');
+		const nearClose = new Date(`${contest.judgingClosesOn}T08:00:00Z`);
+		await sendDueReminders(nearClose);
+		await sendDueReminders(nearClose);
+		const judgeMails = (await reminders()).filter((r) => f.judges.some((j) => j.email === r.toAddress));
+		expect(judgeMails.map((m) => m.toAddress).sort()).toEqual(f.judges.map((j) => j.email).sort());
+		expect(judgeMails[0]!.textBody).toContain('3 cards');
+		for (const m of judgeMails) for (const e of f.entries) expect(m.textBody).not.toContain(e.entrant.displayName);
+	});
+
+	test('the admin’s reminder from the progress page goes to judges with open cards, once an hour', async () => {
+		const f = await contestFixture({ judges: 2 });
+		await scoreAll(f, (j) => (j === 0 ? [5, 3] : [null, null]));
+		const sent = await request(`/admin/contests/${f.contestId}/judging?/remind`, { cookie: f.admin.cookie, form: {} });
+		expect(sent.status).toBe(200);
+		await request(`/admin/contests/${f.contestId}/judging?/remind`, { cookie: f.admin.cookie, form: {} });
+		const nudges = await db.select().from(outbox).where(eq(outbox.topic, `contest:${f.contestId}:nudge`));
+		expect(nudges.map((n) => n.toAddress)).toEqual([f.judges[1]!.email]);
+	});
+});
+
+test('the review computes the same results as the pure functions on the stored cards', async () => {
+	const f = await contestFixture({ judges: 3 });
+	await judging.declareConflict(viewerOf(f.judges[2]!), f.contestId, f.entries[0]!.number!, 'knows the entrant');
+	await scoreAll(f, (j, e) => [4 + e + j, 2 + (e % 2)]);
+	const data = (await loadData(f.contestId))!;
+	const report = computeResults(inputOf(data));
+	expect(report.readiness.ready).toBe(true);
+	expect(report.duties.excluded).toEqual([{ entryId: String(f.entries[0]!.entryId), judgeId: f.judges[2]!.id, reason: 'conflict' }]);
+	expect(report.unevenPanel).toBe(true);
+	const page = await (await request(`/admin/contests/${f.contestId}/results`, { cookie: f.admin.cookie })).text();
+	expect(page).toContain('Ranking basis');
+	expect(page).toContain('Kendall’s W');
+});

@@ -97,6 +97,22 @@ describe('outbox delivery', () => {
 		await fake.close();
 	});
 
+	test('one person\'s mail queued after a club-wide announcement goes out first', async () => {
+		const fake = await startMailFake({ smtpPort: await freePort(), httpPort: await freePort() });
+		const bulk = Array.from({ length: 6 }, (_, i) => mail(`bulk-${i}@tests.riparia.test`, { bulk: true }));
+		await enqueue(scratch.db, bulk);
+		await enqueue(scratch.db, mail('personal@tests.riparia.test'));
+		const transport = smtpTransport(`smtp://127.0.0.1:${fake.smtpPort}`);
+		expect((await deliverDue({ db: scratch.db, transport, worker: 'w3', batchSize: 1 })).sent).toBe(1);
+		expect(fake.messages.map((m) => m.envelopeTo[0])).toEqual(['personal@tests.riparia.test']);
+		while ((await deliverDue({ db: scratch.db, transport, worker: 'w3' })).sent > 0) {
+			/* drain the rest */
+		}
+		expect(fake.messages).toHaveLength(7);
+		transport.close();
+		await fake.close();
+	});
+
 	test('a dedupe key queues a message at most once', async () => {
 		await enqueue(scratch.db, mail('dedupe@tests.riparia.test', { dedupeKey: 'test:once' }));
 		await enqueue(scratch.db, mail('dedupe@tests.riparia.test', { dedupeKey: 'test:once', subject: 'second' }));

@@ -130,6 +130,7 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 				to: person.email,
 				...announcementMail(p.results, person.unsubscribeToken),
 				topic: `${topicPrefix(contestId)}announce`,
+				bulk: true,
 				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
 			}))
 		];

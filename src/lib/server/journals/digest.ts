@@ -84,6 +84,7 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 					text,
 					headers: unsubscribeHeaders(member.unsubscribeToken, 'digest'),
 					topic: 'journal-digest',
+					bulk: true,
 					dedupeKey: `journal-digest:${member.id}:${week}`
 				},
 				now

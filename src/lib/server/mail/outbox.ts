@@ -1,4 +1,5 @@
 import { hostname } from 'node:os';
+import pLimit from 'p-limit';
 import { and, eq, inArray, lte, or, sql } from 'drizzle-orm';
 import { config } from '../config';
 import { db as appDb, type Database, type DbOrTx } from '../db';
@@ -16,7 +17,14 @@ export interface QueuedMail {
 	dedupeKey?: string;
 	/** Deliver no earlier than this (batched notifications). */
 	notBefore?: Date;
+	/** Mail to many members at once (announcements, digests): it waits behind one person's mail. */
+	bulk?: boolean;
 }
+
+const PRIORITY_PERSONAL = 5;
+const PRIORITY_BULK = 9;
+/** Messages of one batch in flight at once, over the transport's pooled connections. */
+const SEND_CONCURRENCY = 4;
 
 export const MAX_ATTEMPTS = 8;
 const LEASE_MS = 5 * 60_000;
@@ -50,6 +58,7 @@ export async function enqueue(tx: DbOrTx, mails: QueuedMail | QueuedMail[], now 
 				headers: m.headers ?? null,
 				topic: m.topic ?? null,
 				dedupeKey: m.dedupeKey ?? null,
+				priority: m.bulk ? PRIORITY_BULK : PRIORITY_PERSONAL,
 				messageId: messageIdFor(from),
 				nextAttemptAt: m.notBefore ?? now
 			}))
@@ -88,7 +97,7 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 					and(eq(outbox.state, 'sending'), lte(outbox.leaseUntil, now))
 				)
 			)
-			.orderBy(outbox.id)
+			.orderBy(outbox.priority, outbox.id)
 			.limit(batchSize)
 			.for('update', { skipLocked: true });
 		if (due.length === 0) return [];
@@ -101,7 +110,7 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 
 	let sent = 0;
 	let failed = 0;
-	for (const message of claimed) {
+	const deliverOne = async (message: (typeof claimed)[number]) => {
 		const attempt = message.attempts + 1;
 		try {
 			await transport.send({
@@ -137,7 +146,9 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 			});
 			failed++;
 		}
-	}
+	};
+	const limit = pLimit(SEND_CONCURRENCY);
+	await Promise.all(claimed.map((message) => limit(() => deliverOne(message))));
 	return { sent, failed };
 }
 

@@ -4,6 +4,7 @@ import {
 	json,
 	mediumtext,
 	mysqlEnum,
+	tinyint,
 	mysqlTable,
 	boolean,
 	text,
@@ -32,6 +33,8 @@ export const outbox = mysqlTable(
 		/** Set when one logical message must be queued at most once (e.g. a results mail per entrant). */
 		dedupeKey: varchar({ length: 190 }).unique(),
 		messageId: varchar({ length: 190 }).notNull(),
+		/** Lower goes first: one person's mail (a message, a sign-up) before a club-wide announcement. */
+		priority: tinyint({ unsigned: true }).notNull().default(5),
 		state: mysqlEnum(OUTBOX_STATES).notNull().default('queued'),
 		attempts: int().notNull().default(0),
 		nextAttemptAt: at().notNull(),

@@ -19,6 +19,9 @@ export interface MailTransport {
 export function smtpTransport(url = config().SMTP_URL, from = config().MAIL_FROM): MailTransport {
 	const transporter: Transporter = nodemailer.createTransport({
 		url,
+		// A few kept-open connections: an announcement to the whole club is hundreds of messages.
+		pool: true,
+		maxConnections: 4,
 		// Fail an attempt quickly; the outbox retries with backoff.
 		connectionTimeout: 10_000,
 		greetingTimeout: 10_000,

@@ -1,0 +1,1 @@
+ALTER TABLE `outbox` ADD `priority` tinyint unsigned DEFAULT 5 NOT NULL;

@@ -37,6 +37,15 @@ if (!installed) {
 	writeFileSync(marker, lockHash + '\n');
 }
 
+// Scripts run with tsx resolve `$lib` through the tsconfig SvelteKit generates; a fresh clone has none yet.
+if (!existsSync(join(root, '.svelte-kit', 'tsconfig.json'))) {
+	const sync = spawnSync('npx', ['svelte-kit', 'sync'], { cwd: root, stdio: 'inherit' });
+	if (sync.status !== 0) {
+		console.error('\n✗ `svelte-kit sync` failed (see above); the project configuration may be broken.');
+		process.exit(1);
+	}
+}
+
 // One process (node --import tsx) so signals reach the orchestrator directly.
 const child = spawn(
 	process.execPath,

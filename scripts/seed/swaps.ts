@@ -88,7 +88,7 @@ const LISTINGS: Demo[] = [
 		speciesName: 'Neocaridina davidi',
 		quantity: { amount: 10, unit: 'individuals' },
 		terms: 'token',
-		termsNote: '2 for the lot, to cover the bag and the cool box',
+		termsNote: 'the price of a coffee, to cover the bag and the cool box',
 		condition: 'Bred in soft water at 22 °C.',
 		daysAgo: 4,
 		daysLeft: 10
@@ -177,7 +177,7 @@ const LISTINGS: Demo[] = [
 		title: 'CO2 regulator with night solenoid',
 		quantity: { amount: 1, unit: 'pieces' },
 		terms: 'token',
-		termsNote: '5, paid at the pickup',
+		termsNote: 'what a new bag of soil costs at the garden centre',
 		condition: 'Worked until last month; have it checked by a gas supplier before use.',
 		daysAgo: 6,
 		daysLeft: 24

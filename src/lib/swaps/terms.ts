@@ -16,7 +16,7 @@ export const TERMS_NOTE_MAX = 160;
 export const TERMS_NOTE_HINTS: Readonly<Record<ListingTerms, string>> = {
 	free: 'Optional, e.g. “bring a bag with some tank water”.',
 	swap: 'What you would like in return, e.g. “any carpeting plant or a few snails”.',
-	token: 'The price and what it covers, e.g. “2 for the lot, to cover the bags”. Paid at the pickup; never through the site.'
+	token: 'The price and what it covers, with its currency, e.g. “the price of a coffee, to cover the bags”. Paid at the pickup; never through the site.'
 };
 
 /** Checks the terms and their note; returns a message for the form, or null when fine. */

@@ -177,7 +177,7 @@ const LISTINGS: Demo[] = [
 		title: 'CO2 regulator with night solenoid',
 		quantity: { amount: 1, unit: 'pieces' },
 		terms: 'token',
-		termsNote: 'what a new bag of soil costs at the garden centre',
+		termsNote: 'a small sum we agree in the messages',
 		condition: 'Worked until last month; have it checked by a gas supplier before use.',
 		daysAgo: 6,
 		daysLeft: 24

@@ -2,6 +2,7 @@ import { inArray, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../src/lib/server/db';
 import { species } from '../../src/lib/server/species/schema';
 import { restrictedSpecies } from '../../src/lib/server/swaps/schema';
+import { catalogueRow } from './species';
 import { CHECKED_ON, RESTRICTED, RESTRICTED_PLANTS } from './restricted-data';
 
 /**
@@ -12,16 +13,7 @@ export async function seedRestrictedSpecies(db: DbOrTx): Promise<void> {
 	await db
 		.insert(species)
 		.values(
-			RESTRICTED_PLANTS.map((s) => ({
-				kind: s.kind,
-				scientificName: s.scientificName,
-				commonName: s.commonName,
-				otherNames: s.otherNames ?? '',
-				placement: s.placement ?? null,
-				growthHabit: s.growthHabit ?? null,
-				growthSpeed: s.growthSpeed ?? null,
-				note: s.note ?? ''
-			}))
+			RESTRICTED_PLANTS.map(catalogueRow)
 		)
 		// An entry the catalogue already has is left as it is.
 		.onDuplicateKeyUpdate({ set: { scientificName: sql`scientific_name` } });

@@ -9,6 +9,30 @@ import type { EntryInput } from '$lib/server/contests/entries';
 import { readPhotoFields, type PhotoField } from '$lib/media/form';
 import { ENTRY_PHOTOS_FIELD, ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, entryFieldsSchema, type EntryDraft } from '$lib/contests/entry-form';
 import type { UploaderPhoto } from '$lib/components/PhotoUploader.svelte';
+import * as contests from '$lib/server/contests/contests';
+import * as entries from '$lib/server/contests/entries';
+import { describeRule, roundLitres } from '$lib/contests/eligibility';
+
+type ContestWithCategories = Parameters<typeof entries.tankOptions>[1];
+
+/** What the enter and edit pages both list: the categories with their rules, and the member's tanks. */
+export async function entryChoices(viewer: Viewer, contest: ContestWithCategories) {
+	const options = await entries.tankOptions(viewer, contest);
+	return {
+		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
+		tanks: options.map((t) => ({
+			id: t.id,
+			name: t.name,
+			thumb: t.cover?.urls.thumb ?? null,
+			litres: t.facts.litres === null ? null : roundLitres(t.facts.litres),
+			volumeSource: t.facts.volumeSource,
+			ageLabel: t.ageLabel,
+			retired: t.facts.retired,
+			eligibility: t.eligibility,
+			enteredAs: t.enteredAs
+		}))
+	};
+}
 
 async function photosAgain(viewer: Viewer, fields: PhotoField[], entryId: number | null): Promise<UploaderPhoto[]> {
 	const ids = fields.map((f) => f.id);

@@ -2,9 +2,8 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
 import * as contests from '$lib/server/contests/contests';
 import * as entries from '$lib/server/contests/entries';
-import { describeRule, roundLitres } from '$lib/contests/eligibility';
 import { entriesAccepted } from '$lib/contests/lifecycle';
-import { readEntryForm, refused } from '../entry-form.server';
+import { entryChoices, readEntryForm, refused } from '../entry-form.server';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -12,23 +11,11 @@ export const load = (async (event) => {
 	const contest = await contests.get(viewer, Number(event.params.id));
 	if (!contest) error(404, 'We could not find that contest.');
 	const mine = await entries.listOwn(viewer, contest.id);
-	const options = await entries.tankOptions(viewer, contest);
 	return {
 		contest: { id: contest.id, title: contest.title, entryClosesOn: contest.entryClosesOn, entriesPerMember: contest.entriesPerMember },
 		accepting: entriesAccepted(contest.state, contests.windowsOf(contest), new Date()),
 		full: mine.length >= contest.entriesPerMember,
-		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
-		tanks: options.map((t) => ({
-			id: t.id,
-			name: t.name,
-			thumb: t.cover?.urls.thumb ?? null,
-			litres: t.facts.litres === null ? null : roundLitres(t.facts.litres),
-			volumeSource: t.facts.volumeSource,
-			ageLabel: t.ageLabel,
-			retired: t.facts.retired,
-			eligibility: t.eligibility,
-			enteredAs: t.enteredAs
-		})),
+		...(await entryChoices(viewer, contest)),
 		draft: { categoryId: contest.categories.length === 1 ? String(contest.categories[0]!.id) : '', tankId: '', statement: '' }
 	};
 }) satisfies PageServerLoad;

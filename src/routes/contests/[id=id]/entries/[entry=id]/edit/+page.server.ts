@@ -2,9 +2,8 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
 import * as contests from '$lib/server/contests/contests';
 import * as entries from '$lib/server/contests/entries';
-import { describeRule, roundLitres } from '$lib/contests/eligibility';
 import { entriesAccepted } from '$lib/contests/lifecycle';
-import { readEntryForm, refused } from '../../../entry-form.server';
+import { entryChoices, readEntryForm, refused } from '../../../entry-form.server';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -12,23 +11,11 @@ export const load = (async (event) => {
 	const found = await entries.getOwn(viewer, Number(event.params.entry));
 	if (!found || found.entry.entrantId !== viewer.id || found.contest.id !== Number(event.params.id)) error(404, 'We could not find that entry.');
 	const { entry, contest } = found;
-	const options = await entries.tankOptions(viewer, contest);
 	return {
 		contest: { id: contest.id, title: contest.title, entryClosesOn: contest.entryClosesOn },
 		entryId: entry.id,
 		accepting: entriesAccepted(contest.state, contests.windowsOf(contest), new Date()),
-		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
-		tanks: options.map((t) => ({
-			id: t.id,
-			name: t.name,
-			thumb: t.cover?.urls.thumb ?? null,
-			litres: t.facts.litres === null ? null : roundLitres(t.facts.litres),
-			volumeSource: t.facts.volumeSource,
-			ageLabel: t.ageLabel,
-			retired: t.facts.retired,
-			eligibility: t.eligibility,
-			enteredAs: t.enteredAs
-		})),
+		...(await entryChoices(viewer, contest)),
 		draft: { categoryId: String(entry.categoryId), tankId: entry.tankId ? String(entry.tankId) : '', statement: entry.statement },
 		photos: entry.photos.map((p) => ({ id: p.id, alt: p.alt, caption: p.caption, urls: p.urls }))
 	};

@@ -27,7 +27,17 @@ function contest(entries: number, judges: number): ResultsInput {
 			cards.push({ cardId: `${e.entryId}-${judgeId}`, entryId: e.entryId, judgeId, status: 'submitted', scores });
 		}
 	}
-	return { rubric, tieBreakOrder: rubric.map((c) => c.id), method: 'trimmed-mean', rankBy: 'raw', categoryIds: ['c'], entries: entryRows, judgeIds, conflicts, cards };
+	return {
+		rubric,
+		tieBreakOrder: rubric.map((c) => c.id),
+		method: 'trimmed-mean',
+		rankBy: 'raw',
+		categoryIds: ['c'],
+		entries: entryRows,
+		judgeIds,
+		conflicts,
+		cards
+	};
 }
 
 const cases = [
@@ -42,5 +52,7 @@ for (const [label, input] of cases) {
 	for (let i = 0; i < runs; i++) computeResults(input);
 	const ms = (performance.now() - started) / runs;
 	times.push(ms);
-	console.log(`${label.padEnd(24)} ${input.cards.length.toString().padStart(5)} cards  ${ms.toFixed(1).padStart(8)} ms per computation  (${(ms / times[0]!).toFixed(1)}× the first)`);
+	console.log(
+		`${label.padEnd(24)} ${input.cards.length.toString().padStart(5)} cards  ${ms.toFixed(1).padStart(8)} ms per computation  (${(ms / times[0]!).toFixed(1)}× the first)`
+	);
 }

@@ -12,7 +12,10 @@ async function photo(width: number, height: number) {
 	const noise = await sharp({ create: { width, height, channels: 3, background: '#000', noise: { type: 'gaussian', mean: 0, sigma: 18 } } })
 		.png()
 		.toBuffer();
-	return sharp(base).composite([{ input: noise, blend: 'add' }]).jpeg({ quality: 90 }).toBuffer();
+	return sharp(base)
+		.composite([{ input: noise, blend: 'add' }])
+		.jpeg({ quality: 90 })
+		.toBuffer();
 }
 
 const cases = [

@@ -58,7 +58,9 @@ try {
 	const states = ['open', 'open', 'open', 'reserved', 'handed-over', 'withdrawn', 'expired'] as const;
 	const rows = Array.from({ length: LISTINGS }, (_, i) => {
 		const local = random() < 0.85;
-		const point = roundToKilometre(local ? { lat: centre.lat + (random() - 0.5) * 4, lng: centre.lng + (random() - 0.5) * 4 } : { lat: -80 + random() * 160, lng: -180 + random() * 360 });
+		const point = roundToKilometre(
+			local ? { lat: centre.lat + (random() - 0.5) * 4, lng: centre.lng + (random() - 0.5) * 4 } : { lat: -80 + random() * 160, lng: -180 + random() * 360 }
+		);
 		const state = states[Math.floor(random() * states.length)]!;
 		return {
 			ownerId: ownerIds[i % ownerIds.length]!,
@@ -124,18 +126,34 @@ try {
 		samples.sort((x, y) => x - y);
 		return { label, median: samples[Math.floor(samples.length / 2)]! };
 	}
-	const results = [await time('nearby (box + index, SQL distance, LIMIT 20)', nearby), await time('full scan in SQL (indexes ignored)', fullScanSql), await time('full scan in JavaScript', fullScanJs)];
+	const results = [
+		await time('nearby (box + index, SQL distance, LIMIT 20)', nearby),
+		await time('full scan in SQL (indexes ignored)', fullScanSql),
+		await time('full scan in JavaScript', fullScanJs)
+	];
 	const first = results[0]!;
 	const open = rows.filter((r) => r.state === 'open' && r.availableUntil > now).length;
-	console.log(`${LISTINGS.toLocaleString('en-GB')} listings (${open.toLocaleString('en-GB')} open), first page within 10 km of the viewer, ${RUNS} runs each, median:`);
-	for (const r of results) console.log(`  ${r.label.padEnd(46)} ${r.median.toFixed(2).padStart(7)} ms   ${(r.median / first.median).toFixed(1).padStart(5)}× the nearby query`);
+	console.log(
+		`${LISTINGS.toLocaleString('en-GB')} listings (${open.toLocaleString('en-GB')} open), first page within 10 km of the viewer, ${RUNS} runs each, median:`
+	);
+	for (const r of results)
+		console.log(`  ${r.label.padEnd(46)} ${r.median.toFixed(2).padStart(7)} ms   ${(r.median / first.median).toFixed(1).padStart(5)}× the nearby query`);
 
 	const query = nearby().toSQL();
-	const [plan] = (await handle.pool.query(`EXPLAIN ${query.sql}`, query.params)) as unknown as [{ table: string; type: string; key: string | null; rows: number; Extra: string }[]];
+	const [plan] = (await handle.pool.query(`EXPLAIN ${query.sql}`, query.params)) as unknown as [
+		{ table: string; type: string; key: string | null; rows: number; Extra: string }[]
+	];
 	console.log('\nEXPLAIN of the nearby query:');
-	for (const row of plan) console.log(`  ${String(row.table).padEnd(12)} type=${String(row.type).padEnd(7)} key=${String(row.key).padEnd(22)} rows=${String(row.rows).padEnd(6)} ${row.Extra ?? ''}`);
+	for (const row of plan)
+		console.log(
+			`  ${String(row.table).padEnd(12)} type=${String(row.type).padEnd(7)} key=${String(row.key).padEnd(22)} rows=${String(row.rows).padEnd(6)} ${row.Extra ?? ''}`
+		);
 	const listingRow = plan.find((r) => r.table === 'listing');
-	console.log(listingRow?.key === 'listing_nearby_idx' ? `  → listing is read through listing_nearby_idx (${listingRow.type}), not scanned.` : '  → WARNING: the listing table is not read through listing_nearby_idx.');
+	console.log(
+		listingRow?.key === 'listing_nearby_idx'
+			? `  → listing is read through listing_nearby_idx (${listingRow.type}), not scanned.`
+			: '  → WARNING: the listing table is not read through listing_nearby_idx.'
+	);
 } finally {
 	await handle.close();
 	await admin.query(`DROP DATABASE IF EXISTS \`${name}\``);

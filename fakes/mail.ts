@@ -28,8 +28,7 @@ export interface MailFakeOptions {
 	storeFile?: string;
 }
 
-const escapeHtml = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 export async function startMailFake(options: MailFakeOptions) {
 	const host = options.host ?? '127.0.0.1';
@@ -55,8 +54,7 @@ export async function startMailFake(options: MailFakeOptions) {
 						headers[key] = typeof value === 'string' ? value : JSON.stringify(value);
 					}
 					for (const line of parsed.headerLines) headers[line.key] ??= line.line;
-					const addressText = (a: typeof parsed.to) =>
-						!a ? '' : Array.isArray(a) ? a.map((x) => x.text).join(', ') : a.text;
+					const addressText = (a: typeof parsed.to) => (!a ? '' : Array.isArray(a) ? a.map((x) => x.text).join(', ') : a.text);
 					const message: StoredMessage = {
 						id: nextId++,
 						receivedAt: new Date().toISOString(),

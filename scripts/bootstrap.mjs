@@ -29,9 +29,7 @@ if (!installed) {
 	console.log('» Installing dependencies (npm ci)…');
 	const result = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
 	if (result.status !== 0) {
-		console.error(
-			'\n✗ npm ci failed (see above). Check the network connection to the npm registry and free disk space, then run the command again.'
-		);
+		console.error('\n✗ npm ci failed (see above). Check the network connection to the npm registry and free disk space, then run the command again.');
 		process.exit(1);
 	}
 	writeFileSync(marker, lockHash + '\n');
@@ -47,11 +45,7 @@ if (!existsSync(join(root, '.svelte-kit', 'tsconfig.json'))) {
 }
 
 // One process (node --import tsx) so signals reach the orchestrator directly.
-const child = spawn(
-	process.execPath,
-	['--import', 'tsx', join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)],
-	{ cwd: root, stdio: 'inherit' }
-);
+const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], { cwd: root, stdio: 'inherit' });
 for (const signal of /** @type {const} */ (['SIGINT', 'SIGTERM', 'SIGHUP'])) {
 	process.on(signal, () => child.kill(signal));
 }

@@ -13,7 +13,12 @@ import { portsFor, dataRoot, root } from './lib/stack';
 
 const args = process.argv.slice(2);
 if (args.includes('--help') || args.length === 0) {
-	console.log(readFileSync(new URL(import.meta.url), 'utf8').split('\n').slice(0, 8).join('\n'));
+	console.log(
+		readFileSync(new URL(import.meta.url), 'utf8')
+			.split('\n')
+			.slice(0, 8)
+			.join('\n')
+	);
 	process.exit(0);
 }
 const option = (name: string, fallback: string) => {
@@ -64,7 +69,7 @@ try {
 				window.scrollTo(0, 0);
 			});
 			await page.waitForLoadState('networkidle');
-			const file = join(out, `${(path.replace(/[^a-z0-9]+/gi, '_').replace(/^_|_$/g, '') || 'home')}${as ? '-' + as.split('@')[0] : ''}-${width}.png`);
+			const file = join(out, `${path.replace(/[^a-z0-9]+/gi, '_').replace(/^_|_$/g, '') || 'home'}${as ? '-' + as.split('@')[0] : ''}-${width}.png`);
 			await page.screenshot({ path: file, fullPage: true });
 			console.log(`${response?.status()} ${path} → ${file}`);
 		}

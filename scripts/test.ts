@@ -25,7 +25,8 @@ function parseArgs(argv: string[]) {
 		const arg = argv[i];
 		if (arg === '--only') {
 			const value = argv[++i] as Runner;
-			if (!['unit', 'integration', 'e2e'].includes(value)) throw new SetupError(`--only ${value} is not a runner.`, 'Use --only unit, --only integration or --only e2e.');
+			if (!['unit', 'integration', 'e2e'].includes(value))
+				throw new SetupError(`--only ${value} is not a runner.`, 'Use --only unit, --only integration or --only e2e.');
 			only.add(value);
 		} else if (arg === '--serve') {
 			serve = true;

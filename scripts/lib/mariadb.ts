@@ -86,13 +86,7 @@ export async function startMariaDb(options: MariaDbOptions): Promise<RunningMari
 		mkdirSync(dataDir, { recursive: true });
 		const init = spawnSync(
 			'mariadb-install-db',
-			[
-				'--no-defaults',
-				`--datadir=${dataDir}`,
-				'--auth-root-authentication-method=normal',
-				'--skip-test-db',
-				...asRoot
-			],
+			['--no-defaults', `--datadir=${dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...asRoot],
 			{ encoding: 'utf8' }
 		);
 		if (init.status !== 0) {

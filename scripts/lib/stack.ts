@@ -70,7 +70,10 @@ export function portsFor(mode: 'start' | 'test'): Ports {
 	// Test ports sit apart from the start ports so both can run at once; TEST_PORT_OFFSET moves them all.
 	const offset = Number(process.env.TEST_PORT_OFFSET ?? 0);
 	if (!Number.isInteger(offset) || offset < 0 || offset > 50_000) {
-		throw new SetupError(`TEST_PORT_OFFSET=${process.env.TEST_PORT_OFFSET} is not a whole number between 0 and 50000.`, 'Unset it or choose a small number such as 100.');
+		throw new SetupError(
+			`TEST_PORT_OFFSET=${process.env.TEST_PORT_OFFSET} is not a whole number between 0 and 50000.`,
+			'Unset it or choose a small number such as 100.'
+		);
 	}
 	return {
 		app: 3100 + offset,
@@ -248,7 +251,10 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 			const app = spawnManaged('the app', process.execPath, [join(root, 'build', 'index.js')], { cwd: root, env, logFile });
 			managed.push(app);
 			if (!(await waitForPort(ports.app, 30_000))) {
-				throw new SetupError(`The app did not start listening on port ${ports.app}.`, `See ${options.mode === 'test' ? join(options.home, 'app.log') : 'its output above'}.`);
+				throw new SetupError(
+					`The app did not start listening on port ${ports.app}.`,
+					`See ${options.mode === 'test' ? join(options.home, 'app.log') : 'its output above'}.`
+				);
 			}
 			return { exited: app.exitPromise };
 		};

@@ -104,12 +104,7 @@ export interface Managed {
 }
 
 /** Starts a long-running helper in its own process group, so Ctrl-C reaches us first and we stop it in order. */
-export function spawnManaged(
-	name: string,
-	command: string,
-	args: string[],
-	options: { env?: NodeJS.ProcessEnv; cwd?: string; logFile?: number | 'inherit' }
-) {
+export function spawnManaged(name: string, command: string, args: string[], options: { env?: NodeJS.ProcessEnv; cwd?: string; logFile?: number | 'inherit' }) {
 	const stdio = options.logFile === undefined || options.logFile === 'inherit' ? 'inherit' : options.logFile;
 	const child = spawn(command, args, {
 		cwd: options.cwd,

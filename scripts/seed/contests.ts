@@ -27,10 +27,32 @@ const dayOf = (d: Date) => d.toISOString().slice(0, 10);
 
 /** Our own rubric: five criteria in the club's words, weighted towards the layout and the plants. */
 export const DEMO_RUBRIC = [
-	{ label: 'Sense of depth', max: 10, weight: 3, guidance: 'Does the layout lead the eye from the front glass to the back? Foreground, middle and background read as separate planes, and the back does not end at a flat wall.' },
-	{ label: 'Plant vigour', max: 10, weight: 3, guidance: 'Healthy, well-coloured growth without melting leaves, algae or gaps from neglect; plants that suit the light and CO2 the tank actually has.' },
-	{ label: 'Hardscape balance', max: 10, weight: 2, guidance: 'Stone and wood placed with intent: one clear point of focus, sizes in proportion to the tank, no accidental symmetry.' },
-	{ label: 'Livestock fit', max: 5, weight: 1, guidance: 'Fish and invertebrates that suit the volume, the water and the plants, look healthy and behave naturally. Overstocking, or animals kept for the photo, score low.' },
+	{
+		label: 'Sense of depth',
+		max: 10,
+		weight: 3,
+		guidance:
+			'Does the layout lead the eye from the front glass to the back? Foreground, middle and background read as separate planes, and the back does not end at a flat wall.'
+	},
+	{
+		label: 'Plant vigour',
+		max: 10,
+		weight: 3,
+		guidance: 'Healthy, well-coloured growth without melting leaves, algae or gaps from neglect; plants that suit the light and CO2 the tank actually has.'
+	},
+	{
+		label: 'Hardscape balance',
+		max: 10,
+		weight: 2,
+		guidance: 'Stone and wood placed with intent: one clear point of focus, sizes in proportion to the tank, no accidental symmetry.'
+	},
+	{
+		label: 'Livestock fit',
+		max: 5,
+		weight: 1,
+		guidance:
+			'Fish and invertebrates that suit the volume, the water and the plants, look healthy and behave naturally. Overstocking, or animals kept for the photo, score low.'
+	},
 	{ label: 'Care in the details', max: 5, weight: 1, guidance: 'Clean glass, hidden or tidy cables and pipes, trimmed edges: the upkeep the photos show.' }
 ] as const;
 
@@ -66,8 +88,37 @@ const OPEN: Shape[] = [
 	{ l: 100, w: 40, h: 45, glass: 10, substrate: 7, rock: 12, style: 'nature' }
 ];
 
-const TANK_NAMES = ['Slate hollow', 'Reed margin', 'Low ford', 'Mossback', 'Grey shelf', 'Alder shade', 'Pebble run', 'Still bay', 'Fern step', 'Heron bank', 'Quiet weir', 'Sedge corner', 'Driftwood arch', 'Cold spring', 'Marsh light', 'Willow root', 'Shingle beach', 'Otter pool', 'Lichen ridge', 'Dune grass'];
-const SCENES = ['a sloped sand path between two stone groups', 'a dense red and green stem background', 'a carpet of small round leaves in front of a branching root', 'mossed stones along a gravel bank', 'tall grass-like plants at the back and a low lawn in front', 'a single upright stone with smaller stones around it', 'floating plants shading a cave of wood'];
+const TANK_NAMES = [
+	'Slate hollow',
+	'Reed margin',
+	'Low ford',
+	'Mossback',
+	'Grey shelf',
+	'Alder shade',
+	'Pebble run',
+	'Still bay',
+	'Fern step',
+	'Heron bank',
+	'Quiet weir',
+	'Sedge corner',
+	'Driftwood arch',
+	'Cold spring',
+	'Marsh light',
+	'Willow root',
+	'Shingle beach',
+	'Otter pool',
+	'Lichen ridge',
+	'Dune grass'
+];
+const SCENES = [
+	'a sloped sand path between two stone groups',
+	'a dense red and green stem background',
+	'a carpet of small round leaves in front of a branching root',
+	'mossed stones along a gravel bank',
+	'tall grass-like plants at the back and a low lawn in front',
+	'a single upright stone with smaller stones around it',
+	'floating plants shading a cave of wood'
+];
 const STATEMENTS = [
 	'I wanted the feeling of a shallow stream bank in late summer: the path pulls the eye to the back left, where the tallest stems catch the light.',
 	'Three stone groups set at roughly a third of the length each, with the largest leaning slightly to the right so the layout does not look placed.',
@@ -79,22 +130,54 @@ const STATEMENTS = [
 ];
 /** What a judge might say about a criterion that stood out, good or weak (one list per criterion). */
 const STRONG = [
-	['The path into the back really works: the eye keeps travelling.', 'Three clear planes, and the back fades away nicely.', 'Fine plants at the back make the tank look deeper than it is.'],
-	['Even, healthy colour everywhere; the stems are dense right down to the substrate.', 'No melt, no algae on the old leaves: this is a well-kept tank.', 'The carpet is complete and low.'],
-	['The main stone sits exactly where it should.', 'Good proportions: the hardscape fills the tank without crowding it.', 'The wood and stone read as one piece.'],
+	[
+		'The path into the back really works: the eye keeps travelling.',
+		'Three clear planes, and the back fades away nicely.',
+		'Fine plants at the back make the tank look deeper than it is.'
+	],
+	[
+		'Even, healthy colour everywhere; the stems are dense right down to the substrate.',
+		'No melt, no algae on the old leaves: this is a well-kept tank.',
+		'The carpet is complete and low.'
+	],
+	[
+		'The main stone sits exactly where it should.',
+		'Good proportions: the hardscape fills the tank without crowding it.',
+		'The wood and stone read as one piece.'
+	],
 	['The shoal is well chosen for this size and stays together.', 'Active, healthy fish that suit the plants.', 'A sensible, light stocking.'],
 	['Spotless glass and no cable in sight.', 'Very tidy edges; the trimming is clearly regular.', 'Everything that is not the layout has been hidden.']
 ];
 const WEAK = [
-	['The back stops abruptly; taller or finer plants there would add depth.', 'Foreground and background are the same height, so it reads flat.', 'The midground is thin.'],
-	['Some older leaves are tired or have algae on them.', 'Gaps in the stems suggest the light does not reach the bottom.', 'The carpet is patchy on the right.'],
-	['The stones compete with each other; fewer, larger pieces might help.', 'The focal point sits right in the middle, which makes it static.', 'The wood looks too small for the tank.'],
-	['Quite a lot of fish for this volume.', 'The shrimp are hard to find; this scores on what the photos show.', 'Mixed species that do not obviously suit each other.'],
+	[
+		'The back stops abruptly; taller or finer plants there would add depth.',
+		'Foreground and background are the same height, so it reads flat.',
+		'The midground is thin.'
+	],
+	[
+		'Some older leaves are tired or have algae on them.',
+		'Gaps in the stems suggest the light does not reach the bottom.',
+		'The carpet is patchy on the right.'
+	],
+	[
+		'The stones compete with each other; fewer, larger pieces might help.',
+		'The focal point sits right in the middle, which makes it static.',
+		'The wood looks too small for the tank.'
+	],
+	[
+		'Quite a lot of fish for this volume.',
+		'The shrimp are hard to find; this scores on what the photos show.',
+		'Mixed species that do not obviously suit each other.'
+	],
 	['The front glass needs a wipe.', 'A cable and a pipe are clearly visible.', 'The edges of the carpet need a trim.']
 ];
 const OVERALL_HIGH = ['A layout that holds the eye. Well done.', 'One of the strongest in the category.', 'Very well kept and clearly thought through.'];
 const OVERALL_MID = ['A good tank with room to grow.', 'Pleasant and healthy; a clearer idea would lift it.', 'Solid work.'];
-const OVERALL_LOW = ['The idea is there; give it a few more months.', 'Keep going: the plants need time to fill in before the layout reads.', 'A steadier routine would lift every criterion.'];
+const OVERALL_LOW = [
+	'The idea is there; give it a few more months.',
+	'Keep going: the plants need time to fill in before the layout reads.',
+	'A steadier routine would lift every criterion.'
+];
 
 function gaussian(rnd: () => number): number {
 	const u = Math.max(rnd(), 1e-12);
@@ -130,7 +213,9 @@ function tankInput(name: string, shape: Shape, setUpOn: string, visibility: Tank
 		description,
 		visibility,
 		lights: [{ label: 'LED bar', watts: Math.round(shape.l * 0.5), hoursPerDay: 7 }],
-		filters: [{ label: shape.l >= 60 ? 'Canister' : 'Sponge filter', ratedFlow: Math.round(shape.l * shape.w * shape.h * 0.006), flowUnit: 'lph', mediaNotes: '' }],
+		filters: [
+			{ label: shape.l >= 60 ? 'Canister' : 'Sponge filter', ratedFlow: Math.round(shape.l * shape.w * shape.h * 0.006), flowUnit: 'lph', mediaNotes: '' }
+		],
 		fertilisers: [],
 		plants: [],
 		livestock: []
@@ -169,15 +254,45 @@ function plans(rnd: () => number): ContestPlan[] {
 	const quality = (level: number) => DEMO_RUBRIC.map(() => Math.min(0.97, Math.max(0.25, level + (rnd() - 0.5) * 0.16)));
 	const published: EntryPlan[] = [
 		// Nano: up to 40 L.
-		...['mara', 'dov', 'fenna', 'joss', 'yara', 'pim'].map((owner, i) => ({ owner, category: 0, shape: NANO[i % NANO.length]!, quality: quality(0.5 + rnd() * 0.4), photos: 1 + (i % 2) })),
+		...['mara', 'dov', 'fenna', 'joss', 'yara', 'pim'].map((owner, i) => ({
+			owner,
+			category: 0,
+			shape: NANO[i % NANO.length]!,
+			quality: quality(0.5 + rnd() * 0.4),
+			photos: 1 + (i % 2)
+		})),
 		// Stone layouts: 30 L or more, running at least 8 weeks.
-		...['lio', 'ines', 'rafe', 'corin', 'mara', 'fenna'].map((owner, i) => ({ owner, category: 1, shape: STONES[i % STONES.length]!, quality: quality(0.5 + rnd() * 0.4), photos: 1 + ((i + 1) % 2) })),
+		...['lio', 'ines', 'rafe', 'corin', 'mara', 'fenna'].map((owner, i) => ({
+			owner,
+			category: 1,
+			shape: STONES[i % STONES.length]!,
+			quality: quality(0.5 + rnd() * 0.4),
+			photos: 1 + ((i + 1) % 2)
+		})),
 		// Open: any size, running at least 6 weeks; Ugo judges and enters here.
-		...['dov', 'joss', 'yara', 'pim', 'ines', 'ugo', 'bramwell'].map((owner, i) => ({ owner, category: 2, shape: OPEN[i % OPEN.length]!, quality: quality(0.45 + rnd() * 0.45), photos: 1 + (i % 3 === 0 ? 1 : 0) }))
+		...['dov', 'joss', 'yara', 'pim', 'ines', 'ugo', 'bramwell'].map((owner, i) => ({
+			owner,
+			category: 2,
+			shape: OPEN[i % OPEN.length]!,
+			quality: quality(0.45 + rnd() * 0.45),
+			photos: 1 + (i % 3 === 0 ? 1 : 0)
+		}))
 	];
 	const current: EntryPlan[] = [
-		...['mara', 'corin', 'rafe', 'pim', 'fenna'].map((owner, i) => ({ owner, category: 0, shape: OPEN[(i + 2) % OPEN.length]!, quality: quality(0.5 + rnd() * 0.4), photos: 1 })),
-		...['joss', 'lio', 'yara', 'ines'].map((owner, i) => ({ owner, category: 1, shape: NANO[(i + 1) % NANO.length]!, quality: quality(0.5 + rnd() * 0.4), photos: 1 }))
+		...['mara', 'corin', 'rafe', 'pim', 'fenna'].map((owner, i) => ({
+			owner,
+			category: 0,
+			shape: OPEN[(i + 2) % OPEN.length]!,
+			quality: quality(0.5 + rnd() * 0.4),
+			photos: 1
+		})),
+		...['joss', 'lio', 'yara', 'ines'].map((owner, i) => ({
+			owner,
+			category: 1,
+			shape: NANO[(i + 1) % NANO.length]!,
+			quality: quality(0.5 + rnd() * 0.4),
+			photos: 1
+		}))
 	];
 	const third: EntryPlan[] = ['dov', 'yara'].map((owner, i) => ({ owner, category: 0, shape: OPEN[(i + 3) % OPEN.length]!, quality: quality(0.6), photos: 1 }));
 	return [
@@ -203,7 +318,8 @@ function plans(rnd: () => number): ContestPlan[] {
 		},
 		{
 			title: 'Kettlewater Scapes, second round',
-			rules: 'Same rules as the first round: two tanks per member at most, photos of the tank as it is now, fish in their own tank.\n\nThis round has two categories and the score is the **median** of the judges’ cards.',
+			rules:
+				'Same rules as the first round: two tanks per member at most, photos of the tank as it is now, fish in their own tank.\n\nThis round has two categories and the score is the **median** of the judges’ cards.',
 			categories: [
 				{ id: null, name: 'Large layouts', description: 'From 50 litres of water.', minLitres: 50, maxLitres: null, minAgeWeeks: 4 },
 				{ id: null, name: 'Nano', description: 'Up to 40 litres of water.', minLitres: null, maxLitres: 40, minAgeWeeks: null }
@@ -255,7 +371,12 @@ function cardFor(rubricIds: string[], quality: number[], style: { bias: number; 
 	if (rnd() < 0.7 && worst !== best) comments[rubricIds[worst]!] = pick(WEAK[worst]!);
 	const mean = relative.reduce((a, b) => a + b, 0) / relative.length;
 	const overall = mean > 0.78 ? pick(OVERALL_HIGH) : mean > 0.6 ? pick(OVERALL_MID) : pick(OVERALL_LOW);
-	return { scores, comments, entrantComment: overall, panelNote: rnd() < 0.15 ? 'I scored the photos as they are; the second photo looks older than the first.' : '' };
+	return {
+		scores,
+		comments,
+		entrantComment: overall,
+		panelNote: rnd() < 0.15 ? 'I scored the photos as they are; the second photo looks older than the first.' : ''
+	};
 }
 
 export async function seedContests(db: DbOrTx): Promise<void> {
@@ -263,7 +384,10 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 	const need = ['oriel', 'sefa', 'tamsin', 'ugo', 'nell'];
 	if (need.some((k) => !people.has(k))) return;
 	// A fourth judge: a member of the club takes the role for the contests.
-	await db.update(users).set({ role: 'judge' }).where(eq(users.id, people.get('nell')!));
+	await db
+		.update(users)
+		.set({ role: 'judge' })
+		.where(eq(users.id, people.get('nell')!));
 	const admin = await viewerOf(db, people.get('oriel')!);
 	const now = new Date();
 	const rnd = randomFrom(2026);
@@ -321,21 +445,45 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 				tankCounter++;
 				const setUp = dayOf(new Date(when.getTime() - (70 + ((tankCounter * 37) % 200)) * DAY));
 				const scene = SCENES[tankCounter % SCENES.length]!;
-				tankId = await tanks.create({ id: ownerId }, tankInput(TANK_NAMES[(tankCounter - 1) % TANK_NAMES.length]!, e.shape, setUp, tankCounter % 3 === 0 ? 'public' : 'club', `A ${e.shape.style} layout with ${scene}.`), [], db);
+				tankId = await tanks.create(
+					{ id: ownerId },
+					tankInput(
+						TANK_NAMES[(tankCounter - 1) % TANK_NAMES.length]!,
+						e.shape,
+						setUp,
+						tankCounter % 3 === 0 ? 'public' : 'club',
+						`A ${e.shape.style} layout with ${scene}.`
+					),
+					[],
+					db
+				);
 			}
 			tankOf.set(`${contestId}:${e.owner}:${i}`, tankId);
 			const photos = [];
 			for (let p = 0; p < e.photos; p++) {
 				const stored = await storeDemoPhoto(ownerId, photoSeed++, db, { width: 1200, height: 750 });
-				photos.push({ id: stored.id, alt: p === 0 ? `The whole tank from the front: ${SCENES[(photoSeed + i) % SCENES.length]}.` : 'A closer view of the planting on the left.', caption: p === 0 ? '' : 'Taken the same evening.' });
+				photos.push({
+					id: stored.id,
+					alt: p === 0 ? `The whole tank from the front: ${SCENES[(photoSeed + i) % SCENES.length]}.` : 'A closer view of the planting on the left.',
+					caption: p === 0 ? '' : 'Taken the same evening.'
+				});
 			}
-			const id = await entries.create(owner, contestId, { categoryId: category.id, tankId, statement: STATEMENTS[i % STATEMENTS.length]!, photos }, { now: when, database: db });
+			const id = await entries.create(
+				owner,
+				contestId,
+				{ categoryId: category.id, tankId, statement: STATEMENTS[i % STATEMENTS.length]!, photos },
+				{ now: when, database: db }
+			);
 			entryIds.push(id);
 		}
 
 		if (plan.until === 'open') continue;
 		await transition(admin, contestId, 'start-judging', { now: judgingOpens, database: db });
-		const numbers = new Map((await db.select({ id: contestEntries.id, number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.contestId, contestId))).map((r) => [r.id, r.number!]));
+		const numbers = new Map(
+			(await db.select({ id: contestEntries.id, number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.contestId, contestId))).map(
+				(r) => [r.id, r.number!]
+			)
+		);
 
 		for (const [judge, index, reason] of plan.conflicts) {
 			const viewer = await viewerOf(db, people.get(judge)!);
@@ -348,7 +496,10 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			const style = JUDGE_STYLE[judge]!;
 			const owed = [];
 			for (const [i, entryId] of entryIds.entries()) {
-				const [entry] = await db.select().from(contestEntries).where(and(eq(contestEntries.id, entryId), eq(contestEntries.contestId, contestId)));
+				const [entry] = await db
+					.select()
+					.from(contestEntries)
+					.where(and(eq(contestEntries.id, entryId), eq(contestEntries.contestId, contestId)));
 				if (!entry || entry.entrantId === viewer.id) continue;
 				if (plan.conflicts.some(([j, k]) => j === judge && k === i)) continue;
 				owed.push({ i, number: numbers.get(entryId)! });
@@ -360,7 +511,13 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 				const when = new Date(judgingOpens.getTime() + (k + 1) * 3_600_000 * 5);
 				const fields = cardFor(rubricIds, plan.entries[cell.i]!.quality, style, rnd);
 				if (drafted) fields.scores[rubricIds[rubricIds.length - 1]!] = null;
-				const saved = await judging.saveCard(viewer, contestId, cell.number, { baseVersion: 0, saveId: `seed-${contestId}-${judge}-${cell.number}`, fields }, { now: when, database: db });
+				const saved = await judging.saveCard(
+					viewer,
+					contestId,
+					cell.number,
+					{ baseVersion: 0, saveId: `seed-${contestId}-${judge}-${cell.number}`, fields },
+					{ now: when, database: db }
+				);
 				if (!drafted) await judging.submitCard(viewer, contestId, cell.number, saved.version, { now: when, database: db });
 			}
 		}

@@ -18,7 +18,14 @@ import type { EventInput } from '../../src/lib/journals/entry-form';
 import { dayNumber, isoDay } from '../../src/lib/journals/calc';
 import type { Viewer } from '../../src/lib/server/club/users';
 
-type DemoTank = { owner: string; seed: number; alt: string; input: Omit<TankInput, 'plants' | 'livestock'>; plants: [string, string, string | null][]; livestock: [string, number, string][] };
+type DemoTank = {
+	owner: string;
+	seed: number;
+	alt: string;
+	input: Omit<TankInput, 'plants' | 'livestock'>;
+	plants: [string, string, string | null][];
+	livestock: [string, number, string][];
+};
 
 const TANKS: DemoTank[] = [
 	{
@@ -43,7 +50,8 @@ const TANKS: DemoTank[] = [
 			co2Method: 'pressurised',
 			co2BubblesPerSecond: 2,
 			waterLitres: null,
-			description: 'A riverbank in a glass box: stem plants at the back, **needle spikerush** in front.\n\n- Water change: 40 % weekly\n- Trim: every second Sunday',
+			description:
+				'A riverbank in a glass box: stem plants at the back, **needle spikerush** in front.\n\n- Water change: 40 % weekly\n- Trim: every second Sunday',
 			visibility: 'public',
 			lights: [
 				{ label: 'LED bar, front', watts: 46, hoursPerDay: 7 },
@@ -144,7 +152,10 @@ const TANKS: DemoTank[] = [
 export async function seedJournalTanks(db: DbOrTx): Promise<void> {
 	const people = await demoUserIds(db);
 	const names = [...new Set(TANKS.flatMap((t) => [...t.plants.map((p) => p[0]), ...t.livestock.map((l) => l[0])]))];
-	const found = await db.select({ id: species.id, name: species.scientificName, placement: species.placement }).from(species).where(inArray(species.scientificName, names));
+	const found = await db
+		.select({ id: species.id, name: species.scientificName, placement: species.placement })
+		.from(species)
+		.where(inArray(species.scientificName, names));
 	const catalogue = new Map(found.map((s) => [s.name, s.id]));
 	const placement = new Map(found.map((s) => [s.name, s.placement]));
 	for (const demo of TANKS) {
@@ -155,7 +166,13 @@ export async function seedJournalTanks(db: DbOrTx): Promise<void> {
 			{ id: ownerId },
 			{
 				...demo.input,
-				plants: demo.plants.map(([name, addedOn, removedOn]) => ({ speciesId: catalogue.get(name) ?? null, name, placement: placement.get(name) ?? null, addedOn, removedOn })),
+				plants: demo.plants.map(([name, addedOn, removedOn]) => ({
+					speciesId: catalogue.get(name) ?? null,
+					name,
+					placement: placement.get(name) ?? null,
+					addedOn,
+					removedOn
+				})),
 				livestock: demo.livestock.map(([name, count, addedOn]) => ({ speciesId: catalogue.get(name) ?? null, name, count, addedOn, removedOn: null }))
 			},
 			[{ id: photo.id, alt: demo.alt, caption: '' }],
@@ -168,7 +185,6 @@ export async function seedJournalTanks(db: DbOrTx): Promise<void> {
 // events and drawn photos, weekly water tests, an upkeep schedule, and what other members did
 // (admires, follows, comments). Dates count back from the day the seed runs, so the dashboard
 // always has something due. Every word below is invented for the demo club.
-
 
 type MoreTank = DemoTank & { ageDays: number; weeks: number };
 
@@ -200,67 +216,286 @@ const base = (over: Partial<TankInput>): Omit<TankInput, 'plants' | 'livestock'>
 
 const MORE_TANKS: MoreTank[] = [
 	{
-		owner: 'fenna', seed: 31, ageDays: 410, weeks: 7,
+		owner: 'fenna',
+		seed: 31,
+		ageDays: 410,
+		weeks: 7,
 		alt: 'A tall tank crowded with broad green leaves, red stems reaching the surface and a school of small blue fish.',
-		input: base({ name: 'Alder Quay jungle', style: 'jungle', lengthCm: 100, widthCm: 40, heightCm: 50, glassMm: 10, heaterWatts: 200, description: 'Let it grow, trim when it blocks the light. Floating plants keep the corners shaded.', lights: [{ label: 'Two LED bars', watts: 60, hoursPerDay: 8 }], filters: [{ label: 'Canister', ratedFlow: 1400, flowUnit: 'lph', mediaNotes: 'sponges and sintered rings' }] }),
-		plants: [['Echinodorus grisebachii', '', null], ['Vallisneria spiralis', '', null], ['Hygrophila corymbosa', '', null], ['Limnobium laevigatum', '', null], ['Cryptocoryne wendtii', '', null]],
-		livestock: [['Paracheirodon axelrodi', 24, ''], ['Corydoras paleatus', 8, ''], ['Ancistrus cirrhosus', 2, '']]
+		input: base({
+			name: 'Alder Quay jungle',
+			style: 'jungle',
+			lengthCm: 100,
+			widthCm: 40,
+			heightCm: 50,
+			glassMm: 10,
+			heaterWatts: 200,
+			description: 'Let it grow, trim when it blocks the light. Floating plants keep the corners shaded.',
+			lights: [{ label: 'Two LED bars', watts: 60, hoursPerDay: 8 }],
+			filters: [{ label: 'Canister', ratedFlow: 1400, flowUnit: 'lph', mediaNotes: 'sponges and sintered rings' }]
+		}),
+		plants: [
+			['Echinodorus grisebachii', '', null],
+			['Vallisneria spiralis', '', null],
+			['Hygrophila corymbosa', '', null],
+			['Limnobium laevigatum', '', null],
+			['Cryptocoryne wendtii', '', null]
+		],
+		livestock: [
+			['Paracheirodon axelrodi', 24, ''],
+			['Corydoras paleatus', 8, ''],
+			['Ancistrus cirrhosus', 2, '']
+		]
 	},
 	{
-		owner: 'joss', seed: 42, ageDays: 180, weeks: 6,
+		owner: 'joss',
+		seed: 42,
+		ageDays: 180,
+		weeks: 6,
 		alt: 'Brown-tinted water over a bed of leaves and twisted roots, with a few small fish near the bottom.',
-		input: base({ name: 'Tea-coloured creek', style: 'biotope', lengthCm: 80, widthCm: 35, heightCm: 40, glassMm: 8, substrateKind: 'sand', substrateNote: 'fine pale sand with leaf litter', substrateDepthCm: 3, hardscape: 'Roots and dried leaves', hardscapeLitres: 6, description: 'Soft, stained water for small fish that like shade. Few plants; most of the green is on the roots.', filters: [{ label: 'Sponge filter pair', ratedFlow: 300, flowUnit: 'lph', mediaNotes: '' }] }),
-		plants: [['Microsorum pteropus', '', null], ['Bolbitis heudelotii', '', null], ['Phyllanthus fluitans', '', null]],
-		livestock: [['Nannostomus beckfordi', 10, ''], ['Apistogramma cacatuoides', 3, ''], ['Carnegiella strigata', 6, '']]
+		input: base({
+			name: 'Tea-coloured creek',
+			style: 'biotope',
+			lengthCm: 80,
+			widthCm: 35,
+			heightCm: 40,
+			glassMm: 8,
+			substrateKind: 'sand',
+			substrateNote: 'fine pale sand with leaf litter',
+			substrateDepthCm: 3,
+			hardscape: 'Roots and dried leaves',
+			hardscapeLitres: 6,
+			description: 'Soft, stained water for small fish that like shade. Few plants; most of the green is on the roots.',
+			filters: [{ label: 'Sponge filter pair', ratedFlow: 300, flowUnit: 'lph', mediaNotes: '' }]
+		}),
+		plants: [
+			['Microsorum pteropus', '', null],
+			['Bolbitis heudelotii', '', null],
+			['Phyllanthus fluitans', '', null]
+		],
+		livestock: [
+			['Nannostomus beckfordi', 10, ''],
+			['Apistogramma cacatuoides', 3, ''],
+			['Carnegiella strigata', 6, '']
+		]
 	},
 	{
-		owner: 'ines', seed: 53, ageDays: 95, weeks: 6,
+		owner: 'ines',
+		seed: 53,
+		ageDays: 95,
+		weeks: 6,
 		alt: 'Terraced rows of plants in different greens and reds, like a planted garden bed, in front of a plain background.',
-		input: base({ name: 'Fenwick terraces', style: 'dutch', lengthCm: 120, widthCm: 50, heightCm: 55, glassMm: 12, heaterWatts: 300, co2Method: 'pressurised', co2BubblesPerSecond: 3, description: 'Streets of stem plants, no rocks, no wood. Trimming is most of the work.', lights: [{ label: 'LED panel', watts: 120, hoursPerDay: 8 }], filters: [{ label: 'Canister', ratedFlow: 1800, flowUnit: 'lph', mediaNotes: '' }], fertilisers: [{ item: 'Dry salts, mixed weekly', amount: 'see entries', frequency: 'three times a week' }] }),
-		plants: [['Rotala macrandra', '', null], ['Rotala wallichii', '', null], ['Ludwigia arcuata', '', null], ['Bacopa caroliniana', '', null], ['Heteranthera zosterifolia', '', null], ['Lobelia cardinalis', '', null]],
-		livestock: [['Hemigrammus erythrozonus', 20, ''], ['Crossocheilus oblongus', 3, '']]
+		input: base({
+			name: 'Fenwick terraces',
+			style: 'dutch',
+			lengthCm: 120,
+			widthCm: 50,
+			heightCm: 55,
+			glassMm: 12,
+			heaterWatts: 300,
+			co2Method: 'pressurised',
+			co2BubblesPerSecond: 3,
+			description: 'Streets of stem plants, no rocks, no wood. Trimming is most of the work.',
+			lights: [{ label: 'LED panel', watts: 120, hoursPerDay: 8 }],
+			filters: [{ label: 'Canister', ratedFlow: 1800, flowUnit: 'lph', mediaNotes: '' }],
+			fertilisers: [{ item: 'Dry salts, mixed weekly', amount: 'see entries', frequency: 'three times a week' }]
+		}),
+		plants: [
+			['Rotala macrandra', '', null],
+			['Rotala wallichii', '', null],
+			['Ludwigia arcuata', '', null],
+			['Bacopa caroliniana', '', null],
+			['Heteranthera zosterifolia', '', null],
+			['Lobelia cardinalis', '', null]
+		],
+		livestock: [
+			['Hemigrammus erythrozonus', 20, ''],
+			['Crossocheilus oblongus', 3, '']
+		]
 	},
 	{
-		owner: 'rafe', seed: 64, ageDays: 26, weeks: 3,
+		owner: 'rafe',
+		seed: 64,
+		ageDays: 26,
+		weeks: 3,
 		alt: 'A newly planted small tank: dark soil, a single large stone and little tufts of grass spaced out in front.',
-		input: base({ name: 'Lowmarsh first light', style: 'iwagumi', lengthCm: 45, widthCm: 27, heightCm: 30, glassMm: 5, hardscape: 'One large stone, two small', hardscapeLitres: 2.5, heaterWatts: 50, co2Method: 'pressurised', co2BubblesPerSecond: 1, description: 'My first tank with gas. Still cycling: no fish until ammonia and nitrite read zero.', lights: [{ label: 'Clip-on LED', watts: 20, hoursPerDay: 6 }], filters: [{ label: 'Small canister', ratedFlow: 400, flowUnit: 'lph', mediaNotes: 'seeded with a sponge from the club' }] }),
-		plants: [['Eleocharis acicularis', '', null], ['Helanthium tenellum', '', null]],
+		input: base({
+			name: 'Lowmarsh first light',
+			style: 'iwagumi',
+			lengthCm: 45,
+			widthCm: 27,
+			heightCm: 30,
+			glassMm: 5,
+			hardscape: 'One large stone, two small',
+			hardscapeLitres: 2.5,
+			heaterWatts: 50,
+			co2Method: 'pressurised',
+			co2BubblesPerSecond: 1,
+			description: 'My first tank with gas. Still cycling: no fish until ammonia and nitrite read zero.',
+			lights: [{ label: 'Clip-on LED', watts: 20, hoursPerDay: 6 }],
+			filters: [{ label: 'Small canister', ratedFlow: 400, flowUnit: 'lph', mediaNotes: 'seeded with a sponge from the club' }]
+		}),
+		plants: [
+			['Eleocharis acicularis', '', null],
+			['Helanthium tenellum', '', null]
+		],
 		livestock: []
 	},
 	{
-		owner: 'yara', seed: 75, ageDays: 300, weeks: 6,
+		owner: 'yara',
+		seed: 75,
+		ageDays: 300,
+		weeks: 6,
 		alt: 'A cube tank with moss-covered branches like little trees, and red shrimp grazing on the moss.',
-		input: base({ name: 'Mossbank cube', style: 'nano', lengthCm: 30, widthCm: 30, heightCm: 30, glassMm: 5, heaterWatts: 25, substrateDepthCm: 4, hardscape: 'Branches tied with moss', hardscapeLitres: 1.2, description: 'A shrimp cube. No fish, soft water, small water changes.', lights: [{ label: 'Nano LED', watts: 10, hoursPerDay: 7 }], filters: [{ label: 'Sponge filter', ratedFlow: 100, flowUnit: 'lph', mediaNotes: '' }] }),
-		plants: [['Vesicularia montagnei', '', null], ['Fissidens fontanus', '', null], ['Riccia fluitans', '', null]],
-		livestock: [['Neocaridina davidi', 40, ''], ['Clithon corona', 3, '']]
+		input: base({
+			name: 'Mossbank cube',
+			style: 'nano',
+			lengthCm: 30,
+			widthCm: 30,
+			heightCm: 30,
+			glassMm: 5,
+			heaterWatts: 25,
+			substrateDepthCm: 4,
+			hardscape: 'Branches tied with moss',
+			hardscapeLitres: 1.2,
+			description: 'A shrimp cube. No fish, soft water, small water changes.',
+			lights: [{ label: 'Nano LED', watts: 10, hoursPerDay: 7 }],
+			filters: [{ label: 'Sponge filter', ratedFlow: 100, flowUnit: 'lph', mediaNotes: '' }]
+		}),
+		plants: [
+			['Vesicularia montagnei', '', null],
+			['Fissidens fontanus', '', null],
+			['Riccia fluitans', '', null]
+		],
+		livestock: [
+			['Neocaridina davidi', 40, ''],
+			['Clithon corona', 3, '']
+		]
 	},
 	{
-		owner: 'corin', seed: 86, ageDays: 540, weeks: 5,
+		owner: 'corin',
+		seed: 86,
+		ageDays: 540,
+		weeks: 5,
 		alt: 'Driftwood arching over a sloped sand path between green cushions of plants, with a shoal of slim silver fish.',
-		input: base({ name: 'Reedholme path', style: 'nature', lengthCm: 90, widthCm: 45, heightCm: 45, glassMm: 10, heaterWatts: 200, substrateDepthCm: 7, hardscape: 'Driftwood arch and pebbles', hardscapeLitres: 10, co2Method: 'liquid', description: 'A path of sand leading into the wood. Low light, slow plants, very little work.', lights: [{ label: 'LED bar', watts: 40, hoursPerDay: 7 }], filters: [{ label: 'Canister', ratedFlow: 1000, flowUnit: 'lph', mediaNotes: '' }] }),
-		plants: [['Cryptocoryne parva', '', null], ['Anubias barteri', '', null], ['Taxiphyllum barbieri', '', null], ['Lilaeopsis brasiliensis', '', null]],
-		livestock: [['Danio margaritatus', 15, ''], ['Otocinclus vittatus', 5, ''], ['Caridina multidentata', 8, '']]
+		input: base({
+			name: 'Reedholme path',
+			style: 'nature',
+			lengthCm: 90,
+			widthCm: 45,
+			heightCm: 45,
+			glassMm: 10,
+			heaterWatts: 200,
+			substrateDepthCm: 7,
+			hardscape: 'Driftwood arch and pebbles',
+			hardscapeLitres: 10,
+			co2Method: 'liquid',
+			description: 'A path of sand leading into the wood. Low light, slow plants, very little work.',
+			lights: [{ label: 'LED bar', watts: 40, hoursPerDay: 7 }],
+			filters: [{ label: 'Canister', ratedFlow: 1000, flowUnit: 'lph', mediaNotes: '' }]
+		}),
+		plants: [
+			['Cryptocoryne parva', '', null],
+			['Anubias barteri', '', null],
+			['Taxiphyllum barbieri', '', null],
+			['Lilaeopsis brasiliensis', '', null]
+		],
+		livestock: [
+			['Danio margaritatus', 15, ''],
+			['Otocinclus vittatus', 5, ''],
+			['Caridina multidentata', 8, '']
+		]
 	},
 	{
-		owner: 'nell', seed: 97, ageDays: 120, weeks: 5,
+		owner: 'nell',
+		seed: 97,
+		ageDays: 120,
+		weeks: 5,
 		alt: 'A low-tech tank with a few broad plants, floating leaves at the top and a single bright fish.',
-		input: base({ name: 'Brackenford windowsill', style: 'low-tech', lengthCm: 60, widthCm: 30, heightCm: 30, glassMm: 5, heaterWatts: 75, substrateKind: 'gravel', substrateNote: 'soil capped with gravel', substrateDepthCm: 6, visibility: 'club', description: 'No gas, no dosing, light from the room and a small lamp.', lights: [{ label: 'Desk lamp', watts: 12, hoursPerDay: 6 }] }),
-		plants: [['Cryptocoryne beckettii', '', null], ['Ceratopteris thalictroides', '', null], ['Lemna minor', '', null]],
-		livestock: [['Betta splendens', 1, ''], ['Neritina natalensis', 2, '']]
+		input: base({
+			name: 'Brackenford windowsill',
+			style: 'low-tech',
+			lengthCm: 60,
+			widthCm: 30,
+			heightCm: 30,
+			glassMm: 5,
+			heaterWatts: 75,
+			substrateKind: 'gravel',
+			substrateNote: 'soil capped with gravel',
+			substrateDepthCm: 6,
+			visibility: 'club',
+			description: 'No gas, no dosing, light from the room and a small lamp.',
+			lights: [{ label: 'Desk lamp', watts: 12, hoursPerDay: 6 }]
+		}),
+		plants: [
+			['Cryptocoryne beckettii', '', null],
+			['Ceratopteris thalictroides', '', null],
+			['Lemna minor', '', null]
+		],
+		livestock: [
+			['Betta splendens', 1, ''],
+			['Neritina natalensis', 2, '']
+		]
 	},
 	{
-		owner: 'pim', seed: 108, ageDays: 60, weeks: 4,
+		owner: 'pim',
+		seed: 108,
+		ageDays: 60,
+		weeks: 4,
 		alt: 'A wide, shallow tank with a carpet of round leaves, grey stones and tall grass at the back.',
-		input: base({ name: 'Shallow meadow', style: 'nature', lengthCm: 90, widthCm: 40, heightCm: 30, glassMm: 8, heaterWatts: 150, co2Method: 'pressurised', co2BubblesPerSecond: 2, hardscape: 'Grey stones', hardscapeLitres: 8, description: 'A meadow seen from above as much as from the front.', lights: [{ label: 'LED panel', watts: 50, hoursPerDay: 7 }], filters: [{ label: 'Canister', ratedFlow: 900, flowUnit: 'lph', mediaNotes: '' }] }),
-		plants: [['Marsilea hirsuta', '', null], ['Hydrocotyle verticillata', '', null], ['Sagittaria subulata', '', null]],
+		input: base({
+			name: 'Shallow meadow',
+			style: 'nature',
+			lengthCm: 90,
+			widthCm: 40,
+			heightCm: 30,
+			glassMm: 8,
+			heaterWatts: 150,
+			co2Method: 'pressurised',
+			co2BubblesPerSecond: 2,
+			hardscape: 'Grey stones',
+			hardscapeLitres: 8,
+			description: 'A meadow seen from above as much as from the front.',
+			lights: [{ label: 'LED panel', watts: 50, hoursPerDay: 7 }],
+			filters: [{ label: 'Canister', ratedFlow: 900, flowUnit: 'lph', mediaNotes: '' }]
+		}),
+		plants: [
+			['Marsilea hirsuta', '', null],
+			['Hydrocotyle verticillata', '', null],
+			['Sagittaria subulata', '', null]
+		],
 		livestock: [['Trigonostigma espei', 16, '']]
 	},
 	{
-		owner: 'sefa', seed: 119, ageDays: 730, weeks: 5,
+		owner: 'sefa',
+		seed: 119,
+		ageDays: 730,
+		weeks: 5,
 		alt: 'A large tank of slow-growing ferns and swords around a stack of dark rock, with angelfish above.',
-		input: base({ name: 'Mossbank deep', style: 'jungle', lengthCm: 150, widthCm: 50, heightCm: 60, glassMm: 12, heaterWatts: 2 * 200, substrateDepthCm: 8, hardscape: 'Dark lava rock stack', hardscapeLitres: 25, visibility: 'private', description: 'My own quiet tank.', lights: [{ label: 'Two LED bars', watts: 90, hoursPerDay: 8 }], filters: [{ label: 'Two canisters', ratedFlow: 2400, flowUnit: 'lph', mediaNotes: '' }] }),
-		plants: [['Echinodorus cordifolius', '', null], ['Microsorum pteropus', '', null], ['Aponogeton crispus', '', null]],
-		livestock: [['Pterophyllum scalare', 4, ''], ['Corydoras aeneus', 10, '']]
+		input: base({
+			name: 'Mossbank deep',
+			style: 'jungle',
+			lengthCm: 150,
+			widthCm: 50,
+			heightCm: 60,
+			glassMm: 12,
+			heaterWatts: 2 * 200,
+			substrateDepthCm: 8,
+			hardscape: 'Dark lava rock stack',
+			hardscapeLitres: 25,
+			visibility: 'private',
+			description: 'My own quiet tank.',
+			lights: [{ label: 'Two LED bars', watts: 90, hoursPerDay: 8 }],
+			filters: [{ label: 'Two canisters', ratedFlow: 2400, flowUnit: 'lph', mediaNotes: '' }]
+		}),
+		plants: [
+			['Echinodorus cordifolius', '', null],
+			['Microsorum pteropus', '', null],
+			['Aponogeton crispus', '', null]
+		],
+		livestock: [
+			['Pterophyllum scalare', 4, ''],
+			['Corydoras aeneus', 10, '']
+		]
 	}
 ];
 
@@ -303,7 +538,10 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 	const now = new Date();
 	const today = dayNumber(now);
 	const names = [...new Set([...EXTRA_PLANTS, ...MORE_TANKS.flatMap((t) => [...t.plants.map((p) => p[0]), ...t.livestock.map((l) => l[0])])])];
-	const found = await db.select({ id: species.id, name: species.scientificName, placement: species.placement }).from(species).where(inArray(species.scientificName, names));
+	const found = await db
+		.select({ id: species.id, name: species.scientificName, placement: species.placement })
+		.from(species)
+		.where(inArray(species.scientificName, names));
 	const catalogue = new Map(found.map((s) => [s.name, s]));
 
 	// Nine more tanks, set up some while ago.
@@ -317,8 +555,20 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 			{
 				...demo.input,
 				setUpOn,
-				plants: demo.plants.map(([name]) => ({ speciesId: catalogue.get(name)?.id ?? null, name, placement: catalogue.get(name)?.placement ?? null, addedOn: setUpOn, removedOn: null })),
-				livestock: demo.livestock.map(([name, count]) => ({ speciesId: catalogue.get(name)?.id ?? null, name, count, addedOn: isoDay(Math.min(today, today - demo.ageDays + 35)), removedOn: null }))
+				plants: demo.plants.map(([name]) => ({
+					speciesId: catalogue.get(name)?.id ?? null,
+					name,
+					placement: catalogue.get(name)?.placement ?? null,
+					addedOn: setUpOn,
+					removedOn: null
+				})),
+				livestock: demo.livestock.map(([name, count]) => ({
+					speciesId: catalogue.get(name)?.id ?? null,
+					name,
+					count,
+					addedOn: isoDay(Math.min(today, today - demo.ageDays + 35)),
+					removedOn: null
+				}))
 			},
 			[{ id: photo.id, alt: demo.alt, caption: '' }],
 			db
@@ -331,7 +581,12 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 		return { id, email: u!.email ?? '', displayName: u!.displayName, role: u!.role, units: u!.units };
 	};
 	const all = await db.select().from(tankTable);
-	const plan = new Map([...MORE_TANKS.map((t) => [t.input.name, t.weeks] as const), ['Reedholme riverbank', 7], ['Brackenford stones', 6], ['Windowsill nano', 5]]);
+	const plan = new Map([
+		...MORE_TANKS.map((t) => [t.input.name, t.weeks] as const),
+		['Reedholme riverbank', 7],
+		['Brackenford stones', 6],
+		['Windowsill nano', 5]
+	]);
 	const entryIds: { tankId: number; entryId: number; ownerId: string; visibility: string }[] = [];
 
 	for (const tank of all) {
@@ -351,14 +606,28 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 			const weekNo = Math.floor((day - setUp) / 7) + 1;
 			const events: EventInput[] = [];
 			const event = (over: Partial<EventInput> & Pick<EventInput, 'kind'>): EventInput => ({
-				percent: null, filterPart: null, what: '', amount: null, amountUnit: null, saltId: null, speciesId: null, speciesName: '', count: null, algaeKind: null, note: '', rowId: null, ...over
+				percent: null,
+				filterPart: null,
+				what: '',
+				amount: null,
+				amountUnit: null,
+				saltId: null,
+				speciesId: null,
+				speciesName: '',
+				count: null,
+				algaeKind: null,
+				note: '',
+				rowId: null,
+				...over
 			});
 			events.push(event({ kind: 'water-change', percent: young ? 50 : pick([25, 30, 40, 50]) }));
 			if (w % 2 === 0) events.push(event({ kind: 'trim', what: pick(['stems at the back', 'the carpet', 'old leaves', '']) }));
 			if (w % 3 === 1) events.push(event({ kind: 'filter-clean', filterPart: pick(['prefilter', 'prefilter', 'media', 'hoses'] as const) }));
-			if (tank.co2Method === 'pressurised' && w % 2 === 1) events.push(event({ kind: 'dose', saltId: 'KNO3', what: 'Potassium nitrate', amount: 1.5, amountUnit: 'g' }));
+			if (tank.co2Method === 'pressurised' && w % 2 === 1)
+				events.push(event({ kind: 'dose', saltId: 'KNO3', what: 'Potassium nitrate', amount: 1.5, amountUnit: 'g' }));
 			if (tank.co2Method === 'pressurised' && w === 2) events.push(event({ kind: 'co2-check', note: 'no leaks at the joints; solenoid on the timer' }));
-			if (w === Math.floor(weeks / 2)) events.push(event({ kind: 'algae', algaeKind: pick(['green-dust', 'threads', 'brown-film'] as const), note: 'shortened the light a little' }));
+			if (w === Math.floor(weeks / 2))
+				events.push(event({ kind: 'algae', algaeKind: pick(['green-dust', 'threads', 'brown-film'] as const), note: 'shortened the light a little' }));
 			if (w === 1) {
 				const extra = pick(EXTRA_PLANTS);
 				events.push(event({ kind: 'plant-added', speciesId: catalogue.get(extra)?.id ?? null, speciesName: extra }));
@@ -370,7 +639,11 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 				const count = w === 0 ? 2 : 1;
 				for (let k = 0; k < count; k++) {
 					const p = await storeDemoPhoto(tank.ownerId, ++photoSeed, db, { width: 1200, height: 800 });
-					photos.push({ id: p.id, alt: `${tank.name} in week ${weekNo}, ${k === 0 ? 'from the front' : 'a closer look at the plants'}.`, caption: k === 0 ? '' : 'The plants a week after the trim.' });
+					photos.push({
+						id: p.id,
+						alt: `${tank.name} in week ${weekNo}, ${k === 0 ? 'from the front' : 'a closer look at the plants'}.`,
+						caption: k === 0 ? '' : 'The plants a week after the trim.'
+					});
 				}
 			}
 			const entryId = await entries.create(owner, tank.id, { entryOn: on, title: pick(TITLES).replace('{n}', String(weekNo)), body, events }, photos, db, at);

@@ -32,7 +32,8 @@ const FNWL = 'Federal Noxious Weed List, 7 CFR 360.200';
 
 const EU_NOTE = 'A species of Union concern may not be kept, bred, transported, sold, exchanged or released anywhere in the EU (Article 7 of the Regulation).';
 const ENGLAND_NOTE = 'Its sale is banned in England, and under the Act selling includes exchanging (from memory). Never plant or release it in the wild.';
-const US_NOTE = 'A federal noxious weed: moving it into the US or between states needs a permit, and many states ban it outright. Check your state’s list before any swap.';
+const US_NOTE =
+	'A federal noxious weed: moving it into the US or between states needs a permit, and many states ban it outright. Check your state’s list before any swap.';
 
 export interface RestrictedSeed {
 	scientificName: string;
@@ -44,12 +45,22 @@ export interface RestrictedSeed {
 
 export const RESTRICTED: RestrictedSeed[] = [
 	// European Union
-	...['Cabomba caroliniana', 'Eichhornia crassipes', 'Hydrocotyle ranunculoides', 'Lagarosiphon major', 'Ludwigia grandiflora', 'Ludwigia peploides', 'Myriophyllum aquaticum'].map(
-		(scientificName): RestrictedSeed => ({ scientificName, jurisdiction: EU, level: 'banned', source: EU_2016, note: EU_NOTE })
-	),
-	...['Alternanthera philoxeroides', 'Elodea nuttallii', 'Gymnocoronis spilanthoides', 'Myriophyllum heterophyllum'].map(
-		(scientificName): RestrictedSeed => ({ scientificName, jurisdiction: EU, level: 'banned', source: EU_2017, note: EU_NOTE })
-	),
+	...[
+		'Cabomba caroliniana',
+		'Eichhornia crassipes',
+		'Hydrocotyle ranunculoides',
+		'Lagarosiphon major',
+		'Ludwigia grandiflora',
+		'Ludwigia peploides',
+		'Myriophyllum aquaticum'
+	].map((scientificName): RestrictedSeed => ({ scientificName, jurisdiction: EU, level: 'banned', source: EU_2016, note: EU_NOTE })),
+	...['Alternanthera philoxeroides', 'Elodea nuttallii', 'Gymnocoronis spilanthoides', 'Myriophyllum heterophyllum'].map((scientificName): RestrictedSeed => ({
+		scientificName,
+		jurisdiction: EU,
+		level: 'banned',
+		source: EU_2017,
+		note: EU_NOTE
+	})),
 	{ scientificName: 'Salvinia molesta', jurisdiction: EU, level: 'banned', source: EU_2019, note: EU_NOTE },
 	// England
 	...['Azolla filiculoides', 'Crassula helmsii', 'Hydrocotyle ranunculoides', 'Ludwigia grandiflora', 'Myriophyllum aquaticum'].map(
@@ -61,7 +72,14 @@ export const RESTRICTED: RestrictedSeed[] = [
 	)
 ];
 
-const plant = (scientificName: string, commonName: string, placement: SpeciesSeed['placement'], growthHabit: SpeciesSeed['growthHabit'], note: string, otherNames = ''): SpeciesSeed => ({
+const plant = (
+	scientificName: string,
+	commonName: string,
+	placement: SpeciesSeed['placement'],
+	growthHabit: SpeciesSeed['growthHabit'],
+	note: string,
+	otherNames = ''
+): SpeciesSeed => ({
 	kind: 'plant',
 	scientificName,
 	commonName,
@@ -75,8 +93,21 @@ const plant = (scientificName: string, commonName: string, placement: SpeciesSee
 /** Plants the list needs that the catalogue did not have; notes are general keeping facts (from memory). */
 export const RESTRICTED_PLANTS: SpeciesSeed[] = [
 	plant('Cabomba caroliniana', 'Carolina fanwort', 'background', 'stem', 'Fine, fan-shaped leaves; restricted in several places.', 'fanwort'),
-	plant('Eichhornia crassipes', 'common water hyacinth', 'floating', 'floating', 'A large floating plant of ponds; restricted in several places.', 'Pontederia crassipes'),
-	plant('Hydrocotyle ranunculoides', 'floating pennywort', 'floating', 'floating', 'Round leaves on creeping stems that mat over the water; restricted in several places.'),
+	plant(
+		'Eichhornia crassipes',
+		'common water hyacinth',
+		'floating',
+		'floating',
+		'A large floating plant of ponds; restricted in several places.',
+		'Pontederia crassipes'
+	),
+	plant(
+		'Hydrocotyle ranunculoides',
+		'floating pennywort',
+		'floating',
+		'floating',
+		'Round leaves on creeping stems that mat over the water; restricted in several places.'
+	),
 	plant('Lagarosiphon major', 'curly waterweed', 'background', 'stem', 'Stiff, curled leaves on long stems; restricted in several places.'),
 	plant('Ludwigia grandiflora', 'water primrose', 'background', 'stem', 'A marsh plant with yellow flowers; restricted in several places.'),
 	plant('Ludwigia peploides', 'floating primrose-willow', 'background', 'stem', 'Creeps and floats; restricted in several places.'),
@@ -87,7 +118,13 @@ export const RESTRICTED_PLANTS: SpeciesSeed[] = [
 	plant('Myriophyllum heterophyllum', 'broadleaf watermilfoil', 'background', 'stem', 'Feathery whorls on thick stems; restricted in several places.'),
 	plant('Salvinia molesta', 'giant salvinia', 'floating', 'floating', 'A floating fern with hairy, folded leaves; restricted in several places.'),
 	plant('Azolla filiculoides', 'water fern', 'floating', 'floating', 'A tiny floating fern that turns red in sun; restricted in several places.'),
-	plant('Crassula helmsii', 'Australian swamp stonecrop', 'foreground', 'carpeting', 'Small fleshy leaves; regrows from tiny fragments; restricted in several places.'),
+	plant(
+		'Crassula helmsii',
+		'Australian swamp stonecrop',
+		'foreground',
+		'carpeting',
+		'Small fleshy leaves; regrows from tiny fragments; restricted in several places.'
+	),
 	plant('Hydrilla verticillata', 'hydrilla', 'background', 'stem', 'Toothed leaves in whorls; restricted in several places.'),
 	plant('Hygrophila polysperma', 'dwarf hygrophila', 'background', 'stem', 'An easy stem plant whose tips redden in strong light; restricted in some places.'),
 	plant('Limnophila sessiliflora', 'Asian marshweed', 'background', 'stem', 'Finely divided whorls; restricted in some places.'),

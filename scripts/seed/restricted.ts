@@ -12,13 +12,13 @@ import { CHECKED_ON, RESTRICTED, RESTRICTED_PLANTS } from './restricted-data';
 export async function seedRestrictedSpecies(db: DbOrTx): Promise<void> {
 	await db
 		.insert(species)
-		.values(
-			RESTRICTED_PLANTS.map(catalogueRow)
-		)
+		.values(RESTRICTED_PLANTS.map(catalogueRow))
 		// An entry the catalogue already has is left as it is.
 		.onDuplicateKeyUpdate({ set: { scientificName: sql`scientific_name` } });
 	const names = [...new Set(RESTRICTED.map((r) => r.scientificName))];
-	const ids = new Map((await db.select({ id: species.id, name: species.scientificName }).from(species).where(inArray(species.scientificName, names))).map((s) => [s.name, s.id]));
+	const ids = new Map(
+		(await db.select({ id: species.id, name: species.scientificName }).from(species).where(inArray(species.scientificName, names))).map((s) => [s.name, s.id])
+	);
 	await db
 		.insert(restrictedSpecies)
 		.values(

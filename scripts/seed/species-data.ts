@@ -17,7 +17,15 @@ export interface SpeciesSeed {
 	note?: string;
 }
 
-const plant = (scientificName: string, commonName: string, placement: Placement, growthHabit: GrowthHabit, growthSpeed: GrowthSpeed, note = '', otherNames = ''): SpeciesSeed => ({
+const plant = (
+	scientificName: string,
+	commonName: string,
+	placement: Placement,
+	growthHabit: GrowthHabit,
+	growthSpeed: GrowthSpeed,
+	note = '',
+	otherNames = ''
+): SpeciesSeed => ({
 	kind: 'plant',
 	scientificName,
 	commonName,
@@ -28,7 +36,15 @@ const plant = (scientificName: string, commonName: string, placement: Placement,
 	note
 });
 
-const animal = (kind: Exclude<SpeciesKind, 'plant'>, scientificName: string, commonName: string, adultSizeCm: number, temperament: Temperament, note = '', otherNames = ''): SpeciesSeed => ({
+const animal = (
+	kind: Exclude<SpeciesKind, 'plant'>,
+	scientificName: string,
+	commonName: string,
+	adultSizeCm: number,
+	temperament: Temperament,
+	note = '',
+	otherNames = ''
+): SpeciesSeed => ({
 	kind,
 	scientificName,
 	commonName,
@@ -41,38 +57,121 @@ const animal = (kind: Exclude<SpeciesKind, 'plant'>, scientificName: string, com
 export const SPECIES: SpeciesSeed[] = [
 	// Foreground and carpeting plants
 	plant('Hemianthus callitrichoides', 'dwarf baby tears', 'foreground', 'carpeting', 'slow', 'Spreads into a dense carpet under strong light with added CO2.'),
-	plant('Glossostigma elatinoides', 'glossostigma', 'foreground', 'carpeting', 'fast', 'Stays low only under strong light; grows upward when light is weak.', 'mud mat'),
-	plant('Eleocharis acicularis', 'needle spikerush', 'foreground', 'carpeting', 'moderate', 'Spreads by runners into a grassy lawn; trim to keep it short.', 'hairgrass'),
-	plant('Eleocharis parvula', 'dwarf spikerush', 'foreground', 'carpeting', 'moderate', 'Shorter than needle spikerush; spreads by runners.', 'small spikerush'),
-	plant('Eleocharis vivipara', 'viviparous spikerush', 'background', 'rosette', 'moderate', 'Tall, fine stems that bend over and root new plantlets at their tips.'),
+	plant(
+		'Glossostigma elatinoides',
+		'glossostigma',
+		'foreground',
+		'carpeting',
+		'fast',
+		'Stays low only under strong light; grows upward when light is weak.',
+		'mud mat'
+	),
+	plant(
+		'Eleocharis acicularis',
+		'needle spikerush',
+		'foreground',
+		'carpeting',
+		'moderate',
+		'Spreads by runners into a grassy lawn; trim to keep it short.',
+		'hairgrass'
+	),
+	plant(
+		'Eleocharis parvula',
+		'dwarf spikerush',
+		'foreground',
+		'carpeting',
+		'moderate',
+		'Shorter than needle spikerush; spreads by runners.',
+		'small spikerush'
+	),
+	plant(
+		'Eleocharis vivipara',
+		'viviparous spikerush',
+		'background',
+		'rosette',
+		'moderate',
+		'Tall, fine stems that bend over and root new plantlets at their tips.'
+	),
 	plant('Lilaeopsis brasiliensis', 'Brazilian micro sword', 'foreground', 'carpeting', 'slow', 'Slow to settle, then spreads by runners.'),
-	plant('Sagittaria subulata', 'awl-leaf arrowhead', 'foreground', 'rosette', 'moderate', 'Undemanding; spreads by runners and stays short in bright light.', 'dwarf sagittaria'),
-	plant('Helanthium tenellum', 'narrow-leaf chain sword', 'foreground', 'rosette', 'moderate', 'Formerly Echinodorus tenellus; spreads by runners.', 'pygmy chain sword'),
+	plant(
+		'Sagittaria subulata',
+		'awl-leaf arrowhead',
+		'foreground',
+		'rosette',
+		'moderate',
+		'Undemanding; spreads by runners and stays short in bright light.',
+		'dwarf sagittaria'
+	),
+	plant(
+		'Helanthium tenellum',
+		'narrow-leaf chain sword',
+		'foreground',
+		'rosette',
+		'moderate',
+		'Formerly Echinodorus tenellus; spreads by runners.',
+		'pygmy chain sword'
+	),
 	plant('Marsilea hirsuta', 'water clover', 'foreground', 'carpeting', 'slow', 'A fern with clover-like leaves that creeps along the substrate.'),
 	plant('Hydrocotyle verticillata', 'whorled marshpennywort', 'foreground', 'carpeting', 'moderate', 'Round leaves on upright stalks from a creeping stem.'),
 	plant('Hydrocotyle sibthorpioides', 'lawn marshpennywort', 'foreground', 'carpeting', 'fast', 'Creeps over stone and substrate; trims easily.'),
-	plant('Utricularia graminifolia', 'grass-leaved bladderwort', 'foreground', 'carpeting', 'slow', 'Carnivorous: tiny bladders catch microscopic animals. Delicate to plant.'),
+	plant(
+		'Utricularia graminifolia',
+		'grass-leaved bladderwort',
+		'foreground',
+		'carpeting',
+		'slow',
+		'Carnivorous: tiny bladders catch microscopic animals. Delicate to plant.'
+	),
 	plant('Eriocaulon cinereum', 'ashy pipewort', 'foreground', 'rosette', 'slow', 'Prefers soft, slightly acidic water and a nutrient-rich substrate.'),
 	plant('Ranunculus inundatus', 'river buttercup', 'foreground', 'carpeting', 'moderate', 'Finely divided leaves on runners.'),
-	plant('Pilularia globulifera', 'pillwort', 'foreground', 'carpeting', 'slow', 'A small fern with needle leaves; rare in the wild, so only from cultivated stock.'),
+	plant(
+		'Pilularia globulifera',
+		'pillwort',
+		'foreground',
+		'carpeting',
+		'slow',
+		'A small fern with needle leaves; rare in the wild, so only from cultivated stock.'
+	),
 	plant('Elatine hydropiper', 'eight-stamen waterwort', 'foreground', 'carpeting', 'moderate', 'Tiny leaves; a cool-water carpet.'),
 	plant('Micranthemum umbrosum', 'shade mudflower', 'midground', 'stem', 'fast', 'Round leaves; can be trimmed into a low bush.', 'giant baby tears'),
 	// Rosette plants
 	plant('Cryptocoryne parva', 'dwarf water trumpet', 'foreground', 'rosette', 'slow', 'The smallest of the group; very slow to fill in.'),
-	plant('Cryptocoryne wendtii', 'Wendt’s water trumpet', 'midground', 'rosette', 'slow', 'May drop its leaves after a move ("melt") and regrow them from the roots.'),
+	plant(
+		'Cryptocoryne wendtii',
+		'Wendt’s water trumpet',
+		'midground',
+		'rosette',
+		'slow',
+		'May drop its leaves after a move ("melt") and regrow them from the roots.'
+	),
 	plant('Cryptocoryne beckettii', 'Beckett’s water trumpet', 'midground', 'rosette', 'slow', 'Tolerates low light; roots strongly.'),
 	plant('Cryptocoryne undulata', 'wavy water trumpet', 'midground', 'rosette', 'slow', 'Leaves with wavy edges; spreads by runners.'),
 	plant('Cryptocoryne crispatula', 'crinkled water trumpet', 'background', 'rosette', 'slow', 'Long, crinkled, strap-like leaves; needs a deep substrate.'),
 	plant('Echinodorus grisebachii', 'Amazon sword plant', 'midground', 'rosette', 'moderate', 'Grows large; feed its roots with tablets in an inert substrate.'),
 	plant('Echinodorus cordifolius', 'creeping burhead', 'background', 'rosette', 'fast', 'Can send leaves above the surface; cutting them keeps it submerged.'),
-	plant('Vallisneria spiralis', 'straight vallisneria', 'background', 'rosette', 'fast', 'Ribbon leaves that trail at the surface; spreads by runners.', 'tape grass'),
+	plant(
+		'Vallisneria spiralis',
+		'straight vallisneria',
+		'background',
+		'rosette',
+		'fast',
+		'Ribbon leaves that trail at the surface; spreads by runners.',
+		'tape grass'
+	),
 	plant('Vallisneria americana', 'American eelgrass', 'background', 'rosette', 'fast', 'Long ribbons; suits deep tanks.', 'tape grass'),
 	plant('Ceratopteris thalictroides', 'water sprite', 'background', 'rosette', 'fast', 'A fern that grows rooted or floating; plantlets form on the leaves.'),
 	plant('Cyperus helferi', 'Helfer’s sedge', 'midground', 'rosette', 'slow', 'Grass-like tufts; one of the few fully aquatic sedges.'),
 	// Epiphytes, mosses and liverworts
 	plant('Anubias barteri', 'Barter’s anubias', 'epiphyte', 'rhizome', 'slow', 'Keep the rhizome out of the substrate: tie or glue it to wood or stone.'),
 	plant('Anubias barteri var. nana', 'dwarf anubias', 'epiphyte', 'rhizome', 'slow', 'Small and tough; grows in shade.'),
-	plant('Microsorum pteropus', 'Java fern', 'epiphyte', 'rhizome', 'slow', 'Tie to wood or stone; plantlets form on old leaves. Now often placed in Leptochilus.'),
+	plant(
+		'Microsorum pteropus',
+		'Java fern',
+		'epiphyte',
+		'rhizome',
+		'slow',
+		'Tie to wood or stone; plantlets form on old leaves. Now often placed in Leptochilus.'
+	),
 	plant('Bolbitis heudelotii', 'African water fern', 'epiphyte', 'rhizome', 'slow', 'Likes a current; tie the rhizome to wood.'),
 	plant('Taxiphyllum barbieri', 'Java moss', 'epiphyte', 'moss', 'moderate', 'Ties onto almost anything; shelters shrimp and fry.'),
 	plant('Vesicularia montagnei', 'Christmas moss', 'epiphyte', 'moss', 'slow', 'Grows in layered, triangular fronds.'),
@@ -83,8 +182,23 @@ export const SPECIES: SpeciesSeed[] = [
 	plant('Riccardia chamedryfolia', 'mini pellia', 'epiphyte', 'moss', 'slow', 'A liverwort forming dense, coral-like cushions.'),
 	// Floating plants
 	plant('Riccia fluitans', 'crystalwort', 'floating', 'floating', 'fast', 'Floats in mats, or can be held down on stone with a net.'),
-	plant('Phyllanthus fluitans', 'red root floater', 'floating', 'floating', 'moderate', 'Leaves and roots redden in strong light; keep condensation off the leaves.'),
-	plant('Limnobium laevigatum', 'West Indian spongeplant', 'floating', 'floating', 'fast', 'Shades the tank as it spreads; invasive outdoors in some regions.', 'Amazon frogbit'),
+	plant(
+		'Phyllanthus fluitans',
+		'red root floater',
+		'floating',
+		'floating',
+		'moderate',
+		'Leaves and roots redden in strong light; keep condensation off the leaves.'
+	),
+	plant(
+		'Limnobium laevigatum',
+		'West Indian spongeplant',
+		'floating',
+		'floating',
+		'fast',
+		'Shades the tank as it spreads; invasive outdoors in some regions.',
+		'Amazon frogbit'
+	),
 	plant('Lemna minor', 'common duckweed', 'floating', 'floating', 'fast', 'Covers the surface quickly and is hard to remove completely.'),
 	// Stem plants
 	plant('Hygrophila corymbosa', 'giant hygrophila', 'background', 'stem', 'fast', 'Large leaves; a heavy feeder.'),
@@ -152,7 +266,15 @@ export const SPECIES: SpeciesSeed[] = [
 	animal('fish', 'Epalzeorhynchos bicolor', 'red-tailed black shark', 15, 'aggressive', 'Territorial toward its own kind and look-alikes.'),
 	// Shrimp
 	animal('shrimp', 'Neocaridina davidi', 'cherry shrimp', 3, 'peaceful', 'Breeds readily; many colour forms exist.'),
-	animal('shrimp', 'Caridina multidentata', 'Yamato shrimp', 5, 'peaceful', 'A tireless algae grazer; larvae need brackish water, so it rarely breeds in tanks.', 'Japanese swamp shrimp'),
+	animal(
+		'shrimp',
+		'Caridina multidentata',
+		'Yamato shrimp',
+		5,
+		'peaceful',
+		'A tireless algae grazer; larvae need brackish water, so it rarely breeds in tanks.',
+		'Japanese swamp shrimp'
+	),
 	animal('shrimp', 'Caridina cantonensis', 'bee shrimp', 3, 'peaceful', 'Needs soft, stable water.'),
 	animal('shrimp', 'Atyopsis moluccensis', 'bamboo shrimp', 8, 'peaceful', 'Filters food from the current with fan-like hands.', 'wood shrimp'),
 	animal('shrimp', 'Palaemonetes paludosus', 'ghost shrimp', 4, 'semi-aggressive', 'May eat very small shrimp and fry.', 'glass shrimp'),

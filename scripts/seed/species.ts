@@ -21,9 +21,7 @@ export const catalogueRow = (s: SpeciesSeed) => ({
 export async function seedSpecies(db: DbOrTx): Promise<void> {
 	await db
 		.insert(species)
-		.values(
-			SPECIES.map(catalogueRow)
-		)
+		.values(SPECIES.map(catalogueRow))
 		// A catalogue entry a club added by hand under the same name is left as it is.
 		.onDuplicateKeyUpdate({ set: { scientificName: sql`scientific_name` } });
 }

@@ -201,7 +201,15 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 	const at = (daysAgo: number, hours = 0) => new Date(now.getTime() - daysAgo * DAY_MS + hours * HOUR);
 	const [{ lastMail }] = (await db.select({ lastMail: sql<number>`COALESCE(MAX(${outbox.id}), 0)` }).from(outbox)) as [{ lastMail: number }];
 
-	const rows = await db.select().from(users).where(inArray(users.email, DEMO_PEOPLE.map((p) => p.email)));
+	const rows = await db
+		.select()
+		.from(users)
+		.where(
+			inArray(
+				users.email,
+				DEMO_PEOPLE.map((p) => p.email)
+			)
+		);
 	const people = new Map<string, Viewer>();
 	for (const p of DEMO_PEOPLE) {
 		const row = rows.find((r) => r.email === p.email);
@@ -226,12 +234,16 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 	await restricted.setClubJurisdictions(null, [JURISDICTIONS.ENGLAND, CLUB_RULES], db);
 
 	const names = LISTINGS.map((l) => l.speciesName).filter(Boolean);
-	const catalogue = new Map((await db.select({ id: species.id, name: species.scientificName }).from(species).where(inArray(species.scientificName, names))).map((s) => [s.name, s.id]));
+	const catalogue = new Map(
+		(await db.select({ id: species.id, name: species.scientificName }).from(species).where(inArray(species.scientificName, names))).map((s) => [s.name, s.id])
+	);
 	const tankRows = await db.select({ id: tanks.id, name: tanks.name }).from(tanks);
 	const ids = new Map<string, number>();
 	for (const demo of LISTINGS) {
 		const owner = who(demo.owner);
-		const photos = demo.photo ? [{ id: (await storeDemoPhoto(owner.id, demo.photo.seed, db, { width: 1200, height: 900 })).id, alt: demo.photo.alt, caption: '' }] : [];
+		const photos = demo.photo
+			? [{ id: (await storeDemoPhoto(owner.id, demo.photo.seed, db, { width: 1200, height: 900 })).id, alt: demo.photo.alt, caption: '' }]
+			: [];
 		const created = at(demo.daysAgo, -3);
 		const { key, owner: _owner, daysAgo: _daysAgo, daysLeft, tank, photo: _photo, ...input } = demo;
 		const id = await listings.create(
@@ -252,7 +264,12 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 
 	// Two members ask for Mara's rotala; she has not answered yet.
 	const newRequests = [
-		await threads.request(who('dov'), ids.get('rotala')!, 'Hello Mara, could I have about ten stems? I am replanting the back of my nano this weekend.', opts(0, -20)),
+		await threads.request(
+			who('dov'),
+			ids.get('rotala')!,
+			'Hello Mara, could I have about ten stems? I am replanting the back of my nano this weekend.',
+			opts(0, -20)
+		),
 		await threads.request(who('yara'), ids.get('rotala')!, 'I would take the rest if nobody else does. Any evening this week works for me.', opts(0, -6))
 	];
 
@@ -262,27 +279,52 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 	await listings.accept(who('fenna'), shrimp, opts(3, -4));
 	await threads.post(who('fenna'), shrimp, 'They are yours. I will bag them with plenty of air; bring a cool box if you have one.', opts(3, -4));
 	const day = (daysAhead: number) => new Date(now.getTime() + daysAhead * DAY_MS).toISOString().slice(0, 10);
-	const proposal = await threads.propose(who('joss'), shrimp, { on: day(2), from: '17:30', to: '18:30', place: 'the library entrance at Alder Quay' }, 'I will bring a cool box.', opts(2, -9));
+	const proposal = await threads.propose(
+		who('joss'),
+		shrimp,
+		{ on: day(2), from: '17:30', to: '18:30', place: 'the library entrance at Alder Quay' },
+		'I will bring a cool box.',
+		opts(2, -9)
+	);
 	await threads.confirmPickup(who('fenna'), shrimp, proposal, opts(2, -7));
 
 	// Joss's filter went to Mara: request, acceptance, pickup agreed, both confirmed.
-	const filter = await threads.request(who('mara'), ids.get('filter')!, 'Would the filter suit a 54 L tank? I would love it for my quarantine tank.', opts(9, -12));
+	const filter = await threads.request(
+		who('mara'),
+		ids.get('filter')!,
+		'Would the filter suit a 54 L tank? I would love it for my quarantine tank.',
+		opts(9, -12)
+	);
 	await listings.accept(who('joss'), filter, opts(9, -8));
 	const pastDay = new Date(now.getTime() - 7 * DAY_MS).toISOString().slice(0, 10);
-	const filterPickup = await threads.propose(who('joss'), filter, { on: pastDay, from: '10:00', to: '11:00', place: 'the club meeting at Kettlewater Centre hall' }, '', opts(9, -7));
+	const filterPickup = await threads.propose(
+		who('joss'),
+		filter,
+		{ on: pastDay, from: '10:00', to: '11:00', place: 'the club meeting at Kettlewater Centre hall' },
+		'',
+		opts(9, -7)
+	);
 	await threads.confirmPickup(who('mara'), filter, filterPickup, opts(9, -6));
 	await listings.act(who('joss'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 2));
 	await threads.post(who('mara'), filter, 'Running since Saturday, quiet as anything. Thank you!', opts(7, 5));
 	await listings.act(who('mara'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 5));
 
 	// A member asks the admins to look at the regulator: a faulty gas part is a safety matter.
-	await reports.reportListing(who('ines'), ids.get('regulator')!, 'It says it stopped working. Should a faulty CO2 regulator be passed on at all? Someone might use it without a check.', db);
+	await reports.reportListing(
+		who('ines'),
+		ids.get('regulator')!,
+		'It says it stopped working. Should a faulty CO2 regulator be passed on at all? Someone might use it without a check.',
+		db
+	);
 
 	// Ines's crypts passed their date: the expiry is recorded as the job would.
 	await listings.expireDue(now, db);
 
 	// Demo conversations are history: they are read (except Mara's two new requests) and mailed to nobody.
-	await db.update(swapMessages).set({ readAt: now }).where(and(isNull(swapMessages.readAt), notInArray(swapMessages.threadId, newRequests)));
+	await db
+		.update(swapMessages)
+		.set({ readAt: now })
+		.where(and(isNull(swapMessages.readAt), notInArray(swapMessages.threadId, newRequests)));
 	await db.update(swapMessages).set({ notifiedAt: now }).where(isNull(swapMessages.notifiedAt));
 	await db.delete(outbox).where(and(gt(outbox.id, lastMail), like(outbox.topic, 'swap-%')));
 }

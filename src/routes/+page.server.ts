@@ -17,7 +17,11 @@ export const load = (async ({ locals }) => {
 		return { dashboard: null, showcase: cards.slice(0, 3) };
 	}
 	const now = new Date();
-	const [scheduled, mine, followed] = await Promise.all([upkeep.scheduleOf(viewer, now), tanks.listOwn(viewer, { retired: false }), entries.recentFollowed(viewer)]);
+	const [scheduled, mine, followed] = await Promise.all([
+		upkeep.scheduleOf(viewer, now),
+		tanks.listOwn(viewer, { retired: false }),
+		entries.recentFollowed(viewer)
+	]);
 	const withSchedule = new Set(scheduled.map((s) => s.task.tankIdNumber));
 	return {
 		dashboard: {

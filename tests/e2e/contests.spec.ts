@@ -27,7 +27,10 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 	test.setTimeout(240_000);
 	const suffix = crypto.randomUUID().slice(0, 6);
 	const admin = await makePerson({ role: 'admin', displayName: `Contest Admin ${suffix}` });
-	const judges = [await makePerson({ role: 'judge', displayName: `First Judge ${suffix}` }), await makePerson({ role: 'judge', displayName: `Second Judge ${suffix}` })];
+	const judges = [
+		await makePerson({ role: 'judge', displayName: `First Judge ${suffix}` }),
+		await makePerson({ role: 'judge', displayName: `Second Judge ${suffix}` })
+	];
 	const members = [await makePerson({ displayName: `Ada Entrant ${suffix}` }), await makePerson({ displayName: `Bo Entrant ${suffix}` })];
 	for (const m of members) await openTank(m, `${m.displayName}'s tank`);
 	const title = `Browser scapes ${suffix}`;
@@ -63,7 +66,9 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 	await expect(adminPage.getByTestId('step-done')).toBeVisible();
 
 	// Two members enter their tanks.
-	const photo = await sharp({ create: { width: 1200, height: 800, channels: 3, background: '#2f7a58' } }).jpeg().toBuffer();
+	const photo = await sharp({ create: { width: 1200, height: 800, channels: 3, background: '#2f7a58' } })
+		.jpeg()
+		.toBuffer();
 	for (const member of members) {
 		const page = await pageFor(browser, member);
 		await page.goto(`/contests/${contestId}`);

@@ -4,7 +4,10 @@ import { makePerson } from '../helpers/people';
 import { contextFor } from './fixtures';
 
 const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10);
-const photo = (colour: string) => sharp({ create: { width: 1200, height: 800, channels: 3, background: colour } }).jpeg().toBuffer();
+const photo = (colour: string) =>
+	sharp({ create: { width: 1200, height: 800, channels: 3, background: colour } })
+		.jpeg()
+		.toBuffer();
 
 test('a member keeps a journal that shows in the showcase; another admires it and comments', async ({ browser }) => {
 	const keeper = await makePerson({ displayName: 'Journal Keeper' });

@@ -17,7 +17,9 @@ test('a member adds a tank with a cover photo, a catalogue plant and a previewed
 	await page.getByLabel('Height (cm)').fill('36');
 	await page.getByLabel('Glass thickness (mm, optional)').fill('6');
 
-	const photo = await sharp({ create: { width: 1200, height: 800, channels: 3, background: '#2f7a58' } }).jpeg().toBuffer();
+	const photo = await sharp({ create: { width: 1200, height: 800, channels: 3, background: '#2f7a58' } })
+		.jpeg()
+		.toBuffer();
 	await page.locator('input[type=file]').setInputFiles({ name: 'front.jpg', mimeType: 'image/jpeg', buffer: photo });
 	const item = page.getByTestId('photo-item');
 	await expect(item).toHaveCount(1);

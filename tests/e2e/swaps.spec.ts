@@ -26,7 +26,9 @@ test('a swap from posting to handover: photo, radius filter, request, acceptance
 	await picker.press('Enter');
 	await expect(picker).toHaveValue('Rotala rotundifolia');
 	await ownerPage.getByLabel('How many').fill('12');
-	const photo = await sharp({ create: { width: 1000, height: 750, channels: 3, background: '#4f9470' } }).jpeg().toBuffer();
+	const photo = await sharp({ create: { width: 1000, height: 750, channels: 3, background: '#4f9470' } })
+		.jpeg()
+		.toBuffer();
 	await ownerPage.locator('input[type=file]').setInputFiles({ name: 'tops.jpg', mimeType: 'image/jpeg', buffer: photo });
 	await ownerPage.getByTestId('photo-item').getByLabel('Description for people who cannot see the photo').fill('A bunch of green stems');
 	await expect(ownerPage.locator('input[type=hidden][name="photos[0][id]"]')).toHaveCount(1, { timeout: 15_000 });

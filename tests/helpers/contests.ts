@@ -45,7 +45,9 @@ export function contestInput(overrides: Partial<ContestInput> = {}): ContestInpu
 }
 
 export async function photoOf(owner: TestPerson, colour = '#2f7a58') {
-	const jpeg = await sharp({ create: { width: 320, height: 200, channels: 3, background: colour } }).jpeg().toBuffer();
+	const jpeg = await sharp({ create: { width: 320, height: 200, channels: 3, background: colour } })
+		.jpeg()
+		.toBuffer();
 	return media.upload(owner.id, jpeg);
 }
 
@@ -74,13 +76,21 @@ export interface Fixture {
  * A contest with a panel and one entry in "Open" per entrant, left open for entries or moved on
  * to judging. An entrant may be a judge too (a self-entry).
  */
-export async function contestFixture(options: { judges?: number; entrants?: TestPerson[]; state?: 'open' | 'judging'; input?: Partial<ContestInput>; entrantNames?: string[] } = {}): Promise<Fixture> {
+export async function contestFixture(
+	options: { judges?: number; entrants?: TestPerson[]; state?: 'open' | 'judging'; input?: Partial<ContestInput>; entrantNames?: string[] } = {}
+): Promise<Fixture> {
 	const admin = await makePerson({ role: 'admin', label: 'contest-admin' });
-	const judges = await Promise.all(Array.from({ length: options.judges ?? 3 }, (_, i) => makePerson({ role: 'judge', label: `judge${i}`, displayName: `Judge Panelist ${i} ${crypto.randomUUID().slice(0, 4)}` })));
+	const judges = await Promise.all(
+		Array.from({ length: options.judges ?? 3 }, (_, i) =>
+			makePerson({ role: 'judge', label: `judge${i}`, displayName: `Judge Panelist ${i} ${crypto.randomUUID().slice(0, 4)}` })
+		)
+	);
 	const entrants =
 		options.entrants ??
 		(await Promise.all(
-			(options.entrantNames ?? ['Entrant Alpha', 'Entrant Beta', 'Entrant Gamma']).map((n) => makePerson({ label: 'entrant', displayName: `${n} ${crypto.randomUUID().slice(0, 4)}` }))
+			(options.entrantNames ?? ['Entrant Alpha', 'Entrant Beta', 'Entrant Gamma']).map((n) =>
+				makePerson({ label: 'entrant', displayName: `${n} ${crypto.randomUUID().slice(0, 4)}` })
+			)
 		));
 	const contestId = await contests.create(viewerOf(admin), contestInput(options.input));
 	for (const j of judges) await judging.assign(viewerOf(admin), contestId, j.id);
@@ -127,13 +137,21 @@ export function fields(criteria: string[], scores: (number | null)[], extra: Par
 }
 
 /** Every judge saves a card for every entry they owe, and submits it when every score is given. */
-export async function scoreAll(f: Fixture, scoresFor: (judgeIndex: number, entryIndex: number) => (number | null)[], extra: (j: number, e: number) => Partial<CardFields> = () => ({})) {
+export async function scoreAll(
+	f: Fixture,
+	scoresFor: (judgeIndex: number, entryIndex: number) => (number | null)[],
+	extra: (j: number, e: number) => Partial<CardFields> = () => ({})
+) {
 	for (const [j, judge] of f.judges.entries()) {
 		for (const [e, entry] of f.entries.entries()) {
 			if (entry.entrant.id === judge.id) continue;
 			const scores = scoresFor(j, e);
 			try {
-				const saved = await judging.saveCard(viewerOf(judge), f.contestId, entry.number!, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, scores, extra(j, e)) });
+				const saved = await judging.saveCard(viewerOf(judge), f.contestId, entry.number!, {
+					baseVersion: 0,
+					saveId: crypto.randomUUID(),
+					fields: fields(f.criteria, scores, extra(j, e))
+				});
 				// A card with a score missing stays a draft.
 				if (scores.every((s) => s !== null)) await judging.submitCard(viewerOf(judge), f.contestId, entry.number!, saved.version);
 			} catch (error) {
@@ -145,7 +163,10 @@ export async function scoreAll(f: Fixture, scoresFor: (judgeIndex: number, entry
 }
 
 export async function cardIdOf(entryId: number, judgeId: string): Promise<number> {
-	const [row] = await db.select({ id: contestCards.id }).from(contestCards).where(and(eq(contestCards.entryId, entryId), eq(contestCards.judgeId, judgeId)));
+	const [row] = await db
+		.select({ id: contestCards.id })
+		.from(contestCards)
+		.where(and(eq(contestCards.entryId, entryId), eq(contestCards.judgeId, judgeId)));
 	if (!row) throw new Error(`No card of ${judgeId} for entry ${entryId}.`);
 	return row.id;
 }

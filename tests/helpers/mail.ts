@@ -16,10 +16,7 @@ export async function mailsTo(address: string, baseUrl = mailApiUrl()): Promise<
 }
 
 /** Waits for a message to an address (optionally matching a subject), as the outbox delivers within seconds. */
-export async function waitForMail(
-	address: string,
-	options: { subject?: RegExp; timeoutMs?: number; baseUrl?: string } = {}
-): Promise<FakeMail> {
+export async function waitForMail(address: string, options: { subject?: RegExp; timeoutMs?: number; baseUrl?: string } = {}): Promise<FakeMail> {
 	const deadline = Date.now() + (options.timeoutMs ?? 15_000);
 	while (Date.now() < deadline) {
 		const found = (await mailsTo(address, options.baseUrl)).find((m) => !options.subject || options.subject.test(m.subject));

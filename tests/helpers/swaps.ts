@@ -16,7 +16,10 @@ import { makePerson, type TestPerson } from './people';
 export const viewerOf = (p: TestPerson): Viewer => ({ id: p.id, email: p.email, displayName: p.displayName, role: p.role, units: 'metric' });
 
 export async function placePerson(person: TestPerson, point: LatLng | null, notify: 'each' | 'hourly' | 'off' = 'hourly'): Promise<void> {
-	await db.update(users).set({ homeLat: point?.lat ?? null, homeLng: point?.lng ?? null, homeAreaId: null, notifyMessages: notify }).where(eq(users.id, person.id));
+	await db
+		.update(users)
+		.set({ homeLat: point?.lat ?? null, homeLng: point?.lng ?? null, homeAreaId: null, notifyMessages: notify })
+		.where(eq(users.id, person.id));
 }
 
 /** A member living at `point` (rounded points only: give two decimals). */
@@ -54,7 +57,15 @@ export async function restrictedPlant(level: 'banned' | 'cautioned') {
 	const name = `Testaria ${token(level)}`;
 	const [result] = await db.insert(species).values({ kind: 'plant', scientificName: name, commonName: `${level} test weed ${randomBytes(2).toString('hex')}` });
 	const jurisdiction = `Test land ${token('j')}`;
-	await restricted.add(null, { speciesId: result.insertId, jurisdiction, level, source: 'Test land weed order', note: 'Keep it out of ponds.', checkedOn: '2026-11-30', checkBasis: 'source' });
+	await restricted.add(null, {
+		speciesId: result.insertId,
+		jurisdiction,
+		level,
+		source: 'Test land weed order',
+		note: 'Keep it out of ponds.',
+		checkedOn: '2026-11-30',
+		checkBasis: 'source'
+	});
 	// Other tests may add theirs at the same time: add to what is there, never replace it.
 	await restricted.setClubJurisdictions(null, [...(await restricted.clubJurisdictions()), jurisdiction]);
 	return { speciesId: result.insertId, name, jurisdiction };

@@ -21,7 +21,8 @@ import { waitForMail } from '../helpers/mail';
 import { contestFixture, fields, openTank, photoOf, scoreAll, smallTank, viewerOf } from '../helpers/contests';
 
 const api = (contestId: number, number: number | null, tail = '') => `/api/judging/${contestId}/${number}/card${tail}`;
-const save = (cookie: string, contestId: number, number: number | null, body: unknown) => request(api(contestId, number), { cookie, method: 'PUT', json: body, accept: 'application/json' });
+const save = (cookie: string, contestId: number, number: number | null, body: unknown) =>
+	request(api(contestId, number), { cookie, method: 'PUT', json: body, accept: 'application/json' });
 
 describe('judges never reach their own entries or conflicted ones', () => {
 	test('a judge who entered a tank cannot load, save or see the page for it; a conflict removes them from an entry', async () => {
@@ -48,19 +49,31 @@ describe('judges never reach their own entries or conflicted ones', () => {
 		expect(list).toContain(`href="/judging/${f.contestId}/${theirs.number}"`);
 
 		// A draft, then a declared conflict: the draft goes, and so does access.
-		expect((await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, null]) })).status).toBe(200);
+		expect(
+			(await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, null]) })).status
+		).toBe(200);
 		const photo = (await entries.getOwn(viewerOf(other), theirs.entryId))!.entry.photos[0]!;
 		expect((await request(photo.urls.thumb, { cookie, accept: 'image/webp' })).status).toBe(200);
 		const declared = await request(`/judging/${f.contestId}/${theirs.number}?/conflict`, { cookie, form: { reason: 'I know this tank', confirm: 'yes' } });
 		expect(declared.status).toBe(303);
-		expect(await db.select().from(contestCards).where(and(eq(contestCards.entryId, theirs.entryId), eq(contestCards.judgeId, judgeWhoEnters.id)))).toHaveLength(0);
+		expect(
+			await db
+				.select()
+				.from(contestCards)
+				.where(and(eq(contestCards.entryId, theirs.entryId), eq(contestCards.judgeId, judgeWhoEnters.id)))
+		).toHaveLength(0);
 		expect((await request(api(f.contestId, theirs.number), { cookie, accept: 'application/json' })).status).toBe(404);
-		expect((await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, 3]) })).status).toBe(404);
+		expect((await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, 3]) })).status).toBe(
+			404
+		);
 		expect((await request(`/judging/${f.contestId}/${theirs.number}`, { cookie })).status).toBe(404);
 		expect((await request(photo.urls.thumb, { cookie, accept: 'image/webp' })).status).toBe(404);
 		// Another judge still sees the photo; the conflict is in the log.
 		expect((await request(photo.urls.thumb, { cookie: f.judges[0]!.cookie, accept: 'image/webp' })).status).toBe(200);
-		const log = await db.select().from(auditLog).where(and(eq(auditLog.subjectId, String(f.contestId)), eq(auditLog.action, 'judge.conflict')));
+		const log = await db
+			.select()
+			.from(auditLog)
+			.where(and(eq(auditLog.subjectId, String(f.contestId)), eq(auditLog.action, 'judge.conflict')));
 		expect(log).toHaveLength(1);
 	});
 });
@@ -97,7 +110,11 @@ describe('blind judging', () => {
 		const f = await contestFixture({ judges: 2 });
 		const [a, b] = f.judges as [Awaited<ReturnType<typeof makePerson>>, Awaited<ReturnType<typeof makePerson>>];
 		const number = f.entries[0]!.number;
-		await save(a.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [9.5, 4.5], { panelNote: 'Note-from-A-for-the-panel', entrantComment: 'Comment-from-A' }) });
+		await save(a.cookie, f.contestId, number, {
+			baseVersion: 0,
+			saveId: crypto.randomUUID(),
+			fields: fields(f.criteria, [9.5, 4.5], { panelNote: 'Note-from-A-for-the-panel', entrantComment: 'Comment-from-A' })
+		});
 		const seenByB = await (await request(api(f.contestId, number), { cookie: b.cookie, accept: 'application/json' })).json();
 		expect(seenByB.version).toBe(0);
 		const pageForB = await (await request(`/judging/${f.contestId}/${number}`, { cookie: b.cookie })).text();
@@ -117,7 +134,9 @@ describe('members and judging', () => {
 		const get = await request(api(f.contestId, number), { cookie: member.cookie, accept: 'application/json' });
 		expect(get.status).toBe(403);
 		expect(get.headers.get('content-type')).toContain('application/json');
-		expect((await save(member.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) })).status).toBe(403);
+		expect((await save(member.cookie, f.contestId, number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) })).status).toBe(
+			403
+		);
 		expect((await request(api(f.contestId, number, '/submit'), { cookie: member.cookie, json: { version: 1 }, accept: 'application/json' })).status).toBe(403);
 		expect((await request(api(f.contestId, number, '/reopen'), { cookie: member.cookie, json: {}, accept: 'application/json' })).status).toBe(403);
 		expect((await request(`/judging/${f.contestId}/${number}?/conflict`, { cookie: member.cookie, form: { reason: 'xyz', confirm: 'yes' } })).status).toBe(403);
@@ -190,7 +209,11 @@ describe('autosave versions', () => {
 		expect((await (await save(judge.cookie, f.contestId, number, first)).json()).version).toBe(1);
 		expect((await (await save(judge.cookie, f.contestId, number, newer)).json()).version).toBe(2);
 		// A save another tab based on version 1, arriving late:
-		const stale = await save(judge.cookie, f.contestId, number, { baseVersion: 1, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 0], { entrantComment: 'stale' }) });
+		const stale = await save(judge.cookie, f.contestId, number, {
+			baseVersion: 1,
+			saveId: crypto.randomUUID(),
+			fields: fields(f.criteria, [1, 0], { entrantComment: 'stale' })
+		});
 		expect(stale.status).toBe(409);
 		expect((await stale.json()).current.fields.entrantComment).toBe('newer');
 		// The first request, retried by a flaky network after the newer one landed:
@@ -241,14 +264,25 @@ describe('publication', () => {
 		expect((await contests.load(f.contestId))!.state).toBe('judging');
 		await expect(transition(viewerOf(f.admin), f.contestId, 'publish', { overrideReason: 'short' })).rejects.toBeInstanceOf(ContestError);
 
-		const published = await request(`/admin/contests/${f.contestId}/results?/step`, { cookie: f.admin.cookie, form: { ...form, reason: 'The second judge is ill and cannot finish.' } });
+		const published = await request(`/admin/contests/${f.contestId}/results?/step`, {
+			cookie: f.admin.cookie,
+			form: { ...form, reason: 'The second judge is ill and cannot finish.' }
+		});
 		expect(published.status).toBe(303);
 		expect((await contests.load(f.contestId))!.state).toBe('published');
-		const [entry] = await db.select().from(auditLog).where(and(eq(auditLog.subjectId, String(f.contestId)), eq(auditLog.action, 'contest.publish')));
-		expect(entry!.detail).toMatchObject({ overrideReason: 'The second judge is ill and cannot finish.', missing: [{ number: f.entries[2]!.number, state: 'draft' }] });
+		const [entry] = await db
+			.select()
+			.from(auditLog)
+			.where(and(eq(auditLog.subjectId, String(f.contestId)), eq(auditLog.action, 'contest.publish')));
+		expect(entry!.detail).toMatchObject({
+			overrideReason: 'The second judge is ill and cannot finish.',
+			missing: [{ number: f.entries[2]!.number, state: 'draft' }]
+		});
 		// Locked: no judge can save or reopen any more.
 		const judge = f.judges[0]!;
-		expect((await save(judge.cookie, f.contestId, f.entries[0]!.number, { baseVersion: 2, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) })).status).toBe(404);
+		expect(
+			(await save(judge.cookie, f.contestId, f.entries[0]!.number, { baseVersion: 2, saveId: crypto.randomUUID(), fields: fields(f.criteria, [1, 1]) })).status
+		).toBe(404);
 		expect((await request(api(f.contestId, f.entries[0]!.number, '/reopen'), { cookie: judge.cookie, json: {}, accept: 'application/json' })).status).toBe(404);
 	});
 
@@ -298,7 +332,10 @@ describe('publication', () => {
 		await scoreAll(f, (_, e) => [5 + e, 2]);
 		await transition(viewerOf(f.admin), f.contestId, 'publish');
 		const [card] = await db.select().from(contestCards).where(eq(contestCards.entryId, f.entries[0]!.entryId));
-		const short = await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, { cookie: f.admin.cookie, form: { [`score-${f.criteria[0]}`]: '10', [`score-${f.criteria[1]}`]: '5', reason: 'typo' } });
+		const short = await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, {
+			cookie: f.admin.cookie,
+			form: { [`score-${f.criteria[0]}`]: '10', [`score-${f.criteria[1]}`]: '5', reason: 'typo' }
+		});
 		expect(short.status).toBe(400);
 		const fixed = await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, {
 			cookie: f.admin.cookie,
@@ -310,7 +347,9 @@ describe('publication', () => {
 		expect(results.contest.resultsRevision).toBe(1);
 		expect(await (await request(`/contests/${f.contestId}`)).text()).toContain('The judge reported a slip on entry one.');
 		// A member cannot correct anything.
-		expect((await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, { cookie: f.entries[1]!.entrant.cookie, form: { reason: 'x' } })).status).toBe(403);
+		expect((await request(`/admin/contests/${f.contestId}/cards/${card!.id}`, { cookie: f.entries[1]!.entrant.cookie, form: { reason: 'x' } })).status).toBe(
+			403
+		);
 	});
 });
 
@@ -323,12 +362,24 @@ describe('entries', () => {
 		const small = f.categories[0]!;
 		const response = await request(`/contests/${f.contestId}/enter`, {
 			cookie: member.cookie,
-			form: { categoryId: String(small), tankId: String(big), statement: 'A big tank', 'photos[0][id]': String(photo.id), 'photos[0][alt]': 'Front', 'photos[0][caption]': '' }
+			form: {
+				categoryId: String(small),
+				tankId: String(big),
+				statement: 'A big tank',
+				'photos[0][id]': String(photo.id),
+				'photos[0][alt]': 'Front',
+				'photos[0][caption]': ''
+			}
 		});
 		expect(response.status).toBe(400);
 		expect(await response.text()).toMatch(/this category takes at most 40 L/);
 		// The same tank fits "Open"; a second entry is over the limit of one.
-		await entries.create(viewerOf(member), f.contestId, { categoryId: f.categories[1]!, tankId: big, statement: 'A big tank', photos: [{ id: photo.id, alt: 'Front', caption: '' }] });
+		await entries.create(viewerOf(member), f.contestId, {
+			categoryId: f.categories[1]!,
+			tankId: big,
+			statement: 'A big tank',
+			photos: [{ id: photo.id, alt: 'Front', caption: '' }]
+		});
 		const tiny = await smallTank(member, 'Tiny one');
 		const second = await photoOf(member);
 		await expect(
@@ -344,7 +395,10 @@ describe('entries', () => {
 		expect((await request(photo.urls.thumb, { cookie: f.admin.cookie, accept: 'image/webp' })).status).toBe(200);
 		expect((await request(photo.urls.thumb, { cookie: f.judges[0]!.cookie, accept: 'image/webp' })).status).toBe(404); // not judging yet
 		expect((await request(photo.urls.thumb, { accept: 'image/webp' })).status).toBe(404);
-		const withdrawn = await request(`/contests/${f.contestId}/entries/${entry.entryId}?/withdraw`, { cookie: entry.entrant.cookie, form: { confirm: 'withdraw' } });
+		const withdrawn = await request(`/contests/${f.contestId}/entries/${entry.entryId}?/withdraw`, {
+			cookie: entry.entrant.cookie,
+			form: { confirm: 'withdraw' }
+		});
 		expect(withdrawn.status).toBe(303);
 		expect((await request(photo.urls.thumb, { cookie: entry.entrant.cookie, accept: 'image/webp' })).status).toBe(404);
 		expect(await entries.listOwn(viewerOf(entry.entrant), f.contestId)).toEqual([]);
@@ -358,7 +412,11 @@ describe('announcement', () => {
 		await transition(viewerOf(f.admin), f.contestId, 'publish');
 		const first = await request(`/admin/contests/${f.contestId}/announce?/send`, { cookie: f.admin.cookie, form: { confirm: 'yes' } });
 		expect(first.status).toBe(303);
-		const rows = () => db.select().from(outbox).where(like(outbox.topic, `contest:${f.contestId}:results:%`));
+		const rows = () =>
+			db
+				.select()
+				.from(outbox)
+				.where(like(outbox.topic, `contest:${f.contestId}:results:%`));
 		const count = (await rows()).length;
 		expect(count).toBeGreaterThan(f.entries.length);
 		// A double click, or a second admin: nothing new.
@@ -380,7 +438,9 @@ describe('announcement', () => {
 		const delivered = await waitForMail(winner.email, { subject: /^Results: /, timeoutMs: 90_000 });
 		expect(delivered.headers['list-unsubscribe']).toMatch(/\/unsubscribe\/[0-9a-f]{32}\?kind=announcements/);
 
-		const status = await (await request(`/admin/contests/${f.contestId}/announce?address=${encodeURIComponent(winner.email)}`, { cookie: f.admin.cookie })).text();
+		const status = await (
+			await request(`/admin/contests/${f.contestId}/announce?address=${encodeURIComponent(winner.email)}`, { cookie: f.admin.cookie })
+		).text();
 		expect(status).toContain(winner.email);
 		expect(status).toContain('Personal result');
 	});
@@ -389,7 +449,11 @@ describe('announcement', () => {
 describe('export', () => {
 	test('results and cards as CSV with a byte-order mark, for admins only', async () => {
 		const f = await contestFixture({ judges: 2, entrantNames: ['Comma, Entrant', 'Quote "Entrant"', '=Formula'] });
-		await scoreAll(f, (j, e) => [5 + e + j, 3], (j) => ({ entrantComment: j === 0 ? 'Line one\nline two' : '' }));
+		await scoreAll(
+			f,
+			(j, e) => [5 + e + j, 3],
+			(j) => ({ entrantComment: j === 0 ? 'Line one\nline two' : '' })
+		);
 		const response = await request(`/admin/contests/${f.contestId}/export/cards`, { cookie: f.admin.cookie, accept: 'text/csv' });
 		expect(response.status).toBe(200);
 		expect(response.headers.get('content-type')).toBe('text/csv; charset=utf-8');
@@ -405,7 +469,9 @@ describe('export', () => {
 		expect(names.filter((n) => n.startsWith("'=Formula "))).toHaveLength(2); // made inert for spreadsheets
 		expect(rows.slice(1).some((r) => r.includes('Line one\nline two'))).toBe(true);
 
-		const results = parse(await (await request(`/admin/contests/${f.contestId}/export/results`, { cookie: f.admin.cookie })).text(), { bom: true }) as string[][];
+		const results = parse(await (await request(`/admin/contests/${f.contestId}/export/results`, { cookie: f.admin.cookie })).text(), {
+			bom: true
+		}) as string[][];
 		expect(results).toHaveLength(1 + 3);
 		expect((await request(`/admin/contests/${f.contestId}/export/results`, { cookie: f.judges[0]!.cookie })).status).toBe(403);
 	});
@@ -419,7 +485,11 @@ describe('reminders', () => {
 		afterEntries.setUTCDate(afterEntries.getUTCDate() + 1);
 		await sendDueReminders(afterEntries);
 		await sendDueReminders(afterEntries);
-		const reminders = () => db.select().from(outbox).where(eq(outbox.topic, `contest:${f.contestId}:reminder`));
+		const reminders = () =>
+			db
+				.select()
+				.from(outbox)
+				.where(eq(outbox.topic, `contest:${f.contestId}:reminder`));
 		const adminMails = (await reminders()).filter((r) => r.toAddress === f.admin.email);
 		expect(adminMails).toHaveLength(1);
 		expect(adminMails[0]!.subject).toMatch(/have closed/);
@@ -440,7 +510,10 @@ describe('reminders', () => {
 		const sent = await request(`/admin/contests/${f.contestId}/judging?/remind`, { cookie: f.admin.cookie, form: {} });
 		expect(sent.status).toBe(200);
 		await request(`/admin/contests/${f.contestId}/judging?/remind`, { cookie: f.admin.cookie, form: {} });
-		const nudges = await db.select().from(outbox).where(eq(outbox.topic, `contest:${f.contestId}:nudge`));
+		const nudges = await db
+			.select()
+			.from(outbox)
+			.where(eq(outbox.topic, `contest:${f.contestId}:nudge`));
 		expect(nudges.map((n) => n.toAddress)).toEqual([f.judges[1]!.email]);
 	});
 });

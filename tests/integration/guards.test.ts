@@ -13,7 +13,6 @@ import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 import * as judging from '../../src/lib/server/contests/judging';
 import { cardIdOf, contestFixture, fields, viewerOf as contestViewer, type Fixture } from '../helpers/contests';
 
-
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
 interface Row {
 	method?: 'GET' | 'POST' | 'PUT' | 'DELETE';
@@ -60,7 +59,12 @@ const rows: Row[] = [
 		form: () => ({ userId: target.id, role: 'member' }),
 		expect: adminOnly(200)
 	},
-	{ method: 'POST', path: '/account?/profile', form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', notifyMessages: 'hourly', homeLat: '', homeLng: '' }), expect: signedIn(200) },
+	{
+		method: 'POST',
+		path: '/account?/profile',
+		form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', notifyMessages: 'hourly', homeLat: '', homeLng: '' }),
+		expect: signedIn(200)
+	},
 	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals', expect: signedIn(200) },
 	{ path: '/journals/new', expect: signedIn(200) },
@@ -89,14 +93,24 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/journals/:tank/entries/new', form: () => ({ entryOn: '2026-02-01', body: 'Taken over' }), expect: notOwner },
 	{ path: '/journals/:tank/entries/:entry', expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
 	{ method: 'POST', path: '/journals/:tank/entries/:entry?/comment', form: () => ({ comment: 'Looks good.' }), expect: signedIn(200) },
-	{ method: 'POST', path: '/journals/:tank/entries/:entry?/removeComment', form: () => ({ commentId: String(targetComment) }), expect: { anonymous: 303, member: 404, judge: 404, admin: 200 } },
+	{
+		method: 'POST',
+		path: '/journals/:tank/entries/:entry?/removeComment',
+		form: () => ({ commentId: String(targetComment) }),
+		expect: { anonymous: 303, member: 404, judge: 404, admin: 200 }
+	},
 	{ method: 'POST', path: '/journals/:tank/entries/:entry?/delete', form: () => ({}), expect: notOwner },
 	{ path: '/journals/:tank/entries/:entry/edit', expect: notOwner },
 	{ method: 'POST', path: '/journals/:tank/entries/:entry/edit', form: () => ({ entryOn: '2026-02-01', body: 'Taken over' }), expect: notOwner },
 	{ path: '/journals/:tank/water-tests/new', expect: notOwner },
 	{ method: 'POST', path: '/journals/:tank/water-tests/new', form: () => ({ testedOn: '2026-02-01', ph: '7' }), expect: notOwner },
 	{ path: '/journals/:tank/schedule', expect: notOwner },
-	{ method: 'POST', path: '/journals/:tank/schedule', form: () => ({ 'tasks[0][kind]': 'other', 'tasks[0][label]': 'Taken over', 'tasks[0][intervalDays]': '3' }), expect: notOwner },
+	{
+		method: 'POST',
+		path: '/journals/:tank/schedule',
+		form: () => ({ 'tasks[0][kind]': 'other', 'tasks[0][label]': 'Taken over', 'tasks[0][intervalDays]': '3' }),
+		expect: notOwner
+	},
 	// The swap board. `:listing` is an open listing of target's; `:thread` a conversation about it
 	// between target and another member, which does not exist for anyone else, signed out included.
 	{ path: '/swaps', expect: signedIn(200) },
@@ -114,9 +128,12 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/swaps/:listing?/request', form: () => ({ body: '' }), expect: signedIn(400) },
 	{ method: 'POST', path: '/swaps/:listing?/report', form: () => ({ reason: 'no' }), expect: signedIn(400) },
 	{ path: '/swaps/threads/:thread', expect: hidden },
-	...['send', 'propose', 'confirmPickup', 'accept', 'release', 'handover', 'block', 'unblock', 'report'].map(
-		(action): Row => ({ method: 'POST', path: `/swaps/threads/:thread?/${action}`, form: () => ({ body: 'hello' }), expect: hidden })
-	),
+	...['send', 'propose', 'confirmPickup', 'accept', 'release', 'handover', 'block', 'unblock', 'report'].map((action): Row => ({
+		method: 'POST',
+		path: `/swaps/threads/:thread?/${action}`,
+		form: () => ({ body: 'hello' }),
+		expect: hidden
+	})),
 	{ path: '/api/swaps/listings', api: true, expect: apiSignedIn(200) },
 	{ path: '/api/swaps/threads/:thread/messages', api: true, expect: hidden },
 	{ path: '/members/:member', expect: signedIn(200) },
@@ -188,7 +205,11 @@ beforeAll(async () => {
 	const asker = await makePerson({ label: 'guard-asker' });
 	targetThread = await threads.request(viewerOf(asker), targetListing, 'A guarded question');
 	contest = await contestFixture({ judges: 1, entrants: [target] });
-	await judging.saveCard(contestViewer(contest.judges[0]!), contest.contestId, contest.entries[0]!.number!, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(contest.criteria, [5, null]) });
+	await judging.saveCard(contestViewer(contest.judges[0]!), contest.contestId, contest.entries[0]!.number!, {
+		baseVersion: 0,
+		saveId: crypto.randomUUID(),
+		fields: fields(contest.criteria, [5, null])
+	});
 	cardId = await cardIdOf(contest.entries[0]!.entryId, contest.judges[0]!.id);
 });
 

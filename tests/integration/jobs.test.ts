@@ -22,9 +22,7 @@ describe('periodic jobs', () => {
 			}
 		};
 		const now = new Date();
-		const results = await Promise.all(
-			['a', 'b', 'c', 'd'].map((worker) => runDueJobs([job], { now, worker, db: scratch.db }))
-		);
+		const results = await Promise.all(['a', 'b', 'c', 'd'].map((worker) => runDueJobs([job], { now, worker, db: scratch.db })));
 		expect(runs).toBe(1);
 		expect(results.flat()).toEqual(['count-runs']);
 

@@ -27,7 +27,10 @@ import { tankInput } from '../helpers/tanks';
 const viewerOf = (p: TestPerson): Viewer => ({ id: p.id, email: p.email, displayName: p.displayName, role: p.role, units: 'metric' });
 const today = () => new Date().toISOString().slice(0, 10);
 const daysAgo = (n: number) => isoDay(dayNumber(new Date()) - n);
-const jpeg = (colour = '#2f7a58') => sharp({ create: { width: 480, height: 320, channels: 3, background: colour } }).jpeg().toBuffer();
+const jpeg = (colour = '#2f7a58') =>
+	sharp({ create: { width: 480, height: 320, channels: 3, background: colour } })
+		.jpeg()
+		.toBuffer();
 
 async function upload(person: TestPerson, colour?: string): Promise<number> {
 	const response = await uploadFile(person, await jpeg(colour));
@@ -51,8 +54,28 @@ beforeAll(async () => {
 async function journalTank(visibility: 'public' | 'club' | 'private') {
 	const tankId = await tanks.create(viewerOf(owner), tankInput({ name: `Journal ${visibility}`, visibility, setUpOn: daysAgo(60) }));
 	const photoId = await upload(owner);
-	const entryId = await entries.create(viewerOf(owner), tankId, { entryOn: daysAgo(3), title: `Entry of the ${visibility} tank`, body: 'Trimmed the *stems*.', ...noEvents }, [{ id: photoId, alt: 'Stems after the trim', caption: '' }]);
-	await water.create(viewerOf(owner), tankId, { testedOn: daysAgo(3), ph: 6.8, kh: 4, gh: 8, no3: 15, po4: 1, k: null, fe: null, ammonia: 0, ammoniaBasis: 'NH3', no2: 0, temperatureC: 25, tds: null, note: '' });
+	const entryId = await entries.create(
+		viewerOf(owner),
+		tankId,
+		{ entryOn: daysAgo(3), title: `Entry of the ${visibility} tank`, body: 'Trimmed the *stems*.', ...noEvents },
+		[{ id: photoId, alt: 'Stems after the trim', caption: '' }]
+	);
+	await water.create(viewerOf(owner), tankId, {
+		testedOn: daysAgo(3),
+		ph: 6.8,
+		kh: 4,
+		gh: 8,
+		no3: 15,
+		po4: 1,
+		k: null,
+		fe: null,
+		ammonia: 0,
+		ammoniaBasis: 'NH3',
+		no2: 0,
+		temperatureC: 25,
+		tds: null,
+		note: ''
+	});
 	return { tankId, entryId, photoId };
 }
 
@@ -63,7 +86,12 @@ describe('who may see a journal', () => {
 		['public', { owner: 200, member: 200, admin: 200, anonymous: 200 }, 200]
 	] as const)('a %s tank: its page, entries, entry photos and water-test data follow it; its feed is %s', async (visibility, expected, feedStatus) => {
 		const { tankId, entryId, photoId } = await journalTank(visibility);
-		for (const [who, person] of [['owner', owner], ['member', member], ['admin', admin], ['anonymous', null]] as const) {
+		for (const [who, person] of [
+			['owner', owner],
+			['member', member],
+			['admin', admin],
+			['anonymous', null]
+		] as const) {
 			const cookie = person?.cookie;
 			const entryPage = await request(`/journals/${tankId}/entries/${entryId}`, { cookie });
 			expect(entryPage.status, `${who}: entry page`).toBe(expected[who]);
@@ -72,7 +100,17 @@ describe('who may see a journal', () => {
 			expect((await request(`/media/${photoId}/thumb`, { cookie, accept: 'image/webp' })).status, `${who}: entry photo`).toBe(expected[who]);
 			const api = await request(`/api/tanks/${tankId}/water-tests`, { cookie, accept: 'application/json' });
 			expect(api.status, `${who}: water-test data`).toBe(expected[who]);
-			if (expected[who] === 200) expect((await api.json()).series.map((s: { parameter: string }) => s.parameter)).toEqual(['pH', 'KH', 'GH', 'NO3', 'PO4', 'ammonia', 'NO2', 'temperature']);
+			if (expected[who] === 200)
+				expect((await api.json()).series.map((s: { parameter: string }) => s.parameter)).toEqual([
+					'pH',
+					'KH',
+					'GH',
+					'NO3',
+					'PO4',
+					'ammonia',
+					'NO2',
+					'temperature'
+				]);
 			else expect(await api.json()).toEqual({ message: 'We could not find that tank.' });
 			expect((await request(`/journals/${tankId}/feed.xml`, { cookie, accept: 'application/atom+xml' })).status, `${who}: feed`).toBe(feedStatus);
 		}
@@ -130,7 +168,10 @@ describe('entries through the form', () => {
 
 	test('errors keep what was typed; a day before set-up is refused', async () => {
 		const tankId = await tanks.create(viewerOf(owner), tankInput({ name: 'Typo tank', setUpOn: daysAgo(10) }));
-		const response = await request(`/journals/${tankId}/entries/new`, { cookie: owner.cookie, form: { entryOn: daysAgo(20), title: 'Kept title', body: 'x', 'events[0][kind]': 'water-change', 'events[0][percent]': 'lots' } });
+		const response = await request(`/journals/${tankId}/entries/new`, {
+			cookie: owner.cookie,
+			form: { entryOn: daysAgo(20), title: 'Kept title', body: 'x', 'events[0][kind]': 'water-change', 'events[0][percent]': 'lots' }
+		});
 		expect(response.status).toBe(400);
 		const html = await response.text();
 		expect(html).toContain('value="Kept title"');
@@ -142,7 +183,12 @@ describe('entries through the form', () => {
 		const keeper = viewerOf(owner);
 		const tankId = await tanks.create(
 			keeper,
-			tankInput({ name: 'List tank', setUpOn: daysAgo(30), plants: [{ speciesId: null, name: 'Old stems', placement: null, addedOn: daysAgo(30), removedOn: null }], livestock: [{ speciesId: null, name: 'Shrimp', count: 10, addedOn: daysAgo(20), removedOn: null }] })
+			tankInput({
+				name: 'List tank',
+				setUpOn: daysAgo(30),
+				plants: [{ speciesId: null, name: 'Old stems', placement: null, addedOn: daysAgo(30), removedOn: null }],
+				livestock: [{ speciesId: null, name: 'Shrimp', count: 10, addedOn: daysAgo(20), removedOn: null }]
+			})
 		);
 		const tank = (await tanks.getOwn(keeper, tankId))!;
 		const response = await request(`/journals/${tankId}/entries/new`, {
@@ -172,7 +218,13 @@ describe('entries through the form', () => {
 		// Taking out more than are listed is refused and changes nothing.
 		const refused = await request(`/journals/${tankId}/entries/new`, {
 			cookie: owner.cookie,
-			form: { entryOn: daysAgo(1), body: 'x', 'events[0][kind]': 'livestock-removed', 'events[0][rowId]': String(tank.livestock[0]!.id), 'events[0][count]': '9' }
+			form: {
+				entryOn: daysAgo(1),
+				body: 'x',
+				'events[0][kind]': 'livestock-removed',
+				'events[0][rowId]': String(tank.livestock[0]!.id),
+				'events[0][count]': '9'
+			}
 		});
 		expect(refused.status).toBe(400);
 		expect(await refused.text()).toContain('The list has 6; take out at most that many.');
@@ -185,8 +237,16 @@ describe('entries through the form', () => {
 		await upkeep.saveSchedule(keeper, tankId, [{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 }]);
 		await entries.create(keeper, tankId, { entryOn: daysAgo(9), title: '', body: 'Older change', events: [waterChange(30)] }, []);
 		const photos = [await upload(owner), await upload(owner)];
-		const entryId = await entries.create(keeper, tankId, { entryOn: daysAgo(2), title: 'To delete', body: 'x', events: [waterChange(50)] }, photos.map((id) => ({ id, alt: '', caption: '' })));
-		const rows = await db.select().from(mediaTable).where(and(eq(mediaTable.scope, 'entry'), eq(mediaTable.scopeId, entryId)));
+		const entryId = await entries.create(
+			keeper,
+			tankId,
+			{ entryOn: daysAgo(2), title: 'To delete', body: 'x', events: [waterChange(50)] },
+			photos.map((id) => ({ id, alt: '', caption: '' }))
+		);
+		const rows = await db
+			.select()
+			.from(mediaTable)
+			.where(and(eq(mediaTable.scope, 'entry'), eq(mediaTable.scopeId, entryId)));
 		const keys = rows.map((r) => r.storageKey);
 		expect(keys).toHaveLength(2);
 		for (const key of keys) expect(await bucketKeys(key + '/')).toHaveLength(3);
@@ -205,7 +265,10 @@ describe('entries through the form', () => {
 		const tankId = await tanks.create(keeper, tankInput({ name: 'Gone tank', setUpOn: daysAgo(30) }));
 		const photoId = await upload(owner);
 		const entryId = await entries.create(keeper, tankId, { entryOn: daysAgo(2), title: '', body: 'x', ...noEvents }, [{ id: photoId, alt: '', caption: '' }]);
-		const [row] = await db.select().from(mediaTable).where(and(eq(mediaTable.scope, 'entry'), eq(mediaTable.scopeId, entryId)));
+		const [row] = await db
+			.select()
+			.from(mediaTable)
+			.where(and(eq(mediaTable.scope, 'entry'), eq(mediaTable.scopeId, entryId)));
 		expect(await bucketKeys(row!.storageKey + '/')).toHaveLength(3);
 		const response = await request(`/journals/${tankId}?/delete`, { cookie: owner.cookie, form: { confirmName: 'Gone tank' } });
 		expect(response.status).toBe(303);
@@ -213,13 +276,30 @@ describe('entries through the form', () => {
 	});
 });
 
-const waterChange = (percent: number) => ({ kind: 'water-change' as const, percent, filterPart: null, what: '', amount: null, amountUnit: null, saltId: null, speciesId: null, speciesName: '', count: null, algaeKind: null, note: '', rowId: null });
+const waterChange = (percent: number) => ({
+	kind: 'water-change' as const,
+	percent,
+	filterPart: null,
+	what: '',
+	amount: null,
+	amountUnit: null,
+	saltId: null,
+	speciesId: null,
+	speciesName: '',
+	count: null,
+	algaeKind: null,
+	note: '',
+	rowId: null
+});
 
 describe('comments', () => {
 	test('members comment; the keeper and admins remove comments, other members cannot', async () => {
 		const { tankId, entryId } = await journalTank('club');
 		const other = await makePerson({ label: 'commenter-2' });
-		const posted = await request(`/journals/${tankId}/entries/${entryId}?/comment`, { cookie: member.cookie, form: { comment: 'Lovely **carpet** <img src=x onerror=alert(1)>' } });
+		const posted = await request(`/journals/${tankId}/entries/${entryId}?/comment`, {
+			cookie: member.cookie,
+			form: { comment: 'Lovely **carpet** <img src=x onerror=alert(1)>' }
+		});
 		expect(posted.status).toBe(200);
 		const [comment] = await entries.comments(viewerOf(member), (await tanks.findVisible(viewerOf(member), tankId))!, entryId);
 		expect(comment!.html).toContain('<strong>carpet</strong>');
@@ -239,7 +319,10 @@ describe('water tests', () => {
 		const us = await makePerson({ label: 'water-us' });
 		await db.update(users).set({ units: 'us' }).where(eq(users.id, us.id));
 		const tankId = await tanks.create(viewerOf(us), tankInput({ name: 'Test tank US', setUpOn: daysAgo(20) }));
-		const response = await request(`/journals/${tankId}/water-tests/new`, { cookie: us.cookie, form: { testedOn: daysAgo(1), ph: '7.8', kh: '4', temperatureC: '82.4', ammonia: '1', ammoniaBasis: 'NH3', no2: '0.5', note: '' } });
+		const response = await request(`/journals/${tankId}/water-tests/new`, {
+			cookie: us.cookie,
+			form: { testedOn: daysAgo(1), ph: '7.8', kh: '4', temperatureC: '82.4', ammonia: '1', ammoniaBasis: 'NH3', no2: '0.5', note: '' }
+		});
 		expect(response.status).toBe(303);
 		const [stored] = await water.latestOf(tankId);
 		// (82.4 − 32) × 5/9 = 28 °C.
@@ -262,7 +345,15 @@ describe('upkeep schedule', () => {
 		const tankId = await tanks.create(viewerOf(keeper), tankInput({ name: 'Schedule tank', setUpOn: daysAgo(50) }));
 		const saved = await request(`/journals/${tankId}/schedule`, {
 			cookie: keeper.cookie,
-			form: { 'tasks[0][kind]': 'water-change', 'tasks[0][label]': 'Big water change', 'tasks[0][intervalDays]': '7', 'tasks[1][kind]': 'filter-clean', 'tasks[1][filterPart]': 'prefilter', 'tasks[1][label]': 'Rinse the sponge', 'tasks[1][intervalDays]': '14' }
+			form: {
+				'tasks[0][kind]': 'water-change',
+				'tasks[0][label]': 'Big water change',
+				'tasks[0][intervalDays]': '7',
+				'tasks[1][kind]': 'filter-clean',
+				'tasks[1][filterPart]': 'prefilter',
+				'tasks[1][label]': 'Rinse the sponge',
+				'tasks[1][intervalDays]': '14'
+			}
 		});
 		expect(saved.status).toBe(303);
 		await entries.create(viewerOf(keeper), tankId, { entryOn: daysAgo(10), title: '', body: 'x', events: [waterChange(30)] }, []);
@@ -310,8 +401,13 @@ describe('following', () => {
 		const later = new Date(Date.now() + 25 * 60 * 60_000);
 		const tank = (await tanks.findVisible(viewerOf(keeper), tankId))!;
 		expect(await db.transaction((tx) => social.notifyFollowers(tx, tank, { id: 1, title: 'Next day', entryOn: today() }, later))).toBe(1);
-		expect(await db.transaction((tx) => social.notifyFollowers(tx, tank, { id: 2, title: 'Same next day', entryOn: today() }, new Date(later.getTime() + 60_000)))).toBe(0);
-		const [row] = await db.select().from(tankFollows).where(and(eq(tankFollows.tankId, tankId), eq(tankFollows.userId, fan.id)));
+		expect(
+			await db.transaction((tx) => social.notifyFollowers(tx, tank, { id: 2, title: 'Same next day', entryOn: today() }, new Date(later.getTime() + 60_000)))
+		).toBe(0);
+		const [row] = await db
+			.select()
+			.from(tankFollows)
+			.where(and(eq(tankFollows.tankId, tankId), eq(tankFollows.userId, fan.id)));
 		expect(row!.lastMailedAt!.getTime()).toBe(later.getTime());
 	});
 
@@ -333,7 +429,10 @@ describe('admiring and the showcase', () => {
 		const keeper = await makePerson({ label: 'showcase-keeper' });
 		const style = `style-${keeper.id.slice(0, 8)}`;
 		const big = await tanks.create(viewerOf(keeper), tankInput({ name: 'Big public', style, visibility: 'public', lengthCm: 150, widthCm: 50, heightCm: 60 }));
-		const small = await tanks.create(viewerOf(keeper), tankInput({ name: 'Small public', style, visibility: 'public', lengthCm: 30, widthCm: 20, heightCm: 20 }));
+		const small = await tanks.create(
+			viewerOf(keeper),
+			tankInput({ name: 'Small public', style, visibility: 'public', lengthCm: 30, widthCm: 20, heightCm: 20 })
+		);
 		await tanks.create(viewerOf(keeper), tankInput({ name: 'Club only', style, visibility: 'club' }));
 		for (let i = 0; i < 2; i++) await request(`/journals/${small}?/admire`, { cookie: member.cookie, form: { want: 'on' } });
 		expect((await social.standingOf(null, small)).admirers).toBe(1);
@@ -360,7 +459,12 @@ describe('the Atom feed', () => {
 		const keeper = await makePerson({ label: 'feed-keeper', displayName: 'Feed & <Keeper>' });
 		const tankId = await tanks.create(viewerOf(keeper), tankInput({ name: 'Feed "tank" & co', visibility: 'public', setUpOn: daysAgo(30) }));
 		const photoId = await upload(keeper);
-		await entries.create(viewerOf(keeper), tankId, { entryOn: daysAgo(2), title: 'Rocks <b>&</b> roots', body: 'Text with <script>alert(1)</script> and [a link](javascript:alert(1)).', ...noEvents }, [{ id: photoId, alt: 'Front "view"', caption: '' }]);
+		await entries.create(
+			viewerOf(keeper),
+			tankId,
+			{ entryOn: daysAgo(2), title: 'Rocks <b>&</b> roots', body: 'Text with <script>alert(1)</script> and [a link](javascript:alert(1)).', ...noEvents },
+			[{ id: photoId, alt: 'Front "view"', caption: '' }]
+		);
 		const response = await request(`/journals/${tankId}/feed.xml`, { accept: 'application/atom+xml' });
 		expect(response.status).toBe(200);
 		expect(response.headers.get('content-type')).toContain('application/atom+xml');
@@ -385,7 +489,12 @@ describe('the weekly digest', () => {
 			{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 },
 			{ kind: 'trim', filterPart: null, label: 'Trim the stems', intervalDays: 30 }
 		]);
-		await entries.create(viewerOf(reader), tankId, { entryOn: daysAgo(10), title: '', body: 'x', events: [waterChange(40), { ...waterChange(0), kind: 'trim', percent: null }] }, []);
+		await entries.create(
+			viewerOf(reader),
+			tankId,
+			{ entryOn: daysAgo(10), title: '', body: 'x', events: [waterChange(40), { ...waterChange(0), kind: 'trim', percent: null }] },
+			[]
+		);
 		const keeper = await makePerson({ label: 'digest-keeper' });
 		const followedTank = await tanks.create(viewerOf(keeper), tankInput({ name: 'Followed for digest', visibility: 'club', setUpOn: daysAgo(60) }));
 		await social.toggleFollow(viewerOf(reader), followedTank, true);

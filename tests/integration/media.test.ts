@@ -16,7 +16,9 @@ import { tankInput } from '../helpers/tanks';
 const viewerOf = (p: TestPerson): Viewer => ({ id: p.id, email: p.email, displayName: p.displayName, role: p.role, units: 'metric' });
 
 async function jpeg(width = 640, height = 480, colour = '#2f7a58') {
-	return sharp({ create: { width, height, channels: 3, background: colour } }).jpeg({ quality: 80 }).toBuffer();
+	return sharp({ create: { width, height, channels: 3, background: colour } })
+		.jpeg({ quality: 80 })
+		.toBuffer();
 }
 
 async function expectNothingStored(person: TestPerson) {
@@ -102,7 +104,9 @@ describe('stored renditions', () => {
 	test('carry no EXIF (GPS included), XMP or IPTC, and are turned upright', async () => {
 		// A 400 × 200 picture with a red block at its top-left, tagged "rotate 90° clockwise to view"
 		// (orientation 6) and carrying GPS coordinates and XMP, as a phone camera writes them.
-		const red = await sharp({ create: { width: 80, height: 80, channels: 3, background: '#ff0000' } }).png().toBuffer();
+		const red = await sharp({ create: { width: 80, height: 80, channels: 3, background: '#ff0000' } })
+			.png()
+			.toBuffer();
 		const source = await sharp({ create: { width: 400, height: 200, channels: 3, background: '#33aa77' } })
 			.composite([{ input: red, left: 0, top: 0 }])
 			.jpeg()
@@ -111,7 +115,9 @@ describe('stored renditions', () => {
 				IFD0: { ImageDescription: 'reedholme tank', Copyright: 'test' },
 				IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '55/1 12/1 30/1', GPSLongitudeRef: 'E', GPSLongitude: '3/1 15/1 0/1' }
 			})
-			.withXmp('<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:dc="http://purl.org/dc/elements/1.1/"><dc:creator>someone</dc:creator></rdf:Description></rdf:RDF></x:xmpmeta>')
+			.withXmp(
+				'<x:xmpmeta xmlns:x="adobe:ns:meta/"><rdf:RDF xmlns:rdf="http://www.w3.org/1999/02/22-rdf-syntax-ns#"><rdf:Description xmlns:dc="http://purl.org/dc/elements/1.1/"><dc:creator>someone</dc:creator></rdf:Description></rdf:RDF></x:xmpmeta>'
+			)
 			.toBuffer();
 		const before = await sharp(source).metadata();
 		expect(before.orientation).toBe(6);
@@ -216,7 +222,11 @@ describe('who may see a photo', () => {
 		const { id } = await uploaded(owner);
 		const tankId = await tanks.create(viewerOf(owner), tankInput({ visibility, name: `${visibility} cover tank` }), [{ id, alt: 'Front view', caption: '' }]);
 		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual([id]);
-		for (const [who, person] of [['owner', owner], ['other', other], ['anonymous', null]] as const) {
+		for (const [who, person] of [
+			['owner', owner],
+			['other', other],
+			['anonymous', null]
+		] as const) {
 			const response = await fetchAs(`/media/${id}/medium`, person);
 			expect(response.status, `${who} fetching a ${visibility} tank's photo`).toBe(expected[who]);
 			if (response.status === 200) expect(response.headers.get('cache-control')).toMatch(new RegExp(`^${caching},`));
@@ -274,7 +284,15 @@ describe('removing photos removes their objects', () => {
 		const tankId = await tanks.create(viewerOf(person), tankInput());
 		const ids: number[] = [];
 		for (let i = 0; i < 3; i++) ids.push((await (await uploadFile(person, await jpeg(200 + i * 10, 150))).json()).id);
-		await db.transaction((tx) => media.attach(tx, person.id, 'tank', tankId, ids.map((id) => ({ id, alt: `photo ${id}`, caption: '' }))));
+		await db.transaction((tx) =>
+			media.attach(
+				tx,
+				person.id,
+				'tank',
+				tankId,
+				ids.map((id) => ({ id, alt: `photo ${id}`, caption: '' }))
+			)
+		);
 		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual(ids);
 		await db.transaction((tx) => media.reorder(tx, 'tank', tankId, [ids[2]!, ids[0]!, ids[1]!]));
 		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual([ids[2], ids[0], ids[1]]);
@@ -283,7 +301,9 @@ describe('removing photos removes their objects', () => {
 		expect(await db.transaction((tx) => media.updateText(tx, 'tank', tankId + 1, ids[0]!, { alt: 'x', caption: 'x' }))).toBe(false);
 		expect((await media.listFor('tank', tankId)).find((p) => p.id === ids[0])).toMatchObject({ alt: 'Left side', caption: 'Week two' });
 		// Attaching the same upload again is refused: it is no longer pending.
-		await expect(db.transaction((tx) => media.attach(tx, person.id, 'tank', tankId, [{ id: ids[0]!, alt: '', caption: '' }]))).rejects.toThrow(/no longer available/);
+		await expect(db.transaction((tx) => media.attach(tx, person.id, 'tank', tankId, [{ id: ids[0]!, alt: '', caption: '' }]))).rejects.toThrow(
+			/no longer available/
+		);
 		const keys = await db.transaction((tx) => media.detach(tx, 'tank', tankId, [ids[1]!]));
 		expect(keys).toHaveLength(3);
 		expect(await bucketKeys(keys[0]!)).toHaveLength(1);

@@ -37,7 +37,12 @@ describe('outbox delivery', () => {
 	test('two workers running at the same time deliver every queued message exactly once', async () => {
 		const fake = await startMailFake({ smtpPort: await freePort(), httpPort: await freePort() });
 		const addresses = Array.from({ length: 24 }, (_, i) => `parallel-${i}@tests.riparia.test`);
-		await scratch.db.transaction((tx) => enqueue(tx, addresses.map((a) => mail(a))));
+		await scratch.db.transaction((tx) =>
+			enqueue(
+				tx,
+				addresses.map((a) => mail(a))
+			)
+		);
 
 		const transportA = smtpTransport(`smtp://127.0.0.1:${fake.smtpPort}`);
 		const transportB = smtpTransport(`smtp://127.0.0.1:${fake.smtpPort}`);
@@ -50,7 +55,15 @@ describe('outbox delivery', () => {
 		expect(received.sort()).toEqual([...addresses].sort());
 		const rows = await scratch.db.select().from(outbox).where(inArray(outbox.toAddress, addresses));
 		expect(rows.every((r) => r.state === 'sent' && r.attempts === 1)).toBe(true);
-		const attempts = await scratch.db.select().from(outboxAttempts).where(inArray(outboxAttempts.outboxId, rows.map((r) => r.id)));
+		const attempts = await scratch.db
+			.select()
+			.from(outboxAttempts)
+			.where(
+				inArray(
+					outboxAttempts.outboxId,
+					rows.map((r) => r.id)
+				)
+			);
 		expect(attempts).toHaveLength(addresses.length);
 		await fake.close();
 	});
@@ -97,7 +110,7 @@ describe('outbox delivery', () => {
 		await fake.close();
 	});
 
-	test('one person\'s mail queued after a club-wide announcement goes out first', async () => {
+	test("one person's mail queued after a club-wide announcement goes out first", async () => {
 		const fake = await startMailFake({ smtpPort: await freePort(), httpPort: await freePort() });
 		const bulk = Array.from({ length: 6 }, (_, i) => mail(`bulk-${i}@tests.riparia.test`, { bulk: true }));
 		await enqueue(scratch.db, bulk);

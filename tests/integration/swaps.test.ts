@@ -39,7 +39,8 @@ async function mailsOnceThere(address: string, n: number, timeoutMs = 15_000) {
 function gridAround(centre: LatLng, latSteps: number, lngSteps: number): LatLng[] {
 	const points: LatLng[] = [];
 	for (let i = -latSteps; i <= latSteps; i++) {
-		for (let j = -lngSteps; j <= lngSteps; j++) points.push({ lat: Math.round((centre.lat + i / 100) * 100) / 100, lng: Math.round((centre.lng + j / 100) * 100) / 100 });
+		for (let j = -lngSteps; j <= lngSteps; j++)
+			points.push({ lat: Math.round((centre.lat + i / 100) * 100) / 100, lng: Math.round((centre.lng + j / 100) * 100) / 100 });
 	}
 	return points;
 }
@@ -82,7 +83,10 @@ describe('swap board: nearby search', () => {
 
 		// The SQL distance is the haversine figure to well under a millimetre.
 		for (const [name, spot] of Object.entries({ inside, outside })) {
-			const [row] = await db.select({ d: board.distanceSql(centre) }).from(listingTable).where(eq(listingTable.id, made[name]!));
+			const [row] = await db
+				.select({ d: board.distanceSql(centre) })
+				.from(listingTable)
+				.where(eq(listingTable.id, made[name]!));
 			expect(Math.abs(Number(row!.d) - spot.d)).toBeLessThan(1e-4);
 		}
 
@@ -137,13 +141,21 @@ describe('swap conversations: who may read them', () => {
 		expect(threadPath).toMatch(/^\/swaps\/threads\/\d+$/);
 		const threadId = Number(threadPath.split('/').pop());
 
-		for (const [who, person] of [['owner', owner], ['asker', asker]] as const) {
+		for (const [who, person] of [
+			['owner', owner],
+			['asker', asker]
+		] as const) {
 			const page = await request(threadPath, { cookie: person.cookie });
 			expect(page.status, who).toBe(200);
 			expect(await page.text()).toContain('Secret pickup details');
 			expect((await request(`/api/swaps/threads/${threadId}/messages`, { cookie: person.cookie, accept: 'application/json' })).status, who).toBe(200);
 		}
-		for (const [who, person] of [['third member', third], ['judge', judge], ['admin', admin], ['anonymous', null]] as const) {
+		for (const [who, person] of [
+			['third member', third],
+			['judge', judge],
+			['admin', admin],
+			['anonymous', null]
+		] as const) {
 			const page = await request(threadPath, { cookie: person?.cookie });
 			expect(page.status, `${who} page`).toBe(404);
 			expect(await page.text()).not.toContain('Secret pickup details');
@@ -176,7 +188,22 @@ describe('swap restricted species', () => {
 	test('a banned species is refused with the reason, picked from the catalogue or typed', async () => {
 		const owner = await memberAt({ lat: -36.2, lng: -12.4 }, 'banned-owner');
 		const banned = await restrictedPlant('banned');
-		const form = { kind: 'offer', category: 'plants', title: 'Weed cuttings', speciesId: String(banned.speciesId), speciesName: banned.name, amount: '5', unit: 'stems', terms: 'free', termsNote: '', pickupAreaId: '', availableUntil: new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10), condition: '', description: '', tankId: '' };
+		const form = {
+			kind: 'offer',
+			category: 'plants',
+			title: 'Weed cuttings',
+			speciesId: String(banned.speciesId),
+			speciesName: banned.name,
+			amount: '5',
+			unit: 'stems',
+			terms: 'free',
+			termsNote: '',
+			pickupAreaId: '',
+			availableUntil: new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10),
+			condition: '',
+			description: '',
+			tankId: ''
+		};
 		const response = await request('/swaps/new', { cookie: owner.cookie, form });
 		expect(response.status).toBe(400);
 		const html = await response.text();
@@ -186,7 +213,10 @@ describe('swap restricted species', () => {
 		const typed = await request('/swaps/new', { cookie: owner.cookie, form: { ...form, speciesId: '', speciesName: banned.name.toUpperCase() } });
 		expect(typed.status).toBe(400);
 		await expect(createListing(owner, { speciesName: banned.name, kind: 'wanted' })).rejects.toMatchObject({ code: 'banned', status: 400 });
-		const [count] = await db.select({ n: sql<number>`COUNT(*)` }).from(listingTable).where(eq(listingTable.ownerId, owner.id));
+		const [count] = await db
+			.select({ n: sql<number>`COUNT(*)` })
+			.from(listingTable)
+			.where(eq(listingTable.ownerId, owner.id));
 		expect(Number(count!.n)).toBe(0);
 	});
 
@@ -265,7 +295,10 @@ describe('swap requests: accepting one', () => {
 			const mail = await waitForMail(o.email, { subject: /About your request for “Popular stems”/ });
 			expect(mail.text).toContain('Thank you for asking');
 			expect(mail.text).toContain('has accepted another request this time');
-			const queued = await db.select().from(outbox).where(and(eq(outbox.toAddress, o.email), eq(outbox.topic, `swap-listing:${id}`)));
+			const queued = await db
+				.select()
+				.from(outbox)
+				.where(and(eq(outbox.toAddress, o.email), eq(outbox.topic, `swap-listing:${id}`)));
 			expect(queued).toHaveLength(1);
 			// Their conversation is closed now.
 			const view = await threads.get(viewerOf(o), otherThreads[i]!);

@@ -26,9 +26,13 @@ beforeAll(async () => {
 });
 
 async function tankWithCover(visibility: 'public' | 'club' | 'private') {
-	const jpeg = await sharp({ create: { width: 400, height: 300, channels: 3, background: '#2f7a58' } }).jpeg().toBuffer();
+	const jpeg = await sharp({ create: { width: 400, height: 300, channels: 3, background: '#2f7a58' } })
+		.jpeg()
+		.toBuffer();
 	const { id: photoId } = await (await uploadFile(owner, jpeg)).json();
-	const id = await tanks.create(viewerOf(owner), tankInput({ name: `Visibility ${visibility} ${photoId}`, visibility }), [{ id: photoId, alt: 'Front', caption: '' }]);
+	const id = await tanks.create(viewerOf(owner), tankInput({ name: `Visibility ${visibility} ${photoId}`, visibility }), [
+		{ id: photoId, alt: 'Front', caption: '' }
+	]);
 	return { id, photoId };
 }
 
@@ -39,7 +43,12 @@ describe('who may see a tank and its photos', () => {
 		['public', { owner: 200, member: 200, admin: 200, anonymous: 200 }]
 	] as const)('a %s tank', async (visibility, expected) => {
 		const { id, photoId } = await tankWithCover(visibility);
-		for (const [who, person] of [['owner', owner], ['member', member], ['admin', admin], ['anonymous', null]] as const) {
+		for (const [who, person] of [
+			['owner', owner],
+			['member', member],
+			['admin', admin],
+			['anonymous', null]
+		] as const) {
 			const pageResponse = await request(`/journals/${id}`, { cookie: person?.cookie });
 			expect(pageResponse.status, `${who} opening a ${visibility} tank`).toBe(expected[who]);
 			const body = await pageResponse.text();
@@ -88,7 +97,10 @@ describe('the tank form', () => {
 		const [rotala] = await catalogue.search('Rotala rotundifolia', { kind: 'plant' });
 		expect(rotala).toBeDefined();
 
-		const refused = await request('/journals/new', { cookie: us.cookie, form: { name: 'Corner tank', length: '24', width: 'wide', height: '', 'lights[0][label]': 'Bar', 'lights[0][watts]': '', 'lights[0][hours]': '7' } });
+		const refused = await request('/journals/new', {
+			cookie: us.cookie,
+			form: { name: 'Corner tank', length: '24', width: 'wide', height: '', 'lights[0][label]': 'Bar', 'lights[0][watts]': '', 'lights[0][hours]': '7' }
+		});
 		expect(refused.status).toBe(400);
 		const html = await refused.text();
 		expect(html).toContain('value="Corner tank"');
@@ -135,7 +147,15 @@ describe('the tank form', () => {
 		const id = Number(created.headers.get('location')!.split('/').pop());
 		const tank = (await tanks.getOwn(viewerOf(us, 'us'), id))!;
 		// 1 in = 2.54 cm exactly (international inch).
-		expect(tank).toMatchObject({ lengthCm: 60.96, widthCm: 30.48, heightCm: 40.64, glassMm: 6.35, substrateDepthCm: 5.08, style: 'jungle', visibility: 'club' });
+		expect(tank).toMatchObject({
+			lengthCm: 60.96,
+			widthCm: 30.48,
+			heightCm: 40.64,
+			glassMm: 6.35,
+			substrateDepthCm: 5.08,
+			style: 'jungle',
+			visibility: 'club'
+		});
 		expect(tank.filters[0]).toMatchObject({ ratedFlow: 100, flowUnit: 'usgph' });
 		expect(tank.plants[0]).toMatchObject({ speciesId: rotala!.id, name: 'Rotala rotundifolia', placement: 'background', commonName: 'roundleaf toothcup' });
 		expect(tank.livestock[0]).toMatchObject({ speciesId: null, name: 'Snails from a friend', count: 3 });
@@ -149,7 +169,15 @@ describe('the tank form', () => {
 		const lightId = tank.lights[0]!.id;
 		const edited = await request(`/journals/${id}/edit`, {
 			cookie: us.cookie,
-			form: { ...form, 'lights[0][id]': String(lightId), 'lights[0][watts]': '30', 'lights[1][id]': '', 'lights[1][label]': 'Moon', 'lights[1][watts]': '2', 'lights[1][hours]': '2' }
+			form: {
+				...form,
+				'lights[0][id]': String(lightId),
+				'lights[0][watts]': '30',
+				'lights[1][id]': '',
+				'lights[1][label]': 'Moon',
+				'lights[1][watts]': '2',
+				'lights[1][hours]': '2'
+			}
 		});
 		expect(edited.status).toBe(303);
 		const lights = await db.select().from(tankLights).where(eq(tankLights.tankId, id));
@@ -161,7 +189,10 @@ describe('the tank form', () => {
 
 	test('retiring keeps the tank and everything on it; it can run again', async () => {
 		const viewer = viewerOf(owner);
-		const id = await tanks.create(viewer, tankInput({ name: 'To retire', plants: [{ speciesId: null, name: 'Moss', placement: 'epiphyte', addedOn: '2026-01-16', removedOn: null }] }));
+		const id = await tanks.create(
+			viewer,
+			tankInput({ name: 'To retire', plants: [{ speciesId: null, name: 'Moss', placement: 'epiphyte', addedOn: '2026-01-16', removedOn: null }] })
+		);
 		const retired = await request(`/journals/${id}?/retire`, { cookie: owner.cookie, form: { retiredOn: '2026-02-01', retiredNote: 'Moved house' } });
 		expect(retired.status).toBe(303);
 		const [row] = await db.select().from(tankTable).where(eq(tankTable.id, id));
@@ -212,7 +243,11 @@ describe('species and markdown endpoints', () => {
 	});
 
 	test('the preview endpoint renders with the same sanitiser', async () => {
-		const response = await request('/api/markdown/preview', { cookie: member.cookie, accept: 'application/json', json: { text: '# Hi\n\n<script>alert(1)</script>\n\n[x](javascript:alert(1))' } });
+		const response = await request('/api/markdown/preview', {
+			cookie: member.cookie,
+			accept: 'application/json',
+			json: { text: '# Hi\n\n<script>alert(1)</script>\n\n[x](javascript:alert(1))' }
+		});
 		expect(response.status).toBe(200);
 		const { html } = await response.json();
 		expect(html).toContain('<h2>Hi</h2>');

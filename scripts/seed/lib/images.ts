@@ -47,18 +47,26 @@ export function aquariumSvg(seed: number, width = 1600, height = 1000): string {
 		const tall = between(height * 0.35, height * 0.62);
 		const colour = rnd() < 0.2 ? pick(REDS) : pick(GREENS);
 		const sway = between(-40, 40);
-		parts.push(`<path d="M${x.toFixed(1)} ${base.toFixed(1)} Q${(x + sway).toFixed(1)} ${(base - tall / 2).toFixed(1)} ${(x + sway / 2).toFixed(1)} ${(base - tall).toFixed(1)}" stroke="${colour}" stroke-width="4" fill="none"/>`);
+		parts.push(
+			`<path d="M${x.toFixed(1)} ${base.toFixed(1)} Q${(x + sway).toFixed(1)} ${(base - tall / 2).toFixed(1)} ${(x + sway / 2).toFixed(1)} ${(base - tall).toFixed(1)}" stroke="${colour}" stroke-width="4" fill="none"/>`
+		);
 		for (let y = base - 20; y > base - tall; y -= between(18, 30)) {
 			const t = (base - y) / tall;
 			const cx = x + sway * t * (1 - t) * 2 + (sway / 2) * t * t;
 			const leaf = between(14, 26);
-			parts.push(`<ellipse cx="${(cx - leaf / 2).toFixed(1)}" cy="${y.toFixed(1)}" rx="${leaf.toFixed(1)}" ry="5" fill="${colour}" transform="rotate(-25 ${(cx - leaf / 2).toFixed(1)} ${y.toFixed(1)})"/>`);
-			parts.push(`<ellipse cx="${(cx + leaf / 2).toFixed(1)}" cy="${y.toFixed(1)}" rx="${leaf.toFixed(1)}" ry="5" fill="${colour}" transform="rotate(25 ${(cx + leaf / 2).toFixed(1)} ${y.toFixed(1)})"/>`);
+			parts.push(
+				`<ellipse cx="${(cx - leaf / 2).toFixed(1)}" cy="${y.toFixed(1)}" rx="${leaf.toFixed(1)}" ry="5" fill="${colour}" transform="rotate(-25 ${(cx - leaf / 2).toFixed(1)} ${y.toFixed(1)})"/>`
+			);
+			parts.push(
+				`<ellipse cx="${(cx + leaf / 2).toFixed(1)}" cy="${y.toFixed(1)}" rx="${leaf.toFixed(1)}" ry="5" fill="${colour}" transform="rotate(25 ${(cx + leaf / 2).toFixed(1)} ${y.toFixed(1)})"/>`
+			);
 		}
 	}
 
 	// The substrate: a slope from back to front.
-	parts.push(`<path d="M0 ${bedBack.toFixed(1)} C${(width * 0.3).toFixed(1)} ${(bedBack + 20).toFixed(1)}, ${(width * 0.7).toFixed(1)} ${(bedFront - 40).toFixed(1)}, ${width} ${bedFront.toFixed(1)} L${width} ${height} L0 ${height} Z" fill="url(#bed)"/>`);
+	parts.push(
+		`<path d="M0 ${bedBack.toFixed(1)} C${(width * 0.3).toFixed(1)} ${(bedBack + 20).toFixed(1)}, ${(width * 0.7).toFixed(1)} ${(bedFront - 40).toFixed(1)}, ${width} ${bedFront.toFixed(1)} L${width} ${height} L0 ${height} Z" fill="url(#bed)"/>`
+	);
 
 	// Rocks.
 	const rocks = Math.round(between(2, 5));
@@ -72,7 +80,9 @@ export function aquariumSvg(seed: number, width = 1600, height = 1000): string {
 			const r = between(0.75, 1);
 			return `${(cx + Math.cos(angle) * w * r).toFixed(1)},${(cy + Math.sin(angle) * h * r).toFixed(1)}`;
 		});
-		parts.push(`<polygon points="${points.join(' ')} ${(cx + w).toFixed(1)},${(cy + 10).toFixed(1)} ${(cx - w).toFixed(1)},${(cy + 10).toFixed(1)}" fill="${pick(ROCKS)}" stroke="#55524a" stroke-width="2"/>`);
+		parts.push(
+			`<polygon points="${points.join(' ')} ${(cx + w).toFixed(1)},${(cy + 10).toFixed(1)} ${(cx - w).toFixed(1)},${(cy + 10).toFixed(1)}" fill="${pick(ROCKS)}" stroke="#55524a" stroke-width="2"/>`
+		);
 	}
 
 	// Foreground grass tufts.
@@ -81,7 +91,9 @@ export function aquariumSvg(seed: number, width = 1600, height = 1000): string {
 		const colour = pick(GREENS);
 		for (let k = 0; k < 3; k++) {
 			const h = between(20, 60);
-			parts.push(`<line x1="${x.toFixed(1)}" y1="${base.toFixed(1)}" x2="${(x + between(-10, 10)).toFixed(1)}" y2="${(base - h).toFixed(1)}" stroke="${colour}" stroke-width="3"/>`);
+			parts.push(
+				`<line x1="${x.toFixed(1)}" y1="${base.toFixed(1)}" x2="${(x + between(-10, 10)).toFixed(1)}" y2="${(base - h).toFixed(1)}" stroke="${colour}" stroke-width="3"/>`
+			);
 		}
 	}
 

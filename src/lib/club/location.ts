@@ -17,12 +17,5 @@ export function roundToKilometre(point: LatLng): LatLng {
 }
 
 export function isValidLatLng(point: LatLng): boolean {
-	return (
-		Number.isFinite(point.lat) &&
-		Number.isFinite(point.lng) &&
-		point.lat >= -90 &&
-		point.lat <= 90 &&
-		point.lng >= -180 &&
-		point.lng <= 180
-	);
+	return Number.isFinite(point.lat) && Number.isFinite(point.lng) && point.lat >= -90 && point.lat <= 90 && point.lng >= -180 && point.lng <= 180;
 }

@@ -76,7 +76,13 @@ describe('kendallW', () => {
 	});
 
 	test('hand-checkable: identical orders give 1, two judges in reverse give 0', () => {
-		expect(kendallW([[90, 80, 70], [60, 55, 50], [9, 8, 7]]).w).toBe(1);
+		expect(
+			kendallW([
+				[90, 80, 70],
+				[60, 55, 50],
+				[9, 8, 7]
+			]).w
+		).toBe(1);
 		const reversed = kendallW([
 			[90, 80, 70],
 			[70, 80, 90]
@@ -128,7 +134,12 @@ describe('kendallW', () => {
 	test('refuses incomplete tables', () => {
 		expect(() => kendallW([[1, 2, 3]])).toThrow(RangeError);
 		expect(() => kendallW([[1], [2]])).toThrow(RangeError);
-		expect(() => kendallW([[1, 2], [1, 2, 3]])).toThrow(RangeError);
+		expect(() =>
+			kendallW([
+				[1, 2],
+				[1, 2, 3]
+			])
+		).toThrow(RangeError);
 	});
 });
 

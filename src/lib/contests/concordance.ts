@@ -12,7 +12,7 @@ export function averageRanks(values: readonly number[], order: 'ascending' | 'de
 	const sign = order === 'ascending' ? 1 : -1;
 	const idx = values.map((_, i) => i).sort((a, b) => sign * (values[a]! - values[b]!));
 	const ranks = new Array<number>(values.length);
-	for (let start = 0; start < idx.length; ) {
+	for (let start = 0; start < idx.length;) {
 		let end = start;
 		while (end + 1 < idx.length && values[idx[end + 1]!] === values[idx[start]!]) end++;
 		const rank = (start + 1 + end + 1) / 2;

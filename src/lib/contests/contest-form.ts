@@ -168,7 +168,8 @@ export function parseContestDraft(draft: ContestDraft, options: { locked?: boole
 			else if (c.label.length > LABEL_MAX) errors[at('label')] = `Keep the name to ${LABEL_MAX} characters.`;
 			if (c.guidance.length > GUIDANCE_MAX) errors[at('guidance')] = `Keep the guidance to ${GUIDANCE_MAX} characters.`;
 			const max = decimal(c.maxPoints);
-			if (!(max > 0) || max > MAX_POINTS_LIMIT || !isOnScoreStep(max)) errors[at('maxPoints')] = `Give a whole or half number of points above 0, at most ${MAX_POINTS_LIMIT}.`;
+			if (!(max > 0) || max > MAX_POINTS_LIMIT || !isOnScoreStep(max))
+				errors[at('maxPoints')] = `Give a whole or half number of points above 0, at most ${MAX_POINTS_LIMIT}.`;
 			const weight = decimal(c.weight);
 			if (!(weight > 0) || weight > WEIGHT_LIMIT || Math.round(weight * 1000) !== weight * 1000) {
 				errors[at('weight')] = `Give a weight above 0 and at most ${WEIGHT_LIMIT}, with at most three decimals.`;
@@ -196,7 +197,11 @@ export function parseContestDraft(draft: ContestDraft, options: { locked?: boole
 			if (!c.name) errors[at('name')] = 'Name the category.';
 			else if (c.name.length > CATEGORY_NAME_MAX) errors[at('name')] = `Keep the name to ${CATEGORY_NAME_MAX} characters.`;
 			if (c.description.length > CATEGORY_DESCRIPTION_MAX) errors[at('description')] = `Keep the description to ${CATEGORY_DESCRIPTION_MAX} characters.`;
-			const rule = { minLitres: optionalNumber(c.minLitres), maxLitres: optionalNumber(c.maxLitres), minAgeWeeks: c.minAgeWeeks === '' ? null : Number(c.minAgeWeeks) };
+			const rule = {
+				minLitres: optionalNumber(c.minLitres),
+				maxLitres: optionalNumber(c.maxLitres),
+				minAgeWeeks: c.minAgeWeeks === '' ? null : Number(c.minAgeWeeks)
+			};
 			const ruleErrors = validateRule(rule);
 			for (const [f, message] of Object.entries(ruleErrors)) errors[at(f)] = message;
 			categories.push({ id: savedId(c.id), name: c.name, description: c.description, ...rule });

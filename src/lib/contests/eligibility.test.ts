@@ -4,7 +4,12 @@ import { checkEligibility, describeRule, roundLitres, validateRule, type Eligibi
 
 const nano: EligibilityRule = { minLitres: null, maxLitres: 40, minAgeWeeks: null };
 const mature: EligibilityRule = { minLitres: 20, maxLitres: 120, minAgeWeeks: 8 };
-const facts = (litres: number | null, ageWeeks: number | null, retired = false) => ({ litres, volumeSource: litres === null ? null : ('measured' as const), ageWeeks, retired });
+const facts = (litres: number | null, ageWeeks: number | null, retired = false) => ({
+	litres,
+	volumeSource: litres === null ? null : ('measured' as const),
+	ageWeeks,
+	retired
+});
 
 describe('checkEligibility', () => {
 	test('bounds are inclusive and compared on the litres as shown (one decimal)', () => {
@@ -48,7 +53,10 @@ describe('checkEligibility', () => {
 		const fig = tankFigures(tank, new Date('2026-03-09T12:00:00Z'));
 		expect(fig.grossLitres).toBeCloseTo(13.792, 3);
 		expect(fig.age!.weeks).toBe(9); // 63 days
-		const check = checkEligibility({ ...nano, minAgeWeeks: 8 }, { litres: fig.volume!.litres, volumeSource: fig.volume!.source, ageWeeks: fig.age!.weeks, retired: false });
+		const check = checkEligibility(
+			{ ...nano, minAgeWeeks: 8 },
+			{ litres: fig.volume!.litres, volumeSource: fig.volume!.source, ageWeeks: fig.age!.weeks, retired: false }
+		);
 		expect(check.eligible).toBe(true);
 		expect(check.comparedLitres).toBe(roundLitres(fig.volume!.litres));
 	});
@@ -64,6 +72,9 @@ describe('rules as typed by an admin', () => {
 	test('validation', () => {
 		expect(validateRule(mature)).toEqual({});
 		expect(validateRule({ minLitres: 50, maxLitres: 40, minAgeWeeks: null })).toHaveProperty('maxLitres');
-		expect(validateRule({ minLitres: -1, maxLitres: null, minAgeWeeks: 2.5 })).toEqual({ minLitres: 'Give a volume of 0 litres or more.', minAgeWeeks: 'Give a whole number of weeks.' });
+		expect(validateRule({ minLitres: -1, maxLitres: null, minAgeWeeks: 2.5 })).toEqual({
+			minLitres: 'Give a volume of 0 litres or more.',
+			minAgeWeeks: 'Give a whole number of weeks.'
+		});
 	});
 });

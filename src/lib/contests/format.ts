@@ -14,8 +14,7 @@ export function formatZ(value: number | null | undefined): string {
 }
 
 /** Points of a criterion, to two decimals at most: "7.5", "7.33". */
-export const formatPoints = (value: number | null | undefined) =>
-	value === null || value === undefined ? '—' : String(Math.round(value * 100) / 100);
+export const formatPoints = (value: number | null | undefined) => (value === null || value === undefined ? '—' : String(Math.round(value * 100) / 100));
 
 export const formatPlace = (place: number | null, shared = false) => (place === null ? 'Not placed' : `${ordinal(place)}${shared ? ' (shared)' : ''}`);
 

@@ -79,8 +79,7 @@ export const TRANSITIONS: Record<TransitionName, Transition> = {
 };
 
 /** The one transition an admin can take from a state, if any. */
-export const nextTransition = (state: ContestState): Transition | null =>
-	Object.values(TRANSITIONS).find((t) => t.from === state) ?? null;
+export const nextTransition = (state: ContestState): Transition | null => Object.values(TRANSITIONS).find((t) => t.from === state) ?? null;
 
 // ---- Windows -------------------------------------------------------------------------------
 
@@ -232,7 +231,8 @@ export function transitionProblems(name: TransitionName, ctx: TransitionContext)
 	if (name === 'publish' && !ctx.judgingComplete) {
 		const reason = (ctx.overrideReason ?? '').trim();
 		if (!reason) problems.push('Some cards are still missing. Wait for them, or publish anyway and give the reason.');
-		else if (reason.length < OVERRIDE_REASON_MIN) problems.push(`Give a reason of at least ${OVERRIDE_REASON_MIN} characters for publishing with cards missing.`);
+		else if (reason.length < OVERRIDE_REASON_MIN)
+			problems.push(`Give a reason of at least ${OVERRIDE_REASON_MIN} characters for publishing with cards missing.`);
 	}
 	return problems;
 }

@@ -85,7 +85,10 @@ describe('rankCategory', () => {
 	});
 
 	test('a missing criterion score counts below any score; unscored entries come last without a place', () => {
-		const ranked = rankCategory([entry('z-none', null), entry('b', 70, { arrangement: null }), entry('a', 70, { arrangement: 0 }), entry('y-none', null)], order);
+		const ranked = rankCategory(
+			[entry('z-none', null), entry('b', 70, { arrangement: null }), entry('a', 70, { arrangement: 0 }), entry('y-none', null)],
+			order
+		);
 		expect(ranked.map((r) => [r.entryId, r.place])).toEqual([
 			['a', 1],
 			['b', 2],

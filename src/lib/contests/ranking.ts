@@ -35,9 +35,7 @@ export function placesForGroups(groupSizes: readonly number[], style: RankingSty
 	groupSizes.forEach((size, groupIndex) => {
 		const first = before + 1;
 		const last = before + size;
-		places.push(
-			style === 'competition' ? first : style === 'modified-competition' ? last : style === 'dense' ? groupIndex + 1 : (first + last) / 2
-		);
+		places.push(style === 'competition' ? first : style === 'modified-competition' ? last : style === 'dense' ? groupIndex + 1 : (first + last) / 2);
 		before += size;
 	});
 	return places;

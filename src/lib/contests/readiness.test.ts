@@ -71,7 +71,11 @@ describe('publicationReadiness', () => {
 
 	test('an entry no judge may score blocks publication', () => {
 		const { duties: few } = judgingDuties(entries, ['ben'], [{ entryId: 'e2', judgeId: 'ben' }]);
-		const r = publicationReadiness(ids, few, few.map((a) => ({ ...a, state: 'submitted' as const })));
+		const r = publicationReadiness(
+			ids,
+			few,
+			few.map((a) => ({ ...a, state: 'submitted' as const }))
+		);
 		expect(r.missing).toEqual([]);
 		expect(r.unjudgeableEntryIds).toEqual(['e1', 'e2']); // e1 is ben's own, e2 a conflict
 		expect(r.ready).toBe(false);

@@ -114,8 +114,15 @@ export function publicationReadiness(entryIds: readonly string[], duties: readon
 			for (const k of keys) if (k(x) !== k(y)) return k(x) < k(y) ? -1 : 1;
 			return 0;
 		});
-	sortBy(missing, (m) => m.entryId, (m) => m.judgeId);
-	const unjudgeableEntryIds = [...byEntry].filter(([, c]) => c.expected === 0).map(([id]) => id).sort();
+	sortBy(
+		missing,
+		(m) => m.entryId,
+		(m) => m.judgeId
+	);
+	const unjudgeableEntryIds = [...byEntry]
+		.filter(([, c]) => c.expected === 0)
+		.map(([id]) => id)
+		.sort();
 	const unexpectedCards = sortBy(
 		cards.filter((c) => !owed.has(cell(c))),
 		(c) => c.entryId,
@@ -124,8 +131,14 @@ export function publicationReadiness(entryIds: readonly string[], duties: readon
 	return {
 		ready: missing.length === 0 && unjudgeableEntryIds.length === 0 && byEntry.size > 0,
 		overall,
-		byJudge: sortBy([...byJudge].map(([judgeId, c]) => ({ judgeId, ...c })), (j) => j.judgeId),
-		byEntry: sortBy([...byEntry].map(([entryId, c]) => ({ entryId, ...c })), (e) => e.entryId),
+		byJudge: sortBy(
+			[...byJudge].map(([judgeId, c]) => ({ judgeId, ...c })),
+			(j) => j.judgeId
+		),
+		byEntry: sortBy(
+			[...byEntry].map(([entryId, c]) => ({ entryId, ...c })),
+			(e) => e.entryId
+		),
 		missing,
 		unjudgeableEntryIds,
 		unexpectedCards

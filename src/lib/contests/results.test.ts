@@ -157,5 +157,17 @@ describe('ties', () => {
 });
 
 test('ordinals', () => {
-	expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 102, 111].map(ordinal)).toEqual(['1st', '2nd', '3rd', '4th', '11th', '12th', '13th', '21st', '22nd', '102nd', '111th']);
+	expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 102, 111].map(ordinal)).toEqual([
+		'1st',
+		'2nd',
+		'3rd',
+		'4th',
+		'11th',
+		'12th',
+		'13th',
+		'21st',
+		'22nd',
+		'102nd',
+		'111th'
+	]);
 });

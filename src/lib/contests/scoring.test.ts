@@ -86,7 +86,12 @@ describe('cardTotal', () => {
 				weight: 0.1 + next() * 5
 			}));
 			const scores = Object.fromEntries(r.map((c) => [c.id, Math.floor(next() * (c.maxPoints * 2 + 1)) / 2]));
-			const expected = 100 * ss.weightedMean(r.map((c) => scores[c.id]! / c.maxPoints), r.map((c) => c.weight * c.maxPoints));
+			const expected =
+				100 *
+				ss.weightedMean(
+					r.map((c) => scores[c.id]! / c.maxPoints),
+					r.map((c) => c.weight * c.maxPoints)
+				);
 			expect(cardTotal(r, scores)).toBeCloseTo(expected, 9);
 		}
 	});

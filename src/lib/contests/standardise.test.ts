@@ -14,11 +14,7 @@ describe('standardiseByJudge', () => {
 		const result = standardiseByJudge([card('a', 'e1', 60), card('a', 'e2', 70), card('a', 'e3', 80)], 'mean');
 		expect(result.judges[0]).toMatchObject({ judgeId: 'a', cards: 3, mean: 70, status: 'ok', fewCards: true });
 		expect(result.judges[0]!.standardDeviation).toBeCloseTo(Math.sqrt(200 / 3), 12);
-		expect(result.entries.map((e) => e.standardised)).toEqual([
-			expect.closeTo(-Math.sqrt(1.5), 12),
-			expect.closeTo(0, 12),
-			expect.closeTo(Math.sqrt(1.5), 12)
-		]);
+		expect(result.entries.map((e) => e.standardised)).toEqual([expect.closeTo(-Math.sqrt(1.5), 12), expect.closeTo(0, 12), expect.closeTo(Math.sqrt(1.5), 12)]);
 	});
 
 	test('a strict and a lenient judge who rank alike give equal standardised scores', () => {

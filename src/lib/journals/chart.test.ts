@@ -67,7 +67,10 @@ describe('chartGeometry', () => {
 		expect(one.path).toMatch(/^M/);
 	});
 	test('a danger line is drawn only inside the domain', () => {
-		const d = chartGeometry({ points: [point(1, '2026-03-01', 0.1), point(2, '2026-03-05', 0.3)], band: { low: 0, high: 0.05 }, danger: { high: 0.25 } }, { box });
+		const d = chartGeometry(
+			{ points: [point(1, '2026-03-01', 0.1), point(2, '2026-03-05', 0.3)], band: { low: 0, high: 0.05 }, danger: { high: 0.25 } },
+			{ box }
+		);
 		expect(d.dangerLines.map((l) => l.value)).toEqual([0.25]);
 		const none = chartGeometry({ points: [point(1, '2026-03-01', 0.01)], band: { low: 0, high: 0.05 }, danger: { high: 5 } }, { box });
 		expect(none.dangerLines).toEqual([]);

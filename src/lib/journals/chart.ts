@@ -76,20 +76,26 @@ export function chartGeometry(input: ChartInput, options: { box?: ChartBox; floo
 		height: box.height - box.margin.top - box.margin.bottom
 	};
 	const domain = valueDomain(input, options.floorAtZero ?? true);
-	const y = scaleLinear().domain(domain).range([plot.top + plot.height, plot.top]);
+	const y = scaleLinear()
+		.domain(domain)
+		.range([plot.top + plot.height, plot.top]);
 	const sorted = [...input.points].sort((a, b) => (a.on < b.on ? -1 : a.on > b.on ? 1 : a.id - b.id));
 	const first = sorted[0] ? dayDate(sorted[0].on) : new Date();
 	const last = sorted.at(-1) ? dayDate(sorted.at(-1)!.on) : first;
 	// A single day still gets a week of axis, so its point sits in the middle, not on an edge.
-	const [from, to] = last.getTime() - first.getTime() < DAY_MS ? [new Date(first.getTime() - 3 * DAY_MS), new Date(first.getTime() + 4 * DAY_MS)] : [first, last];
-	const x = scaleUtc().domain([from, to]).range([plot.left, plot.left + plot.width]);
+	const [from, to] =
+		last.getTime() - first.getTime() < DAY_MS ? [new Date(first.getTime() - 3 * DAY_MS), new Date(first.getTime() + 4 * DAY_MS)] : [first, last];
+	const x = scaleUtc()
+		.domain([from, to])
+		.range([plot.left, plot.left + plot.width]);
 
 	// Two decimals of a pixel are plenty and keep the markup short.
 	const px = (v: number) => Math.round(v * 100) / 100;
 	const points = sorted.map((p) => ({ ...p, x: px(x(dayDate(p.on))), y: px(y(p.value)) }));
-	const path = line<{ x: number; y: number }>()
-		.x((p) => p.x)
-		.y((p) => p.y)(points) ?? '';
+	const path =
+		line<{ x: number; y: number }>()
+			.x((p) => p.x)
+			.y((p) => p.y)(points) ?? '';
 	const clamp = (v: number) => Math.min(Math.max(v, domain[0]), domain[1]);
 	const band = input.band
 		? (() => {

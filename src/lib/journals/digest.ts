@@ -34,16 +34,18 @@ export interface DigestContent {
 }
 
 /** The digest's words, or null when there is nothing to tell (no mail is sent then). */
-export function digestContent(input: { name: string | null; weekOf: string; tasks: DigestTask[]; followed: DigestEntry[]; homeUrl: string }): DigestContent | null {
+export function digestContent(input: {
+	name: string | null;
+	weekOf: string;
+	tasks: DigestTask[];
+	followed: DigestEntry[];
+	homeUrl: string;
+}): DigestContent | null {
 	if (!input.tasks.length && !input.followed.length) return null;
 	const paragraphs: string[] = [`Hello ${input.name ?? 'there'}, here is your week at the tanks from ${formatDate(input.weekOf)}.`];
 	if (input.tasks.length) {
 		const overdue = input.tasks.filter((t) => t.overdue).length;
-		paragraphs.push(
-			overdue
-				? `Upkeep due this week (${input.tasks.length}, of which ${overdue} overdue):`
-				: `Upkeep due this week (${input.tasks.length}):`
-		);
+		paragraphs.push(overdue ? `Upkeep due this week (${input.tasks.length}, of which ${overdue} overdue):` : `Upkeep due this week (${input.tasks.length}):`);
 		for (const t of input.tasks) paragraphs.push(`• ${t.tankName}: ${t.label} — ${t.statusLabel}`);
 	} else {
 		paragraphs.push('Nothing on your schedules is due this week.');

@@ -24,7 +24,12 @@ describe('entryDraftFrom', () => {
 describe('parseEntryDraft', () => {
 	test('a text with a water change and a filter clean', () => {
 		const parsed = parseEntryDraft(
-			{ ...emptyEntryDraft('2026-03-19'), title: ' Week three ', body: 'Trimmed.\r\nAll good.', events: [ev('water-change', { percent: '40' }), ev('filter-clean', { filterPart: 'prefilter', note: 'brown' })] },
+			{
+				...emptyEntryDraft('2026-03-19'),
+				title: ' Week three ',
+				body: 'Trimmed.\r\nAll good.',
+				events: [ev('water-change', { percent: '40' }), ev('filter-clean', { filterPart: 'prefilter', note: 'brown' })]
+			},
 			{ today }
 		);
 		expect(parsed.ok).toBe(true);
@@ -93,9 +98,18 @@ describe('parseEntryDraft', () => {
 	});
 
 	test('the day: not in the future, not before set-up; something must be recorded', () => {
-		expect(parseEntryDraft({ ...emptyEntryDraft('2026-03-21'), body: 'x' }, { today })).toEqual({ ok: false, errors: { entryOn: 'That day has not come yet.' } });
-		expect(parseEntryDraft({ ...emptyEntryDraft('2026-01-01'), body: 'x' }, { today, setUpOn: '2026-02-01' })).toEqual({ ok: false, errors: { entryOn: 'That is before the tank was set up.' } });
-		expect(parseEntryDraft({ ...emptyEntryDraft('yesterday'), body: 'x' }, { today })).toEqual({ ok: false, errors: { entryOn: 'Give the day as YYYY-MM-DD.' } });
+		expect(parseEntryDraft({ ...emptyEntryDraft('2026-03-21'), body: 'x' }, { today })).toEqual({
+			ok: false,
+			errors: { entryOn: 'That day has not come yet.' }
+		});
+		expect(parseEntryDraft({ ...emptyEntryDraft('2026-01-01'), body: 'x' }, { today, setUpOn: '2026-02-01' })).toEqual({
+			ok: false,
+			errors: { entryOn: 'That is before the tank was set up.' }
+		});
+		expect(parseEntryDraft({ ...emptyEntryDraft('yesterday'), body: 'x' }, { today })).toEqual({
+			ok: false,
+			errors: { entryOn: 'Give the day as YYYY-MM-DD.' }
+		});
 		expect(parseEntryDraft(emptyEntryDraft(today), { today })).toEqual({ ok: false, errors: { body: 'Write something, add a photo or record what you did.' } });
 		expect(parseEntryDraft(emptyEntryDraft(today), { today, hasPhotos: true }).ok).toBe(true);
 	});
@@ -106,7 +120,23 @@ describe('parseEntryDraft', () => {
 	});
 
 	test('a stored event comes back as the same form row', () => {
-		const draft = eventDraftFrom({ id: 4, kind: 'livestock-removed', percent: null, filterPart: null, what: '', amount: null, amountUnit: null, saltId: null, speciesId: 3, speciesName: 'Neocaridina davidi', count: 2, algaeKind: null, note: 'moved', tankPlantId: null, tankLivestockId: 9 });
+		const draft = eventDraftFrom({
+			id: 4,
+			kind: 'livestock-removed',
+			percent: null,
+			filterPart: null,
+			what: '',
+			amount: null,
+			amountUnit: null,
+			saltId: null,
+			speciesId: 3,
+			speciesName: 'Neocaridina davidi',
+			count: 2,
+			algaeKind: null,
+			note: 'moved',
+			tankPlantId: null,
+			tankLivestockId: 9
+		});
 		expect(draft).toMatchObject({ id: '4', kind: 'livestock-removed', count: '2', rowId: '9', note: 'moved', percent: '' });
 	});
 });

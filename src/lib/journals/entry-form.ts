@@ -15,7 +15,22 @@ import {
 	type FilterPart
 } from './journal-vocabulary';
 
-export const EVENT_FIELDS = ['id', 'kind', 'percent', 'filterPart', 'what', 'amount', 'amountUnit', 'saltId', 'speciesId', 'speciesName', 'count', 'algaeKind', 'note', 'rowId'] as const;
+export const EVENT_FIELDS = [
+	'id',
+	'kind',
+	'percent',
+	'filterPart',
+	'what',
+	'amount',
+	'amountUnit',
+	'saltId',
+	'speciesId',
+	'speciesName',
+	'count',
+	'algaeKind',
+	'note',
+	'rowId'
+] as const;
 export type EventField = (typeof EVENT_FIELDS)[number];
 export type EventDraft = Record<EventField, string>;
 
@@ -108,7 +123,9 @@ export function parseEntryDraft(draft: EntryDraft, options: { today: string; set
 
 	const events = draft.events.map((e, i): EventInput => {
 		const key = (field: string) => `events.${i}.${field}`;
-		const kind = (FORM_EVENT_KINDS as readonly string[]).includes(e.kind) ? (e.kind as EventKind) : (fail(key('kind'), 'Choose what happened.'), 'note' as const);
+		const kind = (FORM_EVENT_KINDS as readonly string[]).includes(e.kind)
+			? (e.kind as EventKind)
+			: (fail(key('kind'), 'Choose what happened.'), 'note' as const);
 		const number = (field: EventField, min: number, max: number, required: boolean, whole = false): number | null => {
 			const raw = e[field].replace(',', '.');
 			if (!raw) return required ? fail(key(field), 'This is needed.') : null;

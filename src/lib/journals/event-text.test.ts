@@ -1,11 +1,26 @@
 import { describe, expect, test } from 'vitest';
 import { describeEvent, doseAdds, type EventFacts } from './event-text';
 
-const base: EventFacts = { kind: 'note', percent: null, filterPart: null, what: '', amount: null, amountUnit: null, saltId: null, speciesName: '', count: null, algaeKind: null, note: '' };
+const base: EventFacts = {
+	kind: 'note',
+	percent: null,
+	filterPart: null,
+	what: '',
+	amount: null,
+	amountUnit: null,
+	saltId: null,
+	speciesName: '',
+	count: null,
+	algaeKind: null,
+	note: ''
+};
 
 describe('describeEvent', () => {
 	test('a line per kind, with the note last', () => {
-		expect(describeEvent({ ...base, kind: 'water-change', percent: 40, note: 'cold tap water' })).toEqual({ label: 'Water change', detail: '40 % of the water · cold tap water' });
+		expect(describeEvent({ ...base, kind: 'water-change', percent: 40, note: 'cold tap water' })).toEqual({
+			label: 'Water change',
+			detail: '40 % of the water · cold tap water'
+		});
 		expect(describeEvent({ ...base, kind: 'filter-clean', filterPart: 'prefilter' }).detail).toBe('Pre-filter sponge');
 		expect(describeEvent({ ...base, kind: 'livestock-added', count: 6, speciesName: 'Otocinclus vittatus' }).detail).toBe('6 × Otocinclus vittatus');
 		expect(describeEvent({ ...base, kind: 'algae', algaeKind: 'threads' })).toEqual({ label: 'Algae seen', detail: 'Long green threads' });

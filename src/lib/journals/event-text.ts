@@ -20,7 +20,10 @@ export interface EventFacts {
 const isSalt = (id: string | null): id is SaltId => id !== null && (SALT_IDS as readonly string[]).includes(id);
 
 /** mg/L each nutrient a dose of a known salt adds to `litres`, when the amount is a mass. */
-export function doseAdds(event: Pick<EventFacts, 'saltId' | 'amount' | 'amountUnit'>, litres: number | null): { nutrient: Nutrient; label: string; mgPerL: number }[] {
+export function doseAdds(
+	event: Pick<EventFacts, 'saltId' | 'amount' | 'amountUnit'>,
+	litres: number | null
+): { nutrient: Nutrient; label: string; mgPerL: number }[] {
 	if (!isSalt(event.saltId) || event.amount === null || !litres || litres <= 0) return [];
 	const grams = event.amountUnit === 'g' ? event.amount : event.amountUnit === 'mg' ? event.amount / 1000 : null;
 	if (grams === null) return [];

@@ -73,7 +73,9 @@ describe('buildAtomFeed (checked against RFC 4287, The Atom Syndication Format)'
 		const xml = buildAtomFeed(feed(), ORIGIN);
 		expect(xml).not.toContain('<p>Trimmed');
 		const content = textOf(parser.parse(xml).feed.entry[0].content);
-		expect(content).toBe('<p>Trimmed the <a href="https://riparia.test/journals/7" rel="nofollow ugc noopener">stems</a>.</p><p><img src="https://riparia.test/media/12/medium" alt="Front" /></p>');
+		expect(content).toBe(
+			'<p>Trimmed the <a href="https://riparia.test/journals/7" rel="nofollow ugc noopener">stems</a>.</p><p><img src="https://riparia.test/media/12/medium" alt="Front" /></p>'
+		);
 	});
 
 	test('markup, ampersands, quotes and control characters in titles cannot break the XML', () => {

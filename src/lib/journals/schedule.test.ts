@@ -1,6 +1,16 @@
 import { describe, expect, test } from 'vitest';
 import { scheduleTask } from './calc';
-import { asMaintenanceTask, defaultSchedule, doneEventKind, lastDoneOn, parseScheduleRows, resets, taskRowsFrom, tasksResetBy, type TaskRule } from './schedule';
+import {
+	asMaintenanceTask,
+	defaultSchedule,
+	doneEventKind,
+	lastDoneOn,
+	parseScheduleRows,
+	resets,
+	taskRowsFrom,
+	tasksResetBy,
+	type TaskRule
+} from './schedule';
 
 const water: TaskRule = { id: 1, kind: 'water-change', filterPart: null };
 const prefilter: TaskRule = { id: 2, kind: 'filter-clean', filterPart: 'prefilter' };
@@ -53,15 +63,26 @@ describe('lastDoneOn from what is logged', () => {
 		expect(lastDoneOn(glass, logged)).toBeNull();
 	});
 	test('removing the latest event moves the day back (the interval restarts from the one before)', () => {
-		expect(lastDoneOn(water, logged.filter((l) => l.on !== '2026-03-15'))).toBe('2026-03-08');
+		expect(
+			lastDoneOn(
+				water,
+				logged.filter((l) => l.on !== '2026-03-15')
+			)
+		).toBe('2026-03-08');
 	});
 	test('a day after today is ignored', () => {
 		expect(lastDoneOn(water, [...logged, { kind: 'water-change', on: '2026-04-30' }], '2026-03-21')).toBe('2026-03-15');
 	});
 	test('logging resets the due date: done 15 March every 7 days is due 22 March (calendar arithmetic by hand)', () => {
-		const before = scheduleTask(asMaintenanceTask({ id: 1, tankId: 9, label: 'Water change', intervalDays: 7, lastDoneOn: '2026-03-08' }), new Date('2026-03-21T10:00:00Z'));
+		const before = scheduleTask(
+			asMaintenanceTask({ id: 1, tankId: 9, label: 'Water change', intervalDays: 7, lastDoneOn: '2026-03-08' }),
+			new Date('2026-03-21T10:00:00Z')
+		);
 		expect(before.status).toEqual({ kind: 'overdue', days: 6 });
-		const after = scheduleTask(asMaintenanceTask({ id: 1, tankId: 9, label: 'Water change', intervalDays: 7, lastDoneOn: lastDoneOn(water, logged) }), new Date('2026-03-21T10:00:00Z'));
+		const after = scheduleTask(
+			asMaintenanceTask({ id: 1, tankId: 9, label: 'Water change', intervalDays: 7, lastDoneOn: lastDoneOn(water, logged) }),
+			new Date('2026-03-21T10:00:00Z')
+		);
 		expect(after.nextDueOn).toBe('2026-03-22');
 		expect(after.statusLabel).toBe('due tomorrow');
 	});
@@ -113,6 +134,12 @@ describe('the schedule form', () => {
 			kinds,
 			parts
 		);
-		expect(result.ok ? null : Object.keys(result.errors).sort()).toEqual(['tasks.0.kind', 'tasks.1.intervalDays', 'tasks.1.label', 'tasks.2.intervalDays', 'tasks.3.intervalDays']);
+		expect(result.ok ? null : Object.keys(result.errors).sort()).toEqual([
+			'tasks.0.kind',
+			'tasks.1.intervalDays',
+			'tasks.1.label',
+			'tasks.2.intervalDays',
+			'tasks.3.intervalDays'
+		]);
 	});
 });

@@ -113,23 +113,35 @@ export function taskRowsFrom(form: FormData): TaskFormRow[] {
 		.filter((r) => r.label !== '' || r.kind !== '');
 }
 
-export const taskRowOf = (t: TaskDraft & { id?: number }): TaskFormRow => ({ id: t.id ? String(t.id) : '', kind: t.kind, filterPart: t.filterPart ?? '', label: t.label, intervalDays: String(t.intervalDays) });
+export const taskRowOf = (t: TaskDraft & { id?: number }): TaskFormRow => ({
+	id: t.id ? String(t.id) : '',
+	kind: t.kind,
+	filterPart: t.filterPart ?? '',
+	label: t.label,
+	intervalDays: String(t.intervalDays)
+});
 
 /** The longest interval a task may have: a year (our own limit). */
 export const MAX_INTERVAL_DAYS = 366;
 
-export function parseScheduleRows(rows: TaskFormRow[], kinds: readonly TaskKind[], parts: readonly FilterPart[]): { ok: true; tasks: (TaskDraft & { id?: number })[] } | { ok: false; errors: Record<string, string> } {
+export function parseScheduleRows(
+	rows: TaskFormRow[],
+	kinds: readonly TaskKind[],
+	parts: readonly FilterPart[]
+): { ok: true; tasks: (TaskDraft & { id?: number })[] } | { ok: false; errors: Record<string, string> } {
 	const errors: Record<string, string> = {};
 	const tasks = rows.map((r, i) => {
 		const kind = (kinds as readonly string[]).includes(r.kind) ? (r.kind as TaskKind) : null;
 		if (!kind) errors[`tasks.${i}.kind`] = 'Choose what the task is.';
-		const filterPart = kind === 'filter-clean' && r.filterPart ? ((parts as readonly string[]).includes(r.filterPart) ? (r.filterPart as FilterPart) : null) : null;
+		const filterPart =
+			kind === 'filter-clean' && r.filterPart ? ((parts as readonly string[]).includes(r.filterPart) ? (r.filterPart as FilterPart) : null) : null;
 		if (kind === 'filter-clean' && r.filterPart && !filterPart) errors[`tasks.${i}.filterPart`] = 'Choose a part of the filter.';
 		const label = r.label.trim();
 		if (!label) errors[`tasks.${i}.label`] = 'Give the task a name.';
 		if (label.length > 80) errors[`tasks.${i}.label`] = 'Keep the name to 80 characters.';
 		const interval = Number(r.intervalDays);
-		if (!/^\d+$/.test(r.intervalDays) || interval < 1 || interval > MAX_INTERVAL_DAYS) errors[`tasks.${i}.intervalDays`] = `Enter a whole number of days from 1 to ${MAX_INTERVAL_DAYS}.`;
+		if (!/^\d+$/.test(r.intervalDays) || interval < 1 || interval > MAX_INTERVAL_DAYS)
+			errors[`tasks.${i}.intervalDays`] = `Enter a whole number of days from 1 to ${MAX_INTERVAL_DAYS}.`;
 		const id = /^[1-9]\d{0,14}$/.test(r.id) ? Number(r.id) : undefined;
 		return { id, kind: kind ?? 'other', filterPart, label, intervalDays: interval };
 	});

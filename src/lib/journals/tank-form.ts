@@ -197,10 +197,30 @@ export function draftFromTank(tank: Tank, units: UnitSystem): TankDraft {
 		description: tank.description ?? '',
 		visibility: tank.visibility,
 		lights: tank.lights.map((l) => ({ id: String(l.id), label: l.label, watts: show(l.watts, 1), hours: show(l.hoursPerDay, 2) })),
-		filters: tank.filters.map((f) => ({ id: String(f.id), label: f.label, flow: f.ratedFlow === null ? '' : show(f.ratedFlow, 1), unit: f.flowUnit, media: f.mediaNotes })),
+		filters: tank.filters.map((f) => ({
+			id: String(f.id),
+			label: f.label,
+			flow: f.ratedFlow === null ? '' : show(f.ratedFlow, 1),
+			unit: f.flowUnit,
+			media: f.mediaNotes
+		})),
 		fertilisers: tank.fertilisers.map((f) => ({ id: String(f.id), item: f.item, amount: f.amount, frequency: f.frequency })),
-		plants: tank.plants.map((p) => ({ id: String(p.id), speciesId: p.speciesId ? String(p.speciesId) : '', name: p.name, placement: p.placement ?? '', added: p.addedOn ?? '', removed: p.removedOn ?? '' })),
-		livestock: tank.livestock.map((a) => ({ id: String(a.id), speciesId: a.speciesId ? String(a.speciesId) : '', name: a.name, count: String(a.count), added: a.addedOn ?? '', removed: a.removedOn ?? '' }))
+		plants: tank.plants.map((p) => ({
+			id: String(p.id),
+			speciesId: p.speciesId ? String(p.speciesId) : '',
+			name: p.name,
+			placement: p.placement ?? '',
+			added: p.addedOn ?? '',
+			removed: p.removedOn ?? ''
+		})),
+		livestock: tank.livestock.map((a) => ({
+			id: String(a.id),
+			speciesId: a.speciesId ? String(a.speciesId) : '',
+			name: a.name,
+			count: String(a.count),
+			added: a.addedOn ?? '',
+			removed: a.removedOn ?? ''
+		}))
 	};
 }
 
@@ -307,7 +327,13 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 		const unit = oneOf<FlowUnit>(`filters.${i}.unit`, f.unit || 'lph', FLOW_UNITS, 'Choose L/h or US gal/h.') ?? 'lph';
 		// The rated flow is kept in the unit printed on the filter, converted only for the figures.
 		const flow = number(`filters.${i}.flow`, f.flow, 1, 100000);
-		return { id: rowId(f.id), label: words(`filters.${i}.label`, f.label, 120), ratedFlow: flow, flowUnit: unit, mediaNotes: words(`filters.${i}.media`, f.media, 300) };
+		return {
+			id: rowId(f.id),
+			label: words(`filters.${i}.label`, f.label, 120),
+			ratedFlow: flow,
+			flowUnit: unit,
+			mediaNotes: words(`filters.${i}.media`, f.media, 300)
+		};
 	});
 	input.fertilisers = draft.fertilisers.map((f, i) => ({
 		id: rowId(f.id),

@@ -41,7 +41,11 @@ describe('mergeTimeline', () => {
 	});
 
 	test('sources cut to what the page needs give the same page as whole sources', () => {
-		const many = sorted(Array.from({ length: 40 }, (_, i) => key(i % 3 === 0 ? 'entry' : i % 3 === 1 ? 'event' : 'test', i + 1, `2026-0${1 + (i % 5)}-${String(1 + ((i * 7) % 28)).padStart(2, '0')}`)));
+		const many = sorted(
+			Array.from({ length: 40 }, (_, i) =>
+				key(i % 3 === 0 ? 'entry' : i % 3 === 1 ? 'event' : 'test', i + 1, `2026-0${1 + (i % 5)}-${String(1 + ((i * 7) % 28)).padStart(2, '0')}`)
+			)
+		);
 		const byKind = (kind: string) => many.filter((k) => k.kind === kind);
 		const full = [byKind('entry'), byKind('event'), byKind('test')];
 		const totals = full.map((s) => s.length);

@@ -40,7 +40,12 @@ export const rowsNeeded = (page: number, pageSize: number) => Math.max(1, page) 
  * all it has) into one page. `totals` are the full row counts of the sources, for the page count;
  * a page past the end is answered with the last page.
  */
-export function mergeTimeline<K extends TimelineKey>(sources: readonly (readonly K[])[], totals: readonly number[], page: number, pageSize: number): TimelinePage<K> {
+export function mergeTimeline<K extends TimelineKey>(
+	sources: readonly (readonly K[])[],
+	totals: readonly number[],
+	page: number,
+	pageSize: number
+): TimelinePage<K> {
 	if (!Number.isInteger(pageSize) || pageSize < 1) throw new RangeError('pageSize must be a whole number of at least 1');
 	const total = totals.reduce((sum, n) => sum + n, 0);
 	const pages = Math.max(1, Math.ceil(total / pageSize));

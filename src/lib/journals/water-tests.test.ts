@@ -2,7 +2,20 @@ import { describe, expect, test } from 'vitest';
 import { NH3_PER_N } from './calc';
 import { buildSeries, derivedFigures, emptyWaterTestDraft, latestWarnings, parseWaterTest, readingsOf, type WaterTestValues } from './water-tests';
 
-const blank: WaterTestValues = { ph: null, kh: null, gh: null, no3: null, po4: null, k: null, fe: null, ammonia: null, ammoniaBasis: 'NH3', no2: null, temperatureC: null, tds: null };
+const blank: WaterTestValues = {
+	ph: null,
+	kh: null,
+	gh: null,
+	no3: null,
+	po4: null,
+	k: null,
+	fe: null,
+	ammonia: null,
+	ammoniaBasis: 'NH3',
+	no2: null,
+	temperatureC: null,
+	tds: null
+};
 const today = '2026-03-20';
 
 describe('parseWaterTest', () => {

@@ -196,7 +196,8 @@ export function derivedFigures(test: WaterTestValues): DerivedFigures {
 }
 
 /** The unit a parameter is shown in for the member (temperature in °F for US members). */
-export const displayUnit = (parameter: WaterParameter, units: UnitSystem) => (parameter === 'temperature' ? unitSymbol('temperature', units) : TARGET_BANDS[parameter].unit);
+export const displayUnit = (parameter: WaterParameter, units: UnitSystem) =>
+	parameter === 'temperature' ? unitSymbol('temperature', units) : TARGET_BANDS[parameter].unit;
 
 const shown = (parameter: WaterParameter, metric: number, units: UnitSystem) =>
 	parameter === 'temperature' ? roundTo(fromMetric('temperature', metric, units), 1) : metric;
@@ -278,7 +279,8 @@ export function latestWarnings(series: readonly Series[]): Warning[] {
 
 /** Usual first steps (common practice, no source); local advice and a vet for fish come first. */
 const DANGER_ADVICE: Partial<Record<WaterParameter, string>> = {
-	ammonia: 'Keepers usually change a large share of the water at once with dechlorinated water of the same temperature, feed little or nothing, and test again the next day.',
+	ammonia:
+		'Keepers usually change a large share of the water at once with dechlorinated water of the same temperature, feed little or nothing, and test again the next day.',
 	NO2: 'Keepers usually change a large share of the water at once, feed little, and test daily until nitrite reads zero.',
 	NO3: 'Change water in steps over a few days rather than all at once, and look for the source (overfeeding, a dead animal, too much dosing).',
 	pH: 'Check the test and the CO2 first; change the pH slowly, over days, never in one go.',

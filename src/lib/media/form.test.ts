@@ -21,15 +21,39 @@ describe('readPhotoFields', () => {
 			'photos',
 			12
 		);
-		expect(result).toEqual({ ok: true, photos: [{ id: 12, alt: 'Front view', caption: '' }, { id: 7, alt: '', caption: 'After the trim' }] });
+		expect(result).toEqual({
+			ok: true,
+			photos: [
+				{ id: 12, alt: 'Front view', caption: '' },
+				{ id: 7, alt: '', caption: 'After the trim' }
+			]
+		});
 	});
 
 	test('refuses more than max, a repeated id, a bad id and over-long text', () => {
 		const three = form([1, 2, 3].flatMap((i) => [[`p[${i - 1}][id]`, String(i)]] as [string, string][]));
 		expect(readPhotoFields(three, 'p', 2)).toEqual({ ok: false, error: 'Add at most 2 photos.' });
-		expect(readPhotoFields(form([['p[0][id]', '4'], ['p[1][id]', '4']]), 'p', 6)).toMatchObject({ ok: false, error: 'The same photo appears twice.' });
+		expect(
+			readPhotoFields(
+				form([
+					['p[0][id]', '4'],
+					['p[1][id]', '4']
+				]),
+				'p',
+				6
+			)
+		).toMatchObject({ ok: false, error: 'The same photo appears twice.' });
 		expect(readPhotoFields(form([['p[0][id]', 'x']]), 'p', 6).ok).toBe(false);
-		expect(readPhotoFields(form([['p[0][id]', '4'], ['p[0][alt]', 'a'.repeat(301)]]), 'p', 6)).toMatchObject({ ok: false, error: 'Keep the description to 300 characters.' });
+		expect(
+			readPhotoFields(
+				form([
+					['p[0][id]', '4'],
+					['p[0][alt]', 'a'.repeat(301)]
+				]),
+				'p',
+				6
+			)
+		).toMatchObject({ ok: false, error: 'Keep the description to 300 characters.' });
 	});
 
 	test('no fields is no photos; other prefixes are ignored', () => {

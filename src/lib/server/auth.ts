@@ -12,7 +12,11 @@ import { safeRedirectPath } from '../club/redirect';
 export const SIGN_IN_LINK_MINUTES = 10;
 export const SESSION_IDLE_DAYS = 30;
 
-export const { handle: authHandle, signIn, signOut } = SvelteKitAuth(async () => {
+export const {
+	handle: authHandle,
+	signIn,
+	signOut
+} = SvelteKitAuth(async () => {
 	const settings = config();
 	return {
 		secret: settings.AUTH_SECRET,

@@ -4,9 +4,7 @@ import { z } from 'zod';
 // read through this one module so scripts, workers and tests see the same values as the app.
 // Defaults match what `npm start` sets up locally; see .env.example.
 
-const bool = z
-	.enum(['1', '0', 'true', 'false', 'yes', 'no', 'on', 'off'])
-	.transform((v) => ['1', 'true', 'yes', 'on'].includes(v));
+const bool = z.enum(['1', '0', 'true', 'false', 'yes', 'no', 'on', 'off']).transform((v) => ['1', 'true', 'yes', 'on'].includes(v));
 
 const schema = z.object({
 	DATABASE_URL: z.string().url().default('mysql://riparia@127.0.0.1:3307/riparia'),
@@ -20,7 +18,11 @@ const schema = z.object({
 	S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
 	S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
 	S3_FORCE_PATH_STYLE: bool.default(true),
-	ADMIN_EMAIL: z.string().email().optional().or(z.literal('').transform(() => undefined)),
+	ADMIN_EMAIL: z
+		.string()
+		.email()
+		.optional()
+		.or(z.literal('').transform(() => undefined)),
 	SIGNIN_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(5),
 	SIGNIN_LIMIT_PER_CLIENT: z.coerce.number().int().positive().default(20),
 	OUTBOX_WORKER: bool.default(true),

@@ -192,7 +192,9 @@ describe('the feed’s copy of an entry stays harmless', () => {
 	});
 	test('our own pictures and links become absolute on our origin, nothing else changes', () => {
 		const html = absoluteLinks(renderMarkdown('![Front](/media/12/medium) and [the tank](/journals/3) and [elsewhere](https://x.test/a)'), BASE);
-		expect(html).toBe(`<p><img src="https://riparia.test/media/12/medium" alt="Front" /> and <a href="https://riparia.test/journals/3" rel="${LINK_REL}">the tank</a> and <a href="https://x.test/a" rel="${LINK_REL}">elsewhere</a></p>\n`);
+		expect(html).toBe(
+			`<p><img src="https://riparia.test/media/12/medium" alt="Front" /> and <a href="https://riparia.test/journals/3" rel="${LINK_REL}">the tank</a> and <a href="https://x.test/a" rel="${LINK_REL}">elsewhere</a></p>\n`
+		);
 	});
 });
 
@@ -210,9 +212,13 @@ describe('markdown rendering keeps what members write', () => {
 	});
 
 	test('links get rel="nofollow ugc noopener" and keep http, https and mailto', () => {
-		expect(renderMarkdown('[guide](https://example.org/a?b=1 "Guide")')).toBe(`<p><a href="https://example.org/a?b=1" title="Guide" rel="${LINK_REL}">guide</a></p>\n`);
+		expect(renderMarkdown('[guide](https://example.org/a?b=1 "Guide")')).toBe(
+			`<p><a href="https://example.org/a?b=1" title="Guide" rel="${LINK_REL}">guide</a></p>\n`
+		);
 		expect(renderMarkdown('<mailto:club@example.org>')).toContain(`href="mailto:club@example.org" rel="${LINK_REL}"`);
-		expect(renderMarkdown('<a href="https://example.org" rel="opener" target="_blank">x</a>')).toBe(`<p><a href="https://example.org" rel="${LINK_REL}">x</a></p>\n`);
+		expect(renderMarkdown('<a href="https://example.org" rel="opener" target="_blank">x</a>')).toBe(
+			`<p><a href="https://example.org" rel="${LINK_REL}">x</a></p>\n`
+		);
 	});
 
 	test('pictures from our own photo route are kept, with their description', () => {

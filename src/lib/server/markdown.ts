@@ -46,7 +46,23 @@ const sanitizeOptions: sanitizeHtml.IOptions = {
 	allowProtocolRelative: false,
 	disallowedTagsMode: 'discard',
 	// Elements whose content is dropped with them, not kept as text.
-	nonTextTags: ['script', 'style', 'textarea', 'option', 'noscript', 'xmp', 'iframe', 'noembed', 'noframes', 'template', 'svg', 'math', 'title', 'select', 'object'],
+	nonTextTags: [
+		'script',
+		'style',
+		'textarea',
+		'option',
+		'noscript',
+		'xmp',
+		'iframe',
+		'noembed',
+		'noframes',
+		'template',
+		'svg',
+		'math',
+		'title',
+		'select',
+		'object'
+	],
 	transformTags: {
 		a: (tagName, attribs) => ({ tagName, attribs: { ...attribs, rel: LINK_REL } }),
 		img: (tagName, attribs) => {
@@ -64,4 +80,3 @@ export function renderMarkdown(source: string): string {
 	const html = marked.parse(source.slice(0, MARKDOWN_MAX_CHARS)) as string;
 	return sanitizeHtml(html, sanitizeOptions);
 }
-

@@ -24,7 +24,8 @@ export interface BoardFilter {
 
 export const EMPTY_FILTER: BoardFilter = { q: '', category: null, kind: null, speciesId: null, speciesName: '', radiusKm: null, page: 1 };
 
-const oneOf = <T extends string>(list: readonly T[], value: string | null): T | null => (value !== null && (list as readonly string[]).includes(value) ? (value as T) : null);
+const oneOf = <T extends string>(list: readonly T[], value: string | null): T | null =>
+	value !== null && (list as readonly string[]).includes(value) ? (value as T) : null;
 
 const positiveInt = (value: string | null, max: number): number | null => {
 	if (value === null || !/^\d{1,9}$/.test(value)) return null;

@@ -4,7 +4,15 @@ import type { Listing } from './listing-state';
 
 // Our own rules (no source), derived from the listing state machine.
 const now = new Date('2031-04-01T12:00:00Z');
-const base: Listing = { id: '1', ownerId: 'owner', kind: 'offer', category: 'plants', state: 'open', availableUntil: new Date('2031-04-05T00:00:00Z'), reservation: null };
+const base: Listing = {
+	id: '1',
+	ownerId: 'owner',
+	kind: 'offer',
+	category: 'plants',
+	state: 'open',
+	availableUntil: new Date('2031-04-05T00:00:00Z'),
+	reservation: null
+};
 const reserved = (requestId: string, state: Listing['state'] = 'reserved'): Listing => ({
 	...base,
 	state,
@@ -38,7 +46,11 @@ describe('conversation status', () => {
 describe('an admin withdrawing a listing', () => {
 	test('open, reserved and expired listings; the reservation is cancelled and named in the event', () => {
 		const result = moderatorWithdraw(reserved('7'), 'admin', now);
-		expect(result).toMatchObject({ ok: true, listing: { state: 'withdrawn', reservation: null }, event: { action: 'withdraw', actorId: 'admin', from: 'reserved', to: 'withdrawn', requesterId: 'req' } });
+		expect(result).toMatchObject({
+			ok: true,
+			listing: { state: 'withdrawn', reservation: null },
+			event: { action: 'withdraw', actorId: 'admin', from: 'reserved', to: 'withdrawn', requesterId: 'req' }
+		});
 		expect(moderatorWithdraw(base, 'admin', new Date('2031-04-06T00:00:00Z'))).toMatchObject({ ok: true, event: { from: 'expired' } });
 	});
 	test('not once handed over or withdrawn', () => {

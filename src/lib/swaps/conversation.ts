@@ -35,7 +35,10 @@ export const CONVERSATION_STATUS_LABELS: Readonly<Record<ConversationStatus, str
  */
 export function moderatorWithdraw(listing: Listing, adminId: string, now: Date): TransitionResult {
 	if (listing.state === 'handed-over' || listing.state === 'withdrawn') {
-		return { ok: false, error: { code: 'closed', message: listing.state === 'handed-over' ? 'This listing has already been handed over.' : 'This listing has been withdrawn.' } };
+		return {
+			ok: false,
+			error: { code: 'closed', message: listing.state === 'handed-over' ? 'This listing has already been handed over.' : 'This listing has been withdrawn.' }
+		};
 	}
 	const event: ListingEvent = {
 		listingId: listing.id,

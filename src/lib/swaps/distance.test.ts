@@ -21,7 +21,7 @@ function destination(start: LatLng, bearingRad: number, metres: number): LatLng 
 	const lambda1 = (start.lng * Math.PI) / 180;
 	const phi2 = Math.asin(Math.sin(phi1) * Math.cos(d) + Math.cos(phi1) * Math.sin(d) * Math.cos(bearingRad));
 	const lambda2 = lambda1 + Math.atan2(Math.sin(bearingRad) * Math.sin(d) * Math.cos(phi1), Math.cos(d) - Math.sin(phi1) * Math.sin(phi2));
-	const lng = ((((lambda2 * 180) / Math.PI + 540) % 360) + 360) % 360 - 180;
+	const lng = (((((lambda2 * 180) / Math.PI + 540) % 360) + 360) % 360) - 180;
 	return { lat: (phi2 * 180) / Math.PI, lng };
 }
 

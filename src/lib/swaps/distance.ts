@@ -84,10 +84,24 @@ export function boundingBox(center: LatLng, radiusMetres: number, radius: number
 	const minLng = center.lng - dLng;
 	const maxLng = center.lng + dLng;
 	if (minLng < -180) {
-		return { ...box, lngRanges: [{ min: minLng + 360, max: 180 }, { min: -180, max: maxLng }], crossesAntimeridian: true };
+		return {
+			...box,
+			lngRanges: [
+				{ min: minLng + 360, max: 180 },
+				{ min: -180, max: maxLng }
+			],
+			crossesAntimeridian: true
+		};
 	}
 	if (maxLng > 180) {
-		return { ...box, lngRanges: [{ min: minLng, max: 180 }, { min: -180, max: maxLng - 360 }], crossesAntimeridian: true };
+		return {
+			...box,
+			lngRanges: [
+				{ min: minLng, max: 180 },
+				{ min: -180, max: maxLng - 360 }
+			],
+			crossesAntimeridian: true
+		};
 	}
 	return { ...box, lngRanges: [{ min: minLng, max: maxLng }], crossesAntimeridian: false };
 }

@@ -2,7 +2,13 @@ import { describe, expect, test } from 'vitest';
 import { emptyDraft, parseListingDraft, untilEndOf, type ListingDraft } from './listing-form';
 
 const now = new Date('2031-03-01T09:30:00Z');
-const draft = (over: Partial<ListingDraft> = {}): ListingDraft => ({ ...emptyDraft('plants', now, 4), title: 'Rotala tops', amount: '12', unit: 'stems', ...over });
+const draft = (over: Partial<ListingDraft> = {}): ListingDraft => ({
+	...emptyDraft('plants', now, 4),
+	title: 'Rotala tops',
+	amount: '12',
+	unit: 'stems',
+	...over
+});
 
 // The form's rules are ours (no source); the day arithmetic follows the Gregorian calendar.
 describe('the listing form', () => {
@@ -40,7 +46,10 @@ describe('the listing form', () => {
 	});
 
 	test('field errors', () => {
-		const parsed = parseListingDraft(draft({ title: 'ab', amount: '2.5', terms: 'token', termsNote: '', availableUntil: '2031-02-30', pickupAreaId: 'x' }), now);
+		const parsed = parseListingDraft(
+			draft({ title: 'ab', amount: '2.5', terms: 'token', termsNote: '', availableUntil: '2031-02-30', pickupAreaId: 'x' }),
+			now
+		);
 		expect(parsed).toEqual({
 			ok: false,
 			errors: {
@@ -51,12 +60,21 @@ describe('the listing form', () => {
 				pickupAreaId: 'Choose one of the club areas.'
 			}
 		});
-		expect(parseListingDraft(draft({ unit: 'individuals' }), now)).toMatchObject({ ok: false, errors: { unit: '"animals" does not fit plants; choose stems, portions, pots, cm² of mat or pieces.' } });
-		expect(parseListingDraft(draft({ kind: 'sale', category: 'boats' }), now)).toMatchObject({ ok: false, errors: { kind: 'Choose an offer or a wanted post.', category: 'Choose a category.' } });
+		expect(parseListingDraft(draft({ unit: 'individuals' }), now)).toMatchObject({
+			ok: false,
+			errors: { unit: '"animals" does not fit plants; choose stems, portions, pots, cm² of mat or pieces.' }
+		});
+		expect(parseListingDraft(draft({ kind: 'sale', category: 'boats' }), now)).toMatchObject({
+			ok: false,
+			errors: { kind: 'Choose an offer or a wanted post.', category: 'Choose a category.' }
+		});
 	});
 
 	test('the day must be in the future and within 90 days; the last allowed day works all day', () => {
-		expect(parseListingDraft(draft({ availableUntil: '2031-02-28' }), now)).toMatchObject({ ok: false, errors: { availableUntil: 'Choose a date in the future.' } });
+		expect(parseListingDraft(draft({ availableUntil: '2031-02-28' }), now)).toMatchObject({
+			ok: false,
+			errors: { availableUntil: 'Choose a date in the future.' }
+		});
 		// 1 March + 90 days = 30 May 2031.
 		expect(untilEndOf('2031-05-30', now)).toEqual(new Date('2031-05-30T09:30:00.000Z'));
 		expect(parseListingDraft(draft({ availableUntil: '2031-05-30' }), now).ok).toBe(true);

@@ -1,6 +1,15 @@
 // The listing form: what the member typed (kept as text, so a failed save shows it again) and
 // the checked input the server saves.
-import { checkAvailableUntil, DAY_MS, defaultAvailableUntil, LISTING_CATEGORIES, LISTING_KINDS, MAX_AVAILABLE_DAYS, type ListingCategory, type ListingKind } from './listing';
+import {
+	checkAvailableUntil,
+	DAY_MS,
+	defaultAvailableUntil,
+	LISTING_CATEGORIES,
+	LISTING_KINDS,
+	MAX_AVAILABLE_DAYS,
+	type ListingCategory,
+	type ListingKind
+} from './listing';
 import { checkQuantity, unitsFor, type Quantity } from './quantity';
 import { checkTerms, type ListingTerms } from './terms';
 
@@ -47,7 +56,22 @@ export interface ListingInput {
 	tankId: number | null;
 }
 
-const FIELDS: (keyof ListingDraft)[] = ['kind', 'category', 'title', 'speciesId', 'speciesName', 'amount', 'unit', 'condition', 'description', 'terms', 'termsNote', 'pickupAreaId', 'availableUntil', 'tankId'];
+const FIELDS: (keyof ListingDraft)[] = [
+	'kind',
+	'category',
+	'title',
+	'speciesId',
+	'speciesName',
+	'amount',
+	'unit',
+	'condition',
+	'description',
+	'terms',
+	'termsNote',
+	'pickupAreaId',
+	'availableUntil',
+	'tankId'
+];
 
 export function draftFromForm(form: FormData): ListingDraft {
 	return Object.fromEntries(FIELDS.map((f) => [f, String(form.get(f) ?? '')])) as unknown as ListingDraft;
@@ -159,4 +183,3 @@ export function parseListingDraft(d: ListingDraft, now: Date): ParsedListing {
 		}
 	};
 }
-

@@ -173,7 +173,11 @@ describe('transition details', () => {
 		const result = transition(base, actions.accept, owner, now);
 		expect(result).toEqual({
 			ok: true,
-			listing: { ...base, state: 'reserved', reservation: { requestId: 'q1', requesterId: 'rue', acceptedAt: now, ownerConfirmedAt: null, requesterConfirmedAt: null } },
+			listing: {
+				...base,
+				state: 'reserved',
+				reservation: { requestId: 'q1', requesterId: 'rue', acceptedAt: now, ownerConfirmedAt: null, requesterConfirmedAt: null }
+			},
 			event: { listingId: 'l1', action: 'accept', actorId: 'ola', at: now, from: 'open', to: 'reserved', requesterId: 'rue' }
 		});
 	});

@@ -62,16 +62,7 @@ export interface ListingEvent {
 }
 
 export type TransitionErrorCode =
-	| 'not-owner'
-	| 'not-a-party'
-	| 'system-only'
-	| 'own-request'
-	| 'already-reserved'
-	| 'not-reserved'
-	| 'closed'
-	| 'already-confirmed'
-	| 'not-due'
-	| 'bad-date';
+	'not-owner' | 'not-a-party' | 'system-only' | 'own-request' | 'already-reserved' | 'not-reserved' | 'closed' | 'already-confirmed' | 'not-due' | 'bad-date';
 
 export interface TransitionError {
 	code: TransitionErrorCode;
@@ -122,7 +113,8 @@ export function checkAction(listing: Listing, type: ListingActionType, actor: Ac
 	switch (type) {
 		case 'accept':
 			if (!isOwner) return notOwner;
-			if (state === 'reserved') return error('already-reserved', 'This listing is already reserved. Release that reservation before accepting another request.');
+			if (state === 'reserved')
+				return error('already-reserved', 'This listing is already reserved. Release that reservation before accepting another request.');
 			return isClosed(state) ? closed : null;
 		case 'release':
 			if (!isOwner) return notOwner;

@@ -26,11 +26,7 @@ export const DEFAULT_AVAILABLE_DAYS: Readonly<Record<ListingCategory, number>> =
 export const MAX_AVAILABLE_DAYS = 90;
 
 /** `from` plus the category's default days (or the club's own, via `days`). */
-export function defaultAvailableUntil(
-	category: ListingCategory,
-	from: Date,
-	days: Partial<Record<ListingCategory, number>> = {}
-): Date {
+export function defaultAvailableUntil(category: ListingCategory, from: Date, days: Partial<Record<ListingCategory, number>> = {}): Date {
 	const n = days[category] ?? DEFAULT_AVAILABLE_DAYS[category];
 	if (!(n > 0) || n > MAX_AVAILABLE_DAYS) throw new RangeError(`Listings stay available for 1 to ${MAX_AVAILABLE_DAYS} days.`);
 	return new Date(from.getTime() + n * DAY_MS);

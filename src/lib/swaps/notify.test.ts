@@ -13,9 +13,10 @@ function replay(setting: NotifySetting, messageMinutes: number[], jobEveryMinute
 	let lastMail: Date | null = null;
 	let pending: number[] = [];
 	let lastSummary: Date | null = null;
-	const events = [...messageMinutes.map((m) => ({ m, kind: 'message' as const })), ...Array.from({ length: Math.floor(until / jobEveryMinutes) }, (_, i) => ({ m: (i + 1) * jobEveryMinutes, kind: 'job' as const }))].sort(
-		(a, b) => a.m - b.m || (a.kind === 'message' ? -1 : 1)
-	);
+	const events = [
+		...messageMinutes.map((m) => ({ m, kind: 'message' as const })),
+		...Array.from({ length: Math.floor(until / jobEveryMinutes) }, (_, i) => ({ m: (i + 1) * jobEveryMinutes, kind: 'job' as const }))
+	].sort((a, b) => a.m - b.m || (a.kind === 'message' ? -1 : 1));
 	let id = 0;
 	for (const e of events) {
 		if (e.kind === 'message') {
@@ -75,7 +76,15 @@ describe('message mail batching', () => {
 			at(-61),
 			t0
 		);
-		expect(plan).toEqual([{ kind: 'summary', threads: [{ threadId: 1, messageIds: [10, 11] }, { threadId: 2, messageIds: [12] }] }]);
+		expect(plan).toEqual([
+			{
+				kind: 'summary',
+				threads: [
+					{ threadId: 1, messageIds: [10, 11] },
+					{ threadId: 2, messageIds: [12] }
+				]
+			}
+		]);
 	});
 
 	test('"off": never', () => {

@@ -40,7 +40,8 @@ export interface PendingThread {
 	lastMailAt: Date | null;
 }
 
-export type PlannedMail = { kind: 'thread'; threadId: number; messageIds: number[] } | { kind: 'summary'; threads: { threadId: number; messageIds: number[] }[] };
+export type PlannedMail =
+	{ kind: 'thread'; threadId: number; messageIds: number[] } | { kind: 'summary'; threads: { threadId: number; messageIds: number[] }[] };
 
 /**
  * Decided by the periodic job for one recipient: which mails to send now. Threads still inside

@@ -9,8 +9,7 @@ import { TANK_COVER_MAX } from '$lib/journals/tank-vocabulary';
 import type { UploaderPhoto } from '$lib/components/PhotoUploader.svelte';
 
 export type TankFormRead =
-	| { ok: true; input: TankInput; cover: PhotoField[] }
-	| { ok: false; errors: Record<string, string>; draft: TankDraft; cover: UploaderPhoto[] };
+	{ ok: true; input: TankInput; cover: PhotoField[] } | { ok: false; errors: Record<string, string>; draft: TankDraft; cover: UploaderPhoto[] };
 
 /** The cover photos the form named, as the uploader shows them again after an error. */
 async function coverAgain(viewer: Viewer, fields: PhotoField[], tankId: number | null): Promise<UploaderPhoto[]> {

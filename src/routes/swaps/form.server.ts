@@ -41,9 +41,14 @@ export async function readListingForm(request: Request, viewer: Viewer, listingI
 /** A refusal of the domain as the form shows it, next to its field. */
 export async function failed(error: unknown, viewer: Viewer, read: Extract<ListingFormRead, { ok: true }>, listingId: number | null) {
 	if (error instanceof SwapError && error.status !== 404) {
-		return fail(error.status, { errors: { [error.field ?? 'form']: error.message }, draft: read.draft, photos: await photosAgain(viewer, read.photos, listingId) });
+		return fail(error.status, {
+			errors: { [error.field ?? 'form']: error.message },
+			draft: read.draft,
+			photos: await photosAgain(viewer, read.photos, listingId)
+		});
 	}
-	if (error instanceof MediaError) return fail(400, { errors: { photos: error.message }, draft: read.draft, photos: await photosAgain(viewer, read.photos, listingId) });
+	if (error instanceof MediaError)
+		return fail(400, { errors: { photos: error.message }, draft: read.draft, photos: await photosAgain(viewer, read.photos, listingId) });
 	throw error;
 }
 

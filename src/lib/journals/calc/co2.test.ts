@@ -1,12 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import {
-	CO2_ESTIMATE_EXPLANATION,
-	CO2_SAFETY_CAUTION,
-	carbonicAcidPK1,
-	co2FromEquilibrium,
-	co2FromHobbyRule,
-	estimateCo2
-} from './co2';
+import { CO2_ESTIMATE_EXPLANATION, CO2_SAFETY_CAUTION, carbonicAcidPK1, co2FromEquilibrium, co2FromHobbyRule, estimateCo2 } from './co2';
 
 describe('carbonicAcidPK1 (Plummer & Busenberg 1982)', () => {
 	test('about 6.35 at 25 °C: 6.352, the value measured by Harned & Davis (1943), from memory', () => {

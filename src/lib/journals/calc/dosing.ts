@@ -38,9 +38,10 @@ const NUTRIENT_COMPOSITION: Record<Nutrient, Composition> = {
 	P: { P: 1 }
 };
 
-export const NUTRIENT_MOLAR_MASS: Record<Nutrient, number> = Object.fromEntries(
-	NUTRIENTS.map((n) => [n, molarMass(NUTRIENT_COMPOSITION[n])])
-) as Record<Nutrient, number>;
+export const NUTRIENT_MOLAR_MASS: Record<Nutrient, number> = Object.fromEntries(NUTRIENTS.map((n) => [n, molarMass(NUTRIENT_COMPOSITION[n])])) as Record<
+	Nutrient,
+	number
+>;
 
 export interface Salt {
 	id: SaltId;

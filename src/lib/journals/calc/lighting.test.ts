@@ -21,7 +21,13 @@ describe('summariseLighting', () => {
 		expect(s.photoperiodNote).toMatch(/Sunset strip runs shorter/);
 	});
 	test('equal on-times need no note; no fixtures gives zeros', () => {
-		const s = summariseLighting([{ label: 'A', watts: 30, hoursPerDay: 7 }, { label: 'B', watts: 30, hoursPerDay: 7 }], 60);
+		const s = summariseLighting(
+			[
+				{ label: 'A', watts: 30, hoursPerDay: 7 },
+				{ label: 'B', watts: 30, hoursPerDay: 7 }
+			],
+			60
+		);
 		expect(s.photoperiodsDiffer).toBe(false);
 		expect(s.photoperiodNote).toBeNull();
 		expect(summariseLighting([], 60)).toMatchObject({ totalWatts: 0, whPerDay: 0, photoperiodHours: 0 });

@@ -180,7 +180,8 @@ export function parseQuantity(quantity: Quantity, input: string, system: UnitSys
 		convert = DISPLAY_UNITS[quantity][system].toMetric;
 	} else {
 		const converter = SUFFIXES[quantity][suffix];
-		if (converter === undefined) return { ok: false, error: `"${match[2]}" is not a unit of ${quantity} we know; leave it out to use ${unitSymbol(quantity, system)}.` };
+		if (converter === undefined)
+			return { ok: false, error: `"${match[2]}" is not a unit of ${quantity} we know; leave it out to use ${unitSymbol(quantity, system)}.` };
 		if (converter === 'gallon' && system === 'metric') return { ok: false, error: 'Say "US gal" or "imp gal": the two gallons differ by a fifth.' };
 		convert = converter === 'gallon' ? DISPLAY_UNITS[quantity][system].toMetric : converter;
 	}

@@ -19,7 +19,9 @@ export async function create(actor: Viewer, name: string, centre: LatLng): Promi
 	const point = roundToKilometre(centre);
 	await db.transaction(async (tx) => {
 		const [result] = await tx.insert(clubAreas).values({ name, lat: point.lat, lng: point.lng });
-		await tx.insert(auditLog).values({ actorId: actor.id, action: 'area.create', subjectType: 'club_area', subjectId: String(result.insertId), detail: { name } });
+		await tx
+			.insert(auditLog)
+			.values({ actorId: actor.id, action: 'area.create', subjectType: 'club_area', subjectId: String(result.insertId), detail: { name } });
 	});
 }
 
@@ -28,7 +30,9 @@ export async function rename(actor: Viewer, id: number, name: string): Promise<v
 		const [before] = await tx.select().from(clubAreas).where(eq(clubAreas.id, id)).for('update');
 		if (!before) return;
 		await tx.update(clubAreas).set({ name }).where(eq(clubAreas.id, id));
-		await tx.insert(auditLog).values({ actorId: actor.id, action: 'area.rename', subjectType: 'club_area', subjectId: String(id), detail: { from: before.name, to: name } });
+		await tx
+			.insert(auditLog)
+			.values({ actorId: actor.id, action: 'area.rename', subjectType: 'club_area', subjectId: String(id), detail: { from: before.name, to: name } });
 	});
 }
 

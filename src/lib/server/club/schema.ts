@@ -1,17 +1,5 @@
 import type { AdapterAccountType } from '@auth/core/adapters';
-import {
-	boolean,
-	char,
-	decimal,
-	index,
-	int,
-	json,
-	mysqlEnum,
-	mysqlTable,
-	primaryKey,
-	timestamp,
-	varchar,
-} from 'drizzle-orm/mysql-core';
+import { boolean, char, decimal, index, int, json, mysqlEnum, mysqlTable, primaryKey, timestamp, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 import { ROLES, UNIT_SYSTEMS } from '../../club/roles';
 
@@ -101,10 +89,7 @@ export const signInRequests = mysqlTable(
 		clientHash: char({ length: 64 }).notNull(),
 		createdAt: at().notNull()
 	},
-	(t) => [
-		index('sign_in_email_idx').on(t.emailHash, t.createdAt),
-		index('sign_in_client_idx').on(t.clientHash, t.createdAt)
-	]
+	(t) => [index('sign_in_email_idx').on(t.emailHash, t.createdAt), index('sign_in_client_idx').on(t.clientHash, t.createdAt)]
 );
 
 /** Admin-defined neighbourhoods with a centre point; members may pick one as their home area. */

@@ -141,6 +141,9 @@ export async function promoteConfiguredAdmin(email: string | undefined, tx: DbOr
 }
 
 /** Records an action on someone else's data (e.g. an admin removing a member's comment) in the audit log. */
-export async function recordAudit(tx: DbOrTx, entry: { actorId: string; action: string; subjectType: string; subjectId: string; detail?: Record<string, unknown> }): Promise<void> {
+export async function recordAudit(
+	tx: DbOrTx,
+	entry: { actorId: string; action: string; subjectType: string; subjectId: string; detail?: Record<string, unknown> }
+): Promise<void> {
 	await tx.insert(auditLog).values(entry);
 }

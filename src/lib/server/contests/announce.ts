@@ -56,11 +56,7 @@ export function entrantMail(results: PublicResults, entry: PublicEntry, name: st
 			: `Your entry in ${category.name}${entry.number ? ` (number ${entry.number})` : ''} placed ${formatPlace(entry.place, entry.sharedWith > 0)} of ${category.entries.length} with ${formatPercent(entry.score)}.`;
 	const { html, text } = renderMail({
 		heading: `Your result in “${c.title}”`,
-		paragraphs: [
-			`Hello ${name},`,
-			placed,
-			'Each judge’s scores and comments for your entry are on your feedback page; the results page shows every entry.'
-		],
+		paragraphs: [`Hello ${name},`, placed, 'Each judge’s scores and comments for your entry are on your feedback page; the results page shows every entry.'],
 		action: { label: 'Read your feedback', url: feedbackUrl(c.id, entry.entryId) },
 		footer: 'You get this mail because you entered this contest.'
 	});
@@ -80,7 +76,10 @@ async function plan(contestId: number, tx: DbOrTx): Promise<AnnouncementPlan> {
 	if (!results) throw new ContestError(409, 'The results are not published yet.', 'not-published');
 	const recipients = await people.announcementRecipients(tx);
 	const entries = results.categories.flatMap((c) => c.entries);
-	const who = await people.byIds(entries.map((e) => e.entrantId), tx);
+	const who = await people.byIds(
+		entries.map((e) => e.entrantId),
+		tx
+	);
 	return {
 		results,
 		recipients,
@@ -137,7 +136,11 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 		await enqueue(tx, mails, now);
 		if (locked.announcedRevision !== p.revision) {
 			await tx.update(contests).set({ announcedRevision: p.revision }).where(eq(contests.id, contestId));
-			await audit.record(tx, viewer.id, 'results.announce', contestId, { revision: p.revision, announcements: p.recipients.length, entrants: p.entrants.length });
+			await audit.record(tx, viewer.id, 'results.announce', contestId, {
+				revision: p.revision,
+				announcements: p.recipients.length,
+				entrants: p.entrants.length
+			});
 		}
 		return { queued: mails.length };
 	});
@@ -146,6 +149,9 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 /** Per-recipient delivery of this contest's results mails, optionally for addresses containing `address`. */
 export async function delivery(viewer: Viewer, contestId: number, page: number, address?: string) {
 	assertAdmin(viewer);
-	const [summary, listing] = await Promise.all([deliverySummary(topicPrefix(contestId)), listOutbox({ topic: topicPrefix(contestId), address: address || undefined, page })]);
+	const [summary, listing] = await Promise.all([
+		deliverySummary(topicPrefix(contestId)),
+		listOutbox({ topic: topicPrefix(contestId), address: address || undefined, page })
+	]);
 	return { summary, ...listing };
 }

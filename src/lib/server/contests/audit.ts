@@ -7,7 +7,14 @@ import { auditLog, users } from '../club/schema';
 export const SUBJECT = 'contest';
 
 /** `at` defaults to the database's clock; steps taken on a given day (the demo data) pass theirs. */
-export async function record(tx: DbOrTx, actorId: string | null, action: string, contestId: number, detail: Record<string, unknown> = {}, at?: Date): Promise<void> {
+export async function record(
+	tx: DbOrTx,
+	actorId: string | null,
+	action: string,
+	contestId: number,
+	detail: Record<string, unknown> = {},
+	at?: Date
+): Promise<void> {
 	await tx.insert(auditLog).values({ actorId, action, subjectType: SUBJECT, subjectId: String(contestId), detail, ...(at ? { createdAt: at } : {}) });
 }
 

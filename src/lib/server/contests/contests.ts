@@ -23,14 +23,16 @@ export function assertAdmin(viewer: Viewer): void {
 	if (viewer.role !== 'admin') throw new ContestError(403, 'Only admins can do this.', 'forbidden');
 }
 
-export const canSee = (viewer: Pick<Viewer, 'role'> | null | undefined, contest: Pick<ContestRow, 'state'>) => contest.state !== 'draft' || isAdminViewer(viewer);
+export const canSee = (viewer: Pick<Viewer, 'role'> | null | undefined, contest: Pick<ContestRow, 'state'>) =>
+	contest.state !== 'draft' || isAdminViewer(viewer);
 
 /** The rubric as the judging functions take it: criterion ids as strings, in display order. */
 export const rubricOf = (criteria: readonly CriterionRow[]): Rubric =>
 	[...criteria].sort((a, b) => a.position - b.position).map((c) => ({ id: String(c.id), label: c.label, maxPoints: c.maxPoints, weight: c.weight }));
 
 /** Criterion ids in the order they break ties. */
-export const tieBreakOf = (criteria: readonly CriterionRow[]): string[] => [...criteria].sort((a, b) => a.tieBreakRank - b.tieBreakRank || a.position - b.position).map((c) => String(c.id));
+export const tieBreakOf = (criteria: readonly CriterionRow[]): string[] =>
+	[...criteria].sort((a, b) => a.tieBreakRank - b.tieBreakRank || a.position - b.position).map((c) => String(c.id));
 
 export const windowsOf = (c: Pick<ContestRow, 'entryOpensOn' | 'entryClosesOn' | 'judgingOpensOn' | 'judgingClosesOn'>): ContestWindows => ({
 	entryOpensOn: c.entryOpensOn,
@@ -39,7 +41,11 @@ export const windowsOf = (c: Pick<ContestRow, 'entryOpensOn' | 'entryClosesOn' |
 	judgingClosesOn: c.judgingClosesOn
 });
 
-export const ruleOf = (c: Pick<CategoryRow, 'minLitres' | 'maxLitres' | 'minAgeWeeks'>): EligibilityRule => ({ minLitres: c.minLitres, maxLitres: c.maxLitres, minAgeWeeks: c.minAgeWeeks });
+export const ruleOf = (c: Pick<CategoryRow, 'minLitres' | 'maxLitres' | 'minAgeWeeks'>): EligibilityRule => ({
+	minLitres: c.minLitres,
+	maxLitres: c.maxLitres,
+	minAgeWeeks: c.minAgeWeeks
+});
 
 export async function row(id: number, tx: DbOrTx = appDb, lock = false): Promise<ContestRow | undefined> {
 	const query = tx.select().from(contests).where(eq(contests.id, id)).limit(1);
@@ -82,8 +88,16 @@ async function summarise(rows: ContestRow[], tx: DbOrTx): Promise<ContestSummary
 	if (rows.length === 0) return [];
 	const ids = rows.map((r) => r.id);
 	const [counts, cats] = await Promise.all([
-		tx.select({ contestId: contestEntries.contestId, n: count() }).from(contestEntries).where(inArray(contestEntries.contestId, ids)).groupBy(contestEntries.contestId),
-		tx.select({ contestId: contestCategories.contestId, name: contestCategories.name }).from(contestCategories).where(inArray(contestCategories.contestId, ids)).orderBy(asc(contestCategories.position))
+		tx
+			.select({ contestId: contestEntries.contestId, n: count() })
+			.from(contestEntries)
+			.where(inArray(contestEntries.contestId, ids))
+			.groupBy(contestEntries.contestId),
+		tx
+			.select({ contestId: contestCategories.contestId, name: contestCategories.name })
+			.from(contestCategories)
+			.where(inArray(contestCategories.contestId, ids))
+			.orderBy(asc(contestCategories.position))
 	]);
 	const countOf = new Map(counts.map((c) => [c.contestId, c.n]));
 	return rows.map((r) => ({
@@ -107,7 +121,10 @@ export async function list(viewer: Viewer | null, options: { page: number }, tx:
 		byState(['open']),
 		byState(['judging']),
 		isAdminViewer(viewer) ? byState(['draft']) : Promise.resolve([]),
-		tx.select({ n: count() }).from(contests).where(inArray(contests.state, ['published', 'archived']))
+		tx
+			.select({ n: count() })
+			.from(contests)
+			.where(inArray(contests.state, ['published', 'archived']))
 	]);
 	const results = await tx
 		.select()
@@ -148,7 +165,9 @@ function settings(input: ContestInput) {
  */
 async function writeRubricAndCategories(tx: DbOrTx, contestId: number, input: ContestInput) {
 	const rank = new Map(input.tieBreak.map((key, i) => [key, i + 1]));
-	const existingCriteria = new Set((await tx.select({ id: contestCriteria.id }).from(contestCriteria).where(eq(contestCriteria.contestId, contestId))).map((r) => r.id));
+	const existingCriteria = new Set(
+		(await tx.select({ id: contestCriteria.id }).from(contestCriteria).where(eq(contestCriteria.contestId, contestId))).map((r) => r.id)
+	);
 	const keptCriteria: number[] = [];
 	for (const [position, c] of input.criteria.entries()) {
 		const values = { position, label: c.label, guidance: c.guidance, maxPoints: c.maxPoints, weight: c.weight, tieBreakRank: rank.get(c.key) ?? position + 1 };
@@ -162,9 +181,15 @@ async function writeRubricAndCategories(tx: DbOrTx, contestId: number, input: Co
 	}
 	await tx
 		.delete(contestCriteria)
-		.where(keptCriteria.length ? and(eq(contestCriteria.contestId, contestId), notInArray(contestCriteria.id, keptCriteria)) : eq(contestCriteria.contestId, contestId));
+		.where(
+			keptCriteria.length
+				? and(eq(contestCriteria.contestId, contestId), notInArray(contestCriteria.id, keptCriteria))
+				: eq(contestCriteria.contestId, contestId)
+		);
 
-	const existingCategories = new Set((await tx.select({ id: contestCategories.id }).from(contestCategories).where(eq(contestCategories.contestId, contestId))).map((r) => r.id));
+	const existingCategories = new Set(
+		(await tx.select({ id: contestCategories.id }).from(contestCategories).where(eq(contestCategories.contestId, contestId))).map((r) => r.id)
+	);
 	const keptCategories: number[] = [];
 	for (const [position, c] of input.categories.entries()) {
 		const values = { position, name: c.name, description: c.description, minLitres: c.minLitres, maxLitres: c.maxLitres, minAgeWeeks: c.minAgeWeeks };
@@ -178,7 +203,11 @@ async function writeRubricAndCategories(tx: DbOrTx, contestId: number, input: Co
 	}
 	await tx
 		.delete(contestCategories)
-		.where(keptCategories.length ? and(eq(contestCategories.contestId, contestId), notInArray(contestCategories.id, keptCategories)) : eq(contestCategories.contestId, contestId));
+		.where(
+			keptCategories.length
+				? and(eq(contestCategories.contestId, contestId), notInArray(contestCategories.id, keptCategories))
+				: eq(contestCategories.contestId, contestId)
+		);
 }
 
 export async function create(viewer: Viewer, input: ContestInput, database: DbOrTx = appDb, now?: Date): Promise<number> {
@@ -231,7 +260,14 @@ export function draftOf(c: ContestDetail): ContestDraft {
 		rules: c.rules,
 		entriesPerMember: String(c.entriesPerMember),
 		aggregation: c.aggregation,
-		criteria: c.criteria.map((k) => ({ id: String(k.id), key: key('c', k.id), label: k.label, guidance: k.guidance, maxPoints: String(k.maxPoints), weight: String(k.weight) })),
+		criteria: c.criteria.map((k) => ({
+			id: String(k.id),
+			key: key('c', k.id),
+			label: k.label,
+			guidance: k.guidance,
+			maxPoints: String(k.maxPoints),
+			weight: String(k.weight)
+		})),
 		tieBreak: [...c.criteria].sort((a, b) => a.tieBreakRank - b.tieBreakRank).map((k) => key('c', k.id)),
 		categories: c.categories.map((k) => ({
 			id: String(k.id),

@@ -77,28 +77,46 @@ export interface EntryInput extends EntryFields {
 async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryInput, entryId: number | null, now: Date) {
 	const contest = await row(contestId, tx, true);
 	if (!contest || contest.state === 'draft') throw new ContestNotFound('No such contest.');
-	if (!entriesAccepted(contest.state, windowsOf(contest), now)) throw new ContestError(409, 'This contest is not taking entries or changes any more.', 'closed');
+	if (!entriesAccepted(contest.state, windowsOf(contest), now))
+		throw new ContestError(409, 'This contest is not taking entries or changes any more.', 'closed');
 	const [category] = await tx
 		.select()
 		.from(contestCategories)
 		.where(and(eq(contestCategories.id, input.categoryId), eq(contestCategories.contestId, contestId)));
-	if (!category) throw new ContestError(400, 'Choose one of this contest’s categories.', 'bad-category', { categoryId: 'Choose one of this contest’s categories.' });
+	if (!category)
+		throw new ContestError(400, 'Choose one of this contest’s categories.', 'bad-category', { categoryId: 'Choose one of this contest’s categories.' });
 	const tank = await tanks.getOwn(viewer, input.tankId, tx);
 	if (!tank) throw new ContestError(400, 'Choose one of your own tanks.', 'bad-tank', { tankId: 'Choose one of your own tanks.' });
 	const { facts } = factsOf(tank, now);
 	const check = checkEligibility(ruleOf(category), facts);
 	if (!check.eligible) {
-		throw new ContestError(400, `“${tank.name}” cannot be entered in ${category.name}: ${check.reasons.join(' ')}`, 'ineligible', { tankId: check.reasons.join(' ') });
+		throw new ContestError(400, `“${tank.name}” cannot be entered in ${category.name}: ${check.reasons.join(' ')}`, 'ineligible', {
+			tankId: check.reasons.join(' ')
+		});
 	}
-	const others = and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id), entryId === null ? undefined : ne(contestEntries.id, entryId));
+	const others = and(
+		eq(contestEntries.contestId, contestId),
+		eq(contestEntries.entrantId, viewer.id),
+		entryId === null ? undefined : ne(contestEntries.id, entryId)
+	);
 	const [mine] = await tx.select({ n: count() }).from(contestEntries).where(others);
 	if ((mine?.n ?? 0) >= contest.entriesPerMember) {
-		throw new ContestError(409, `Each member may enter ${contest.entriesPerMember} ${contest.entriesPerMember === 1 ? 'tank' : 'tanks'} in this contest.`, 'limit');
+		throw new ContestError(
+			409,
+			`Each member may enter ${contest.entriesPerMember} ${contest.entriesPerMember === 1 ? 'tank' : 'tanks'} in this contest.`,
+			'limit'
+		);
 	}
-	const [sameTank] = await tx.select({ id: contestEntries.id }).from(contestEntries).where(and(others, eq(contestEntries.tankId, tank.id)));
-	if (sameTank) throw new ContestError(409, 'This tank is already entered in this contest.', 'tank-entered', { tankId: 'This tank is already entered in this contest.' });
+	const [sameTank] = await tx
+		.select({ id: contestEntries.id })
+		.from(contestEntries)
+		.where(and(others, eq(contestEntries.tankId, tank.id)));
+	if (sameTank)
+		throw new ContestError(409, 'This tank is already entered in this contest.', 'tank-entered', { tankId: 'This tank is already entered in this contest.' });
 	if (input.photos.length < ENTRY_PHOTOS_MIN || input.photos.length > ENTRY_PHOTOS_MAX) {
-		throw new ContestError(400, `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos.`, 'photos', { photos: `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos; the first one shows the whole tank from the front.` });
+		throw new ContestError(400, `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos.`, 'photos', {
+			photos: `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos; the first one shows the whole tank from the front.`
+		});
 	}
 	return {
 		contest,
@@ -177,9 +195,18 @@ export async function listOwn(viewer: Viewer, contestId: number, tx: DbOrTx = ap
 		.innerJoin(contestCategories, eq(contestCategories.id, contestEntries.categoryId))
 		.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id)))
 		.orderBy(asc(contestEntries.id));
-	const photos = await media.listForMany(SCOPE, rows.map((r) => r.entry.id), tx);
+	const photos = await media.listForMany(
+		SCOPE,
+		rows.map((r) => r.entry.id),
+		tx
+	);
 	const names = new Map((await tanks.listOwn(viewer, {}, tx)).map((t) => [t.id, t.name]));
-	return rows.map((r) => ({ ...r.entry, categoryName: r.categoryName, tankName: r.entry.tankId ? (names.get(r.entry.tankId) ?? null) : null, photos: photos.get(r.entry.id) ?? [] }));
+	return rows.map((r) => ({
+		...r.entry,
+		categoryName: r.categoryName,
+		tankName: r.entry.tankId ? (names.get(r.entry.tankId) ?? null) : null,
+		photos: photos.get(r.entry.id) ?? []
+	}));
 }
 
 /** One entry for its entrant (or an admin), with its contest; null for anyone else. */

@@ -45,7 +45,10 @@ export async function assign(viewer: Viewer, contestId: number, judgeId: string,
 		if (panelClosed(contest.state)) throw new ContestError(409, 'The results are out; the panel can no longer change.');
 		const person = (await people.byIds([judgeId], tx)).get(judgeId);
 		if (!person || person.role !== 'judge') throw new ContestError(400, 'Only members with the judge role can be assigned.', 'not-a-judge');
-		const [existing] = await tx.select().from(contestJudges).where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, judgeId)));
+		const [existing] = await tx
+			.select()
+			.from(contestJudges)
+			.where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, judgeId)));
 		if (existing) return;
 		await tx.insert(contestJudges).values({ contestId, judgeId, assignedBy: viewer.id, ...(now ? { assignedAt: now } : {}) });
 		await audit.record(tx, viewer.id, 'panel.assign', contestId, { judgeId, judge: person.displayName }, now);
@@ -108,7 +111,13 @@ export interface BlindEntry {
 export type CellState = 'empty' | 'draft' | 'submitted' | 'conflicted';
 
 const isJudgeOn = async (tx: DbOrTx, viewer: Viewer, contestId: number) =>
-	viewer.role === 'judge' && (await tx.select({ id: contestJudges.judgeId }).from(contestJudges).where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, viewer.id)))).length > 0;
+	viewer.role === 'judge' &&
+	(
+		await tx
+			.select({ id: contestJudges.judgeId })
+			.from(contestJudges)
+			.where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, viewer.id)))
+	).length > 0;
 
 export interface JudgeContest {
 	id: number;
@@ -170,7 +179,10 @@ async function myCells(tx: DbOrTx, viewer: Viewer, contestId: number): Promise<M
 			.from(contestConflicts)
 			.innerJoin(contestEntries, eq(contestEntries.id, contestConflicts.entryId))
 			.where(and(eq(contestEntries.contestId, contestId), eq(contestConflicts.judgeId, viewer.id))),
-		tx.select().from(contestCards).where(and(eq(contestCards.contestId, contestId), eq(contestCards.judgeId, viewer.id)))
+		tx
+			.select()
+			.from(contestCards)
+			.where(and(eq(contestCards.contestId, contestId), eq(contestCards.judgeId, viewer.id)))
 	]);
 	const conflicted = new Set(conflicts.map((c) => c.entryId));
 	const cardOf = new Map(cards.map((c) => [c.entryId, c]));
@@ -196,7 +208,10 @@ export async function blindList(viewer: Viewer, contestId: number, tx: DbOrTx = 
 	const contest = await load(contestId, tx);
 	if (!contest || !(await isJudgeOn(tx, viewer, contestId)) || contest.state !== 'judging') throw new ContestNotFound('No such contest to judge.');
 	const cells = await myCells(tx, viewer, contestId);
-	const [own] = await tx.select({ n: count() }).from(contestEntries).where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id)));
+	const [own] = await tx
+		.select({ n: count() })
+		.from(contestEntries)
+		.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id)));
 	return {
 		contest: { id: contest.id, title: contest.title, state: contest.state, judgingClosesOn: contest.judgingClosesOn, rulesHtml: renderMarkdown(contest.rules) },
 		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description })),
@@ -345,7 +360,13 @@ async function cardTransaction<T>(database: DbOrTx, work: (tx: DbOrTx) => Promis
  * than the stored one (VersionConflict, with the stored card), or when a score is out of range.
  * A repeat of the last save (same save id) answers as the first time did and changes nothing.
  */
-export async function saveCard(viewer: Viewer, contestId: number, number: number, save: CardSave, options: { now?: Date; database?: DbOrTx } = {}): Promise<CardView> {
+export async function saveCard(
+	viewer: Viewer,
+	contestId: number,
+	number: number,
+	save: CardSave,
+	options: { now?: Date; database?: DbOrTx } = {}
+): Promise<CardView> {
 	const now = options.now ?? new Date();
 	return cardTransaction(options.database ?? appDb, async (tx) => {
 		const { contest, entry } = await access(tx, viewer, contestId, number);
@@ -354,7 +375,15 @@ export async function saveCard(viewer: Viewer, contestId: number, number: number
 			// instead of both locking the gap where the row would go.
 			await tx
 				.insert(contestCards)
-				.values({ contestId, entryId: entry.id, judgeId: viewer.id, status: 'draft', fields: emptyCardFields(rubricOf(contest.criteria)), version: 0, updatedAt: now })
+				.values({
+					contestId,
+					entryId: entry.id,
+					judgeId: viewer.id,
+					status: 'draft',
+					fields: emptyCardFields(rubricOf(contest.criteria)),
+					version: 0,
+					updatedAt: now
+				})
 				.onDuplicateKeyUpdate({ set: { id: sql`id` } });
 		}
 		const card = await cardRow(tx, entry.id, viewer.id, true);
@@ -373,7 +402,13 @@ export async function saveCard(viewer: Viewer, contestId: number, number: number
 }
 
 /** Submits the card the judge last saw (its version); every criterion needs a score. */
-export async function submitCard(viewer: Viewer, contestId: number, number: number, version: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<CardView> {
+export async function submitCard(
+	viewer: Viewer,
+	contestId: number,
+	number: number,
+	version: number,
+	options: { now?: Date; database?: DbOrTx } = {}
+): Promise<CardView> {
 	const now = options.now ?? new Date();
 	return cardTransaction(options.database ?? appDb, async (tx) => {
 		const { contest, entry } = await access(tx, viewer, contestId, number);
@@ -419,7 +454,9 @@ export const CONFLICT_REASON_MAX = 300;
 export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, database: DbOrTx = appDb, now?: Date): Promise<void> {
 	await database.transaction(async (tx) => {
 		const { entry } = await access(tx, viewer, contestId, number);
-		await tx.insert(contestConflicts).values({ entryId: entry.id, judgeId: viewer.id, reason: reason.slice(0, CONFLICT_REASON_MAX), ...(now ? { declaredAt: now } : {}) });
+		await tx
+			.insert(contestConflicts)
+			.values({ entryId: entry.id, judgeId: viewer.id, reason: reason.slice(0, CONFLICT_REASON_MAX), ...(now ? { declaredAt: now } : {}) });
 		await tx.delete(contestCards).where(and(eq(contestCards.entryId, entry.id), eq(contestCards.judgeId, viewer.id)));
 		await audit.record(tx, viewer.id, 'judge.conflict', contestId, { entryId: entry.id, number, reason: reason.slice(0, CONFLICT_REASON_MAX) }, now);
 	});
@@ -437,7 +474,10 @@ export async function openDuties(contestId: number, tx: DbOrTx = appDb): Promise
 			.from(contestConflicts)
 			.innerJoin(contestEntries, eq(contestEntries.id, contestConflicts.entryId))
 			.where(eq(contestEntries.contestId, contestId)),
-		tx.select({ entryId: contestCards.entryId, judgeId: contestCards.judgeId, status: contestCards.status }).from(contestCards).where(eq(contestCards.contestId, contestId))
+		tx
+			.select({ entryId: contestCards.entryId, judgeId: contestCards.judgeId, status: contestCards.status })
+			.from(contestCards)
+			.where(eq(contestCards.contestId, contestId))
 	]);
 	const { duties } = judgingDuties(
 		entries.map((e) => ({ entryId: String(e.entryId), entrantId: e.entrantId })),
@@ -469,7 +509,12 @@ export function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 
  * The admin reminds judges (all with open cards, or the ones named) by mail through the outbox.
  * One reminder per judge per hour: a double click sends nothing twice.
  */
-export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: string[] | null, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
+export async function remindJudges(
+	viewer: Viewer,
+	contestId: number,
+	judgeIds: string[] | null,
+	options: { now?: Date; database?: DbOrTx } = {}
+): Promise<number> {
 	assertAdmin(viewer);
 	const now = options.now ?? new Date();
 	return (options.database ?? appDb).transaction(async (tx) => {
@@ -478,12 +523,22 @@ export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: 
 		if (contest.state !== 'judging') throw new ContestError(409, 'Judges can be reminded while the contest is being judged.');
 		const open = await openDuties(contestId, tx);
 		const targets = [...open.entries()].filter(([id, n]) => n > 0 && (!judgeIds || judgeIds.includes(id)));
-		const who = await people.byIds(targets.map(([id]) => id), tx);
+		const who = await people.byIds(
+			targets.map(([id]) => id),
+			tx
+		);
 		const hour = now.toISOString().slice(0, 13);
 		const mails = targets.flatMap(([id, n]) => {
 			const person = who.get(id);
 			if (!person?.email) return [];
-			return [{ to: person.email, ...judgeReminderMail(contest, person.displayName, n, 'A reminder from the contest admins.'), topic: `contest:${contestId}:nudge`, dedupeKey: `contest:${contestId}:nudge:${id}:${hour}` }];
+			return [
+				{
+					to: person.email,
+					...judgeReminderMail(contest, person.displayName, n, 'A reminder from the contest admins.'),
+					topic: `contest:${contestId}:nudge`,
+					dedupeKey: `contest:${contestId}:nudge:${id}:${hour}`
+				}
+			];
 		});
 		await enqueue(tx, mails, now);
 		if (mails.length) await audit.record(tx, viewer.id, 'panel.remind', contestId, { judges: targets.map(([id]) => who.get(id)?.displayName ?? id) });

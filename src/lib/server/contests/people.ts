@@ -22,7 +22,14 @@ const columns = {
 	announcements: users.announcements
 };
 
-const tidy = (r: { id: string; displayName: string | null; email: string | null; role: Person['role']; unsubscribeToken: string; announcements: boolean }): Person => ({
+const tidy = (r: {
+	id: string;
+	displayName: string | null;
+	email: string | null;
+	role: Person['role'];
+	unsubscribeToken: string;
+	announcements: boolean;
+}): Person => ({
 	...r,
 	displayName: r.displayName ?? 'A member',
 	email: r.email ?? ''
@@ -36,10 +43,22 @@ export async function byIds(ids: string[], tx: DbOrTx = appDb): Promise<Map<stri
 }
 
 export async function withRole(role: Person['role'], tx: DbOrTx = appDb): Promise<Person[]> {
-	return (await tx.select(columns).from(users).where(and(eq(users.role, role), isNotNull(users.email)))).map(tidy).sort((a, b) => a.displayName.localeCompare(b.displayName));
+	return (
+		await tx
+			.select(columns)
+			.from(users)
+			.where(and(eq(users.role, role), isNotNull(users.email)))
+	)
+		.map(tidy)
+		.sort((a, b) => a.displayName.localeCompare(b.displayName));
 }
 
 /** Everyone who takes announcement mail. */
 export async function announcementRecipients(tx: DbOrTx = appDb): Promise<Person[]> {
-	return (await tx.select(columns).from(users).where(and(eq(users.announcements, true), isNotNull(users.email)))).map(tidy);
+	return (
+		await tx
+			.select(columns)
+			.from(users)
+			.where(and(eq(users.announcements, true), isNotNull(users.email)))
+	).map(tidy);
 }

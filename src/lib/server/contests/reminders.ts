@@ -15,7 +15,10 @@ import { judgeReminderMail, openDuties } from './judging';
 import * as people from './people';
 
 export async function sendDueReminders(now: Date, tx: DbOrTx = appDb): Promise<number> {
-	const active = await tx.select().from(contests).where(inArray(contests.state, ['draft', 'open', 'judging']));
+	const active = await tx
+		.select()
+		.from(contests)
+		.where(inArray(contests.state, ['draft', 'open', 'judging']));
 	if (active.length === 0) return 0;
 	const admins = await people.withRole('admin', tx);
 	const mails: QueuedMail[] = [];
@@ -44,7 +47,10 @@ export async function sendDueReminders(now: Date, tx: DbOrTx = appDb): Promise<n
 		if (kind) {
 			const open = await openDuties(contest.id, tx);
 			const owing = [...open.entries()].filter(([, n]) => n > 0);
-			const who = await people.byIds(owing.map(([id]) => id), tx);
+			const who = await people.byIds(
+				owing.map(([id]) => id),
+				tx
+			);
 			const lead = kind === 'closing-soon' ? 'The judging window closes soon.' : 'The judging window has closed, and the results wait for your cards.';
 			for (const [id, n] of owing) {
 				const person = who.get(id);

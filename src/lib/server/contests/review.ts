@@ -90,7 +90,12 @@ export function progressMatrix(data: ContestData, report: ResultsReport): Progre
 		}));
 	const byJudge = new Map(report.readiness.byJudge.map((j) => [j.judgeId, j]));
 	return {
-		judges: data.panel.map((j) => ({ id: j.id, name: j.displayName, submitted: byJudge.get(j.id)?.submitted ?? 0, expected: byJudge.get(j.id)?.expected ?? 0 })),
+		judges: data.panel.map((j) => ({
+			id: j.id,
+			name: j.displayName,
+			submitted: byJudge.get(j.id)?.submitted ?? 0,
+			expected: byJudge.get(j.id)?.expected ?? 0
+		})),
 		rows
 	};
 }
@@ -146,7 +151,13 @@ export async function transition(viewer: Viewer, contestId: number, name: Transi
 		if (problems.length) throw new ContestError(409, problems.join(' '), 'not-ready');
 		const to = TRANSITIONS[name].to;
 		const stamp =
-			name === 'open-entries' ? { openedAt: now } : name === 'start-judging' ? { judgingStartedAt: now } : name === 'publish' ? { publishedAt: now } : { archivedAt: now };
+			name === 'open-entries'
+				? { openedAt: now }
+				: name === 'start-judging'
+					? { judgingStartedAt: now }
+					: name === 'publish'
+						? { publishedAt: now }
+						: { archivedAt: now };
 		await tx
 			.update(contests)
 			.set({ state: to, ...stamp, updatedAt: now })
@@ -214,7 +225,7 @@ function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo
 	const entry = data.entries.find((e) => String(e.id) === result.entryId)!;
 	const criteria = data.contest.criteria;
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
-	const separated = result.separatedFromAbove ? criteria.find((c) => String(c.id) === result.separatedFromAbove!.criterionId)?.label ?? null : null;
+	const separated = result.separatedFromAbove ? (criteria.find((c) => String(c.id) === result.separatedFromAbove!.criterionId)?.label ?? null) : null;
 	return {
 		entryId: entry.id,
 		number: entry.number,
@@ -231,7 +242,12 @@ function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo
 		cardCount: result.cards.length,
 		method: result.aggregate?.total.used ?? data.contest.aggregation,
 		methodNote: result.aggregate?.total.note ?? null,
-		criteria: criteria.map((c) => ({ id: String(c.id), label: c.label, maxPoints: c.maxPoints, value: result.aggregate?.criteria[String(c.id)]?.value ?? null })),
+		criteria: criteria.map((c) => ({
+			id: String(c.id),
+			label: c.label,
+			maxPoints: c.maxPoints,
+			value: result.aggregate?.criteria[String(c.id)]?.value ?? null
+		})),
 		comments: result.cards.map((c) => cards.get(c.cardId)?.fields.entrantComment.trim() ?? '').filter(Boolean),
 		photos: photos.get(entry.id) ?? [],
 		litres: entry.litres,
@@ -252,12 +268,22 @@ export async function publicResults(contestId: number, tx: DbOrTx = appDb): Prom
 	const data = await loadData(contestId, tx);
 	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
 	const report = computeResults(inputOf(data));
-	const photos = await media.listForMany(SCOPE, data.entries.map((e) => e.id), tx);
+	const photos = await media.listForMany(
+		SCOPE,
+		data.entries.map((e) => e.id),
+		tx
+	);
 	return {
 		contest: data.contest,
 		categories: data.contest.categories.map((category, i) => {
 			const cat = report.categories[i]!;
-			return { id: category.id, name: category.name, description: category.description, unevenPanel: cat.unevenPanel, entries: cat.entries.map((r) => shape(data, r, photos)) };
+			return {
+				id: category.id,
+				name: category.name,
+				description: category.description,
+				unevenPanel: cat.unevenPanel,
+				entries: cat.entries.map((r) => shape(data, r, photos))
+			};
 		}),
 		panel: data.panel.map((p) => p.displayName),
 		corrections: await audit.trail(contestId, PUBLIC_CORRECTION_ACTIONS, tx),
@@ -269,7 +295,13 @@ export interface Feedback {
 	entry: PublicEntry;
 	categoryName: string;
 	entriesInCategory: number;
-	cards: { label: string; total: number; dropped: 'low' | 'high' | null; scores: { label: string; maxPoints: number; score: number | null; comment: string }[]; comment: string }[];
+	cards: {
+		label: string;
+		total: number;
+		dropped: 'low' | 'high' | null;
+		scores: { label: string; maxPoints: number; score: number | null; comment: string }[];
+		comment: string;
+	}[];
 }
 
 /** An entrant's full feedback on their entry (or an admin's view of it), after publication. */
@@ -295,7 +327,12 @@ export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = app
 				total: c.total,
 				dropped: c.dropped,
 				comment: fields.entrantComment,
-				scores: data.contest.criteria.map((k) => ({ label: k.label, maxPoints: k.maxPoints, score: fields.scores[String(k.id)] ?? null, comment: fields.comments[String(k.id)] ?? '' }))
+				scores: data.contest.criteria.map((k) => ({
+					label: k.label,
+					maxPoints: k.maxPoints,
+					score: fields.scores[String(k.id)] ?? null,
+					comment: fields.comments[String(k.id)] ?? ''
+				}))
 			};
 		})
 	};
@@ -303,10 +340,12 @@ export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = app
 
 // ---- Corrections after publication --------------------------------------------------------------
 
-
 function requireReason(reason: string | null | undefined): string {
 	const r = (reason ?? '').trim();
-	if (r.length < CORRECTION_REASON_MIN) throw new ContestError(400, `Give a reason of at least ${CORRECTION_REASON_MIN} characters; it is shown with the results.`, 'reason', { reason: 'Give a reason.' });
+	if (r.length < CORRECTION_REASON_MIN)
+		throw new ContestError(400, `Give a reason of at least ${CORRECTION_REASON_MIN} characters; it is shown with the results.`, 'reason', {
+			reason: 'Give a reason.'
+		});
 	return r;
 }
 
@@ -324,7 +363,11 @@ export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankB
 			.update(contests)
 			.set({ rankBy, updatedAt: new Date(), ...(published ? { resultsRevision: c.resultsRevision + 1 } : {}) })
 			.where(eq(contests.id, contestId));
-		await audit.record(tx, viewer.id, published ? 'results.rank-by' : 'contest.rank-by', contestId, { from: c.rankBy, to: rankBy, ...(why ? { reason: why } : {}) });
+		await audit.record(tx, viewer.id, published ? 'results.rank-by' : 'contest.rank-by', contestId, {
+			from: c.rankBy,
+			to: rankBy,
+			...(why ? { reason: why } : {})
+		});
 	});
 }
 
@@ -335,7 +378,8 @@ export async function amendCard(viewer: Viewer, cardId: number, fields: CardFiel
 		const [card] = await tx.select().from(contestCards).where(eq(contestCards.id, cardId)).for('update');
 		if (!card) throw new ContestNotFound('No such card.');
 		const [c] = await tx.select().from(contests).where(eq(contests.id, card.contestId)).for('update');
-		if (!c || c.state !== 'published') throw new ContestError(409, 'Cards can be corrected only while the results are published (not before, and not once archived).');
+		if (!c || c.state !== 'published')
+			throw new ContestError(409, 'Cards can be corrected only while the results are published (not before, and not once archived).');
 		if (card.status !== 'submitted') throw new ContestError(409, 'Only submitted cards count, so only they can be corrected.');
 		const why = requireReason(reason);
 		const detail = (await load(c.id, tx))!;
@@ -348,7 +392,10 @@ export async function amendCard(viewer: Viewer, cardId: number, fields: CardFiel
 			.update(contestCards)
 			.set({ fields: { ...checked.fields, panelNote: before.panelNote }, version: card.version + 1, updatedAt: new Date() })
 			.where(eq(contestCards.id, cardId));
-		await tx.update(contests).set({ resultsRevision: c.resultsRevision + 1, updatedAt: new Date() }).where(eq(contests.id, c.id));
+		await tx
+			.update(contests)
+			.set({ resultsRevision: c.resultsRevision + 1, updatedAt: new Date() })
+			.where(eq(contests.id, c.id));
 		const [entry] = await tx.select({ number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.id, card.entryId));
 		await audit.record(tx, viewer.id, 'results.amend-card', c.id, {
 			reason: why,

@@ -53,11 +53,4 @@ const contestReminders: Job = {
 	run: (now) => sendDueReminders(now)
 };
 
-export const jobs: Job[] = [
-	pruneSignInRequests,
-	sweepPendingMedia,
-	weeklyJournalDigest,
-	expireSwapListings,
-	mailSwapMessages,
-	contestReminders
-];
+export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest, expireSwapListings, mailSwapMessages, contestReminders];

@@ -18,7 +18,10 @@ export interface Job {
  * so of several instances ticking at once exactly one wins.
  */
 export async function claim(job: Job, worker: string, now: Date, db: Database = appDb): Promise<boolean> {
-	await db.insert(jobRuns).values({ name: job.name }).onDuplicateKeyUpdate({ set: { name: sql`name` } });
+	await db
+		.insert(jobRuns)
+		.values({ name: job.name })
+		.onDuplicateKeyUpdate({ set: { name: sql`name` } });
 	const dueBefore = new Date(now.getTime() - job.everyMs);
 	const [result] = await db
 		.update(jobRuns)

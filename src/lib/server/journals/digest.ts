@@ -26,7 +26,12 @@ interface Member {
 /** What one member's digest says this week, or null when there is nothing to tell. */
 export async function contentFor(member: Member, now: Date, database: Database = appDb) {
 	const scheduled = upkeep.dueWithin(await upkeep.scheduleOf(member, now, database), DIGEST_DAYS_AHEAD);
-	const tasks: DigestTask[] = scheduled.map((s) => ({ tankName: s.task.tankName, label: s.task.label, statusLabel: s.statusLabel, overdue: s.status.kind === 'overdue' }));
+	const tasks: DigestTask[] = scheduled.map((s) => ({
+		tankName: s.task.tankName,
+		label: s.task.label,
+		statusLabel: s.statusLabel,
+		overdue: s.status.kind === 'overdue'
+	}));
 	const since = new Date(now.getTime() - 7 * 86_400_000);
 	const rows = await database
 		.select({ entry: journalEntries, tank: tankTable })
@@ -74,7 +79,13 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 			}
 			if (!content || !member.email) return false;
 			const unsubscribe = unsubscribeUrl(member.unsubscribeToken, 'digest');
-			const { html, text } = renderMail({ heading: content.heading, paragraphs: content.paragraphs, action: content.action, footer: content.footer, unsubscribeUrl: unsubscribe });
+			const { html, text } = renderMail({
+				heading: content.heading,
+				paragraphs: content.paragraphs,
+				action: content.action,
+				footer: content.footer,
+				unsubscribeUrl: unsubscribe
+			});
 			await enqueue(
 				tx,
 				{
@@ -99,5 +110,8 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 /** Ids of members whose digest for the week of `now` has been considered (for tests and the admin). */
 export async function consideredFor(now: Date, ids: string[], database: Database = appDb) {
 	if (!ids.length) return [];
-	return database.select().from(journalDigests).where(and(eq(journalDigests.weekOf, weekOf(now)), inArray(journalDigests.userId, ids)));
+	return database
+		.select()
+		.from(journalDigests)
+		.where(and(eq(journalDigests.weekOf, weekOf(now)), inArray(journalDigests.userId, ids)));
 }

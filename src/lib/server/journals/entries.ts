@@ -12,7 +12,18 @@ import { species } from '../species/schema';
 import { renderMarkdown } from '../markdown';
 import type { EntryInput, EventInput } from '../../journals/entry-form';
 import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
-import { entryComments, journalEntries, journalEvents, tankFollows, tankLivestock, tankPlants, tanks as tankTable, type EntryRow, type EventRow, type TankRow } from './schema';
+import {
+	entryComments,
+	journalEntries,
+	journalEvents,
+	tankFollows,
+	tankLivestock,
+	tankPlants,
+	tanks as tankTable,
+	type EntryRow,
+	type EventRow,
+	type TankRow
+} from './schema';
 import * as tanks from './tanks';
 import * as upkeep from './upkeep';
 import * as social from './social';
@@ -58,7 +69,10 @@ async function lockOwnTank(tx: DbOrTx, viewer: Pick<Viewer, 'id'>, tankId: numbe
 }
 
 async function nextPosition(tx: DbOrTx, table: typeof tankPlants | typeof tankLivestock, tankId: number): Promise<number> {
-	const [row] = await tx.select({ n: max(table.position) }).from(table).where(eq(table.tankId, tankId));
+	const [row] = await tx
+		.select({ n: max(table.position) })
+		.from(table)
+		.where(eq(table.tankId, tankId));
 	return (row?.n ?? -1) + 1;
 }
 
@@ -135,7 +149,10 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 			await tx.update(tankLivestock).set({ removedOn: on }).where(eq(tankLivestock.id, row.id));
 		} else {
 			// Some of a group leave: the rest stay on the list, those taken out become a closed row.
-			await tx.update(tankLivestock).set({ count: row.count - taken }).where(eq(tankLivestock.id, row.id));
+			await tx
+				.update(tankLivestock)
+				.set({ count: row.count - taken })
+				.where(eq(tankLivestock.id, row.id));
 			const [split] = await tx.insert(tankLivestock).values({
 				tankId,
 				position: await nextPosition(tx, tankLivestock, tankId),
@@ -153,10 +170,19 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 }
 
 /** Creates an entry on the viewer's tank; mails followers (at most once a day each). */
-export async function create(viewer: Viewer, tankId: number, input: EntryInput, photos: PhotoField[], database: DbOrTx = appDb, now = new Date()): Promise<number> {
+export async function create(
+	viewer: Viewer,
+	tankId: number,
+	input: EntryInput,
+	photos: PhotoField[],
+	database: DbOrTx = appDb,
+	now = new Date()
+): Promise<number> {
 	return database.transaction(async (tx) => {
 		const tank = await lockOwnTank(tx, viewer, tankId);
-		const [result] = await tx.insert(journalEntries).values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
+		const [result] = await tx
+			.insert(journalEntries)
+			.values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
 		const entryId = result.insertId;
 		await media.setPhotos(tx, viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX, now });
 		for (const [position, e] of input.events.entries()) await writeEvent(tx, tankId, entryId, input.entryOn, position, e, position);
@@ -172,10 +198,22 @@ export async function create(viewer: Viewer, tankId: number, input: EntryInput, 
  * they did and only their note changes), new ones are written, and events left out are removed;
  * removing a list event leaves the tank's list as it is (change it on the tank's form).
  */
-export async function update(viewer: Viewer, tankId: number, entryId: number, input: EntryInput, photos: PhotoField[], database: DbOrTx = appDb, now = new Date()): Promise<void> {
+export async function update(
+	viewer: Viewer,
+	tankId: number,
+	entryId: number,
+	input: EntryInput,
+	photos: PhotoField[],
+	database: DbOrTx = appDb,
+	now = new Date()
+): Promise<void> {
 	const purge: Purge = await database.transaction(async (tx) => {
 		await lockOwnTank(tx, viewer, tankId);
-		const [entry] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId))).for('update');
+		const [entry] = await tx
+			.select()
+			.from(journalEntries)
+			.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)))
+			.for('update');
 		if (!entry) throw new EntryNotFound();
 		await tx.update(journalEntries).set({ entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now }).where(eq(journalEntries.id, entryId));
 		const keys = await media.setPhotos(tx, viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX, now });
@@ -189,7 +227,20 @@ export async function update(viewer: Viewer, tankId: number, entryId: number, in
 			} else if (old && !isListEvent(e.kind)) {
 				await tx
 					.update(journalEvents)
-					.set({ kind: e.kind, occurredOn: input.entryOn, position, percent: e.percent, filterPart: e.filterPart, what: e.what, amount: e.amount, amountUnit: e.amountUnit, saltId: e.saltId, count: e.count, algaeKind: e.algaeKind, note: e.note })
+					.set({
+						kind: e.kind,
+						occurredOn: input.entryOn,
+						position,
+						percent: e.percent,
+						filterPart: e.filterPart,
+						what: e.what,
+						amount: e.amount,
+						amountUnit: e.amountUnit,
+						saltId: e.saltId,
+						count: e.count,
+						algaeKind: e.algaeKind,
+						note: e.note
+					})
 					.where(eq(journalEvents.id, old.id));
 				kept.add(old.id);
 			} else {
@@ -209,7 +260,11 @@ export async function update(viewer: Viewer, tankId: number, entryId: number, in
 export async function remove(viewer: Viewer, tankId: number, entryId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
 	const purge = await database.transaction(async (tx) => {
 		await lockOwnTank(tx, viewer, tankId);
-		const [entry] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId))).for('update');
+		const [entry] = await tx
+			.select()
+			.from(journalEntries)
+			.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)))
+			.for('update');
 		if (!entry) throw new EntryNotFound();
 		const keys = await media.deleteFor(tx, 'entry', entryId);
 		await tx.delete(journalEntries).where(eq(journalEntries.id, entryId));
@@ -236,7 +291,10 @@ async function hydrate(rows: EntryRow[], tx: DbOrTx): Promise<Entry[]> {
 	const [photos, events, authors, comments] = await Promise.all([
 		media.listForMany('entry', ids, tx),
 		tx.select().from(journalEvents).where(inArray(journalEvents.entryId, ids)).orderBy(asc(journalEvents.position), asc(journalEvents.id)),
-		tx.select({ id: users.id, name: users.displayName }).from(users).where(inArray(users.id, [...new Set(rows.map((r) => r.authorId))])),
+		tx
+			.select({ id: users.id, name: users.displayName })
+			.from(users)
+			.where(inArray(users.id, [...new Set(rows.map((r) => r.authorId))])),
 		tx.select({ entryId: entryComments.entryId, n: count() }).from(entryComments).where(inArray(entryComments.entryId, ids)).groupBy(entryComments.entryId)
 	]);
 	const names = new Map(authors.map((a) => [a.id, a.name ?? 'A member']));
@@ -260,10 +318,18 @@ export function shown(entry: Entry): ShownEntry {
 }
 
 /** One entry of a tank the viewer may see, or null. */
-export async function get(viewer: Pick<Viewer, 'id'> | null, tankId: number, entryId: number, tx: DbOrTx = appDb): Promise<{ tank: TankRow; entry: Entry } | null> {
+export async function get(
+	viewer: Pick<Viewer, 'id'> | null,
+	tankId: number,
+	entryId: number,
+	tx: DbOrTx = appDb
+): Promise<{ tank: TankRow; entry: Entry } | null> {
 	const tank = await tanks.findVisible(viewer, tankId, tx);
 	if (!tank) return null;
-	const [row] = await tx.select().from(journalEntries).where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)));
+	const [row] = await tx
+		.select()
+		.from(journalEntries)
+		.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)));
 	if (!row) return null;
 	const [entry] = await hydrate([row], tx);
 	return { tank, entry: entry! };
@@ -343,7 +409,13 @@ export async function removeComment(viewer: Viewer, tankId: number, commentId: n
 		if (!isAuthor && !isKeeper && viewer.role !== 'admin') throw new EntryNotFound();
 		await tx.delete(entryComments).where(eq(entryComments.id, commentId));
 		if (!isAuthor) {
-			await recordAudit(tx, { actorId: viewer.id, action: 'comment.remove', subjectType: 'entry_comment', subjectId: String(commentId), detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper } });
+			await recordAudit(tx, {
+				actorId: viewer.id,
+				action: 'comment.remove',
+				subjectType: 'entry_comment',
+				subjectId: String(commentId),
+				detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper }
+			});
 		}
 	});
 }

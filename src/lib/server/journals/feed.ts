@@ -24,7 +24,12 @@ export async function atomFor(tankId: number): Promise<string | null> {
 			updated: tank.updatedAt ?? tank.createdAt,
 			entries: latest.map((e) => {
 				const url = absoluteUrl(`/journals/${tank.id}/entries/${e.id}`);
-				const photos = e.photos.map((p) => `<p><img src="${p.urls.medium}" alt="${p.alt.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!)}" /></p>`).join('');
+				const photos = e.photos
+					.map(
+						(p) =>
+							`<p><img src="${p.urls.medium}" alt="${p.alt.replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!)}" /></p>`
+					)
+					.join('');
 				return {
 					id: url,
 					title: e.title || `Entry of ${formatDate(e.entryOn)}`,

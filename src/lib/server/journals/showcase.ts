@@ -66,7 +66,11 @@ export async function list(filter: ShowcaseFilter, tx: DbOrTx = appDb): Promise<
 		.orderBy(...order)
 		.limit(SHOWCASE_PAGE_SIZE)
 		.offset((page - 1) * SHOWCASE_PAGE_SIZE);
-	const covers = await media.listForMany('tank', rows.map((r) => r.id), tx);
+	const covers = await media.listForMany(
+		'tank',
+		rows.map((r) => r.id),
+		tx
+	);
 	return {
 		cards: rows.map((r) => ({ ...r, ownerName: r.ownerName ?? 'A member', cover: covers.get(r.id)?.[0] ?? null })),
 		page,

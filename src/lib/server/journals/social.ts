@@ -35,7 +35,11 @@ export async function toggleAdmire(viewer: Viewer, tankId: number, want?: boolea
 			.where(and(eq(tankAdmires.tankId, tankId), eq(tankAdmires.userId, viewer.id)))
 			.for('update');
 		const next = want ?? !existing;
-		if (next && !existing) await tx.insert(tankAdmires).values({ tankId, userId: viewer.id }).onDuplicateKeyUpdate({ set: { tankId: sql`tank_id` } });
+		if (next && !existing)
+			await tx
+				.insert(tankAdmires)
+				.values({ tankId, userId: viewer.id })
+				.onDuplicateKeyUpdate({ set: { tankId: sql`tank_id` } });
 		if (!next && existing) await tx.delete(tankAdmires).where(and(eq(tankAdmires.tankId, tankId), eq(tankAdmires.userId, viewer.id)));
 		return next;
 	});
@@ -51,7 +55,11 @@ export async function toggleFollow(viewer: Viewer, tankId: number, want?: boolea
 			.where(and(eq(tankFollows.tankId, tankId), eq(tankFollows.userId, viewer.id)))
 			.for('update');
 		const next = want ?? !existing;
-		if (next && !existing) await tx.insert(tankFollows).values({ tankId, userId: viewer.id }).onDuplicateKeyUpdate({ set: { tankId: sql`tank_id` } });
+		if (next && !existing)
+			await tx
+				.insert(tankFollows)
+				.values({ tankId, userId: viewer.id })
+				.onDuplicateKeyUpdate({ set: { tankId: sql`tank_id` } });
 		if (!next && existing) await tx.delete(tankFollows).where(and(eq(tankFollows.tankId, tankId), eq(tankFollows.userId, viewer.id)));
 		return next;
 	});
@@ -69,8 +77,18 @@ export async function standingOf(viewer: Pick<Viewer, 'id'> | null, tankId: numb
 	const [[admirers], [followers], mine, follows] = await Promise.all([
 		tx.select({ n: count() }).from(tankAdmires).where(eq(tankAdmires.tankId, tankId)),
 		tx.select({ n: count() }).from(tankFollows).where(eq(tankFollows.tankId, tankId)),
-		viewer ? tx.select({ id: tankAdmires.userId }).from(tankAdmires).where(and(eq(tankAdmires.tankId, tankId), eq(tankAdmires.userId, viewer.id))) : [],
-		viewer ? tx.select({ id: tankFollows.userId }).from(tankFollows).where(and(eq(tankFollows.tankId, tankId), eq(tankFollows.userId, viewer.id))) : []
+		viewer
+			? tx
+					.select({ id: tankAdmires.userId })
+					.from(tankAdmires)
+					.where(and(eq(tankAdmires.tankId, tankId), eq(tankAdmires.userId, viewer.id)))
+			: [],
+		viewer
+			? tx
+					.select({ id: tankFollows.userId })
+					.from(tankFollows)
+					.where(and(eq(tankFollows.tankId, tankId), eq(tankFollows.userId, viewer.id)))
+			: []
 	]);
 	return { admirers: admirers?.n ?? 0, followers: followers?.n ?? 0, admired: mine.length > 0, following: follows.length > 0 };
 }
@@ -82,7 +100,10 @@ export function followMail(input: { tankName: string; ownerName: string; entryTi
 	const title = input.entryTitle || `Entry of ${formatDate(input.entryOn)}`;
 	const { html, text } = renderMail({
 		heading: `New in ${input.tankName}`,
-		paragraphs: [`${input.ownerName} wrote in the journal of ${input.tankName}: “${title}”.`, 'You hear from us at most once a day about this tank, however often it is written in.'],
+		paragraphs: [
+			`${input.ownerName} wrote in the journal of ${input.tankName}: “${title}”.`,
+			'You hear from us at most once a day about this tank, however often it is written in.'
+		],
 		action: { label: 'Read the entry', url: input.entryUrl },
 		footer: `You get this because you follow ${input.tankName}. To stop, open ${input.tankUrl} and choose “Stop following”.`
 	});
@@ -125,7 +146,12 @@ export async function notifyFollowers(tx: DbOrTx, tank: TankRow, entry: { id: nu
 		});
 		await enqueue(
 			tx,
-			{ to: follower.email, ...mail, topic: `tank-follow:${tank.id}`, dedupeKey: `tank-follow:${tank.id}:${follower.userId}:${now.toISOString().slice(0, 10)}` },
+			{
+				to: follower.email,
+				...mail,
+				topic: `tank-follow:${tank.id}`,
+				dedupeKey: `tank-follow:${tank.id}:${follower.userId}:${now.toISOString().slice(0, 10)}`
+			},
 			now
 		);
 		queued++;

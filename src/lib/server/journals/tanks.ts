@@ -121,7 +121,10 @@ export async function refreshVolumes(tx: DbOrTx = appDb): Promise<number> {
 	for (const t of missing) {
 		const litres = figuresOf({ ...t, lights: [], filters: [] }).volume?.litres;
 		if (litres !== undefined && Number.isFinite(litres)) {
-			await tx.update(tanks).set({ volumeLitres: Math.round(litres * 100) / 100, activityAt: t.activityAt ?? t.updatedAt ?? t.createdAt }).where(eq(tanks.id, t.id));
+			await tx
+				.update(tanks)
+				.set({ volumeLitres: Math.round(litres * 100) / 100, activityAt: t.activityAt ?? t.updatedAt ?? t.createdAt })
+				.where(eq(tanks.id, t.id));
 		}
 	}
 	return missing.length;
@@ -166,7 +169,14 @@ export async function listOwn(viewer: Viewer, options: { retired?: boolean } = {
 		.from(tanks)
 		.where(and(...conditions))
 		.orderBy(sql`${tanks.retiredOn} IS NOT NULL`, desc(tanks.setUpOn), desc(tanks.id));
-	return summaries(rows, await media.listForMany('tank', rows.map((r) => r.id), tx));
+	return summaries(
+		rows,
+		await media.listForMany(
+			'tank',
+			rows.map((r) => r.id),
+			tx
+		)
+	);
 }
 
 /** Another member's tanks that the viewer may see (running ones), e.g. for a profile or a contest entry form. */
@@ -178,7 +188,14 @@ export async function listVisibleOf(viewer: Viewer | null, ownerId: string, tx: 
 			.where(and(eq(tanks.ownerId, ownerId), isNull(tanks.retiredOn)))
 			.orderBy(desc(tanks.setUpOn), desc(tanks.id))
 	).filter((t) => canView(viewer, t));
-	return summaries(rows, await media.listForMany('tank', rows.map((r) => r.id), tx));
+	return summaries(
+		rows,
+		await media.listForMany(
+			'tank',
+			rows.map((r) => r.id),
+			tx
+		)
+	);
 }
 
 /** The volume the figures use, kept on the row for the showcase's size filter. */
@@ -232,15 +249,16 @@ type ChildTable = typeof tankLights | typeof tankFilters | typeof tankFertiliser
  * place (so later records that point at them stay valid), new rows are inserted, the rest deleted.
  */
 async function syncChildren<R extends { id?: number }>(tx: DbOrTx, table: ChildTable, tankId: number, rows: R[], values: (r: R) => object) {
-	const existing = new Set(
-		(await tx.select({ id: table.id }).from(table).where(eq(table.tankId, tankId))).map((r) => r.id)
-	);
+	const existing = new Set((await tx.select({ id: table.id }).from(table).where(eq(table.tankId, tankId))).map((r) => r.id));
 	const kept: number[] = [];
 	for (const [position, r] of rows.entries()) {
 		const set = { ...values(r), position };
 		if (r.id !== undefined && existing.has(r.id)) {
 			kept.push(r.id);
-			await tx.update(table).set(set).where(and(eq(table.id, r.id), eq(table.tankId, tankId)));
+			await tx
+				.update(table)
+				.set(set)
+				.where(and(eq(table.id, r.id), eq(table.tankId, tankId)));
 		} else {
 			const [result] = await tx.insert(table).values({ ...set, tankId } as typeof table.$inferInsert);
 			kept.push(result.insertId);
@@ -251,7 +269,12 @@ async function syncChildren<R extends { id?: number }>(tx: DbOrTx, table: ChildT
 
 async function writeChildren(tx: DbOrTx, tankId: number, input: TankInput) {
 	await syncChildren(tx, tankLights, tankId, input.lights, (l) => ({ label: l.label, watts: l.watts, hoursPerDay: l.hoursPerDay }));
-	await syncChildren(tx, tankFilters, tankId, input.filters, (f) => ({ label: f.label, ratedFlow: f.ratedFlow, flowUnit: f.flowUnit, mediaNotes: f.mediaNotes }));
+	await syncChildren(tx, tankFilters, tankId, input.filters, (f) => ({
+		label: f.label,
+		ratedFlow: f.ratedFlow,
+		flowUnit: f.flowUnit,
+		mediaNotes: f.mediaNotes
+	}));
 	await syncChildren(tx, tankFertilisers, tankId, input.fertilisers, (f) => ({ item: f.item, amount: f.amount, frequency: f.frequency }));
 	await syncChildren(tx, tankPlants, tankId, await resolveSpecies(tx, input.plants), (p) => ({
 		speciesId: p.speciesId,
@@ -323,7 +346,12 @@ export async function reopen(viewer: Viewer, id: number, database: Database = ap
  * Features that attach records to a tank delete theirs first in the same transaction: pass them
  * as `before`.
  */
-export async function remove(viewer: Viewer, id: number, options: { before?: (tx: DbOrTx, tankId: number) => Promise<Purge | void> } = {}, database: Database = appDb): Promise<void> {
+export async function remove(
+	viewer: Viewer,
+	id: number,
+	options: { before?: (tx: DbOrTx, tankId: number) => Promise<Purge | void> } = {},
+	database: Database = appDb
+): Promise<void> {
 	const purge = await database.transaction(async (tx) => {
 		const [found] = await tx.select().from(tanks).where(eq(tanks.id, id)).for('update');
 		if (!found || found.ownerId !== viewer.id) throw new TankNotFound();

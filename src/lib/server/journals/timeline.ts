@@ -53,7 +53,11 @@ export async function pageOf(tankId: number, requested: number, tx: DbOrTx = app
 			.limit(limit)
 	]);
 	const merged = mergeTimeline<TimelineKey>(
-		[entryKeys.map((k) => ({ ...k, kind: 'entry' as const })), eventKeys.map((k) => ({ ...k, kind: 'event' as const })), testKeys.map((k) => ({ ...k, kind: 'test' as const }))],
+		[
+			entryKeys.map((k) => ({ ...k, kind: 'entry' as const })),
+			eventKeys.map((k) => ({ ...k, kind: 'event' as const })),
+			testKeys.map((k) => ({ ...k, kind: 'test' as const }))
+		],
 		totals,
 		page,
 		pageSize

@@ -56,7 +56,13 @@ export class ScheduleError extends Error {
  * Replaces the owner's schedule of a tank with `tasks` (in order). Rows carrying the id of a task
  * of this tank are updated, so events logged "done today" for them still point at them.
  */
-export async function saveSchedule(viewer: Viewer, tankId: number, tasks: (TaskDraft & { id?: number })[], database: DbOrTx = appDb, now = new Date()): Promise<void> {
+export async function saveSchedule(
+	viewer: Viewer,
+	tankId: number,
+	tasks: (TaskDraft & { id?: number })[],
+	database: DbOrTx = appDb,
+	now = new Date()
+): Promise<void> {
 	if (tasks.length > SCHEDULE_MAX) throw new ScheduleError({ tasks: `Keep the schedule to ${SCHEDULE_MAX} tasks.` });
 	await database.transaction(async (tx) => {
 		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
@@ -64,7 +70,13 @@ export async function saveSchedule(viewer: Viewer, tankId: number, tasks: (TaskD
 		const existing = new Set((await listForTank(tankId, tx)).map((t) => t.id));
 		const kept: number[] = [];
 		for (const [position, task] of tasks.entries()) {
-			const values = { kind: task.kind, filterPart: task.kind === 'filter-clean' ? task.filterPart : null, label: task.label, intervalDays: task.intervalDays, position };
+			const values = {
+				kind: task.kind,
+				filterPart: task.kind === 'filter-clean' ? task.filterPart : null,
+				label: task.label,
+				intervalDays: task.intervalDays,
+				position
+			};
 			if (task.id !== undefined && existing.has(task.id)) {
 				await tx.update(maintenanceTasks).set(values).where(eq(maintenanceTasks.id, task.id));
 				kept.push(task.id);
@@ -93,7 +105,13 @@ export async function scheduleOf(viewer: Pick<Viewer, 'id'>, now = new Date(), t
 		.from(maintenanceTasks)
 		.innerJoin(tankTable, eq(tankTable.id, maintenanceTasks.tankId))
 		.where(and(eq(tankTable.ownerId, viewer.id), isNull(tankTable.retiredOn)));
-	const tasks: DueTask[] = rows.map(({ task, tankName }) => ({ ...asMaintenanceTask(task), taskId: task.id, tankIdNumber: task.tankId, tankName, kind: task.kind }));
+	const tasks: DueTask[] = rows.map(({ task, tankName }) => ({
+		...asMaintenanceTask(task),
+		taskId: task.id,
+		tankIdNumber: task.tankId,
+		tankName,
+		kind: task.kind
+	}));
 	return scheduleAll(tasks, now);
 }
 

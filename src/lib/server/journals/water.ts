@@ -36,12 +36,20 @@ export async function remove(viewer: Viewer, tankId: number, testId: number, dat
 
 /** The newest tests of a tank, newest first (the caller has checked visibility). */
 export async function latestOf(tankId: number, limit = SERIES_LIMIT, tx: DbOrTx = appDb): Promise<WaterTestRow[]> {
-	return tx.select().from(waterTests).where(eq(waterTests.tankId, tankId)).orderBy(desc(waterTests.testedOn), desc(waterTests.createdAt), desc(waterTests.id)).limit(limit);
+	return tx
+		.select()
+		.from(waterTests)
+		.where(eq(waterTests.tankId, tankId))
+		.orderBy(desc(waterTests.testedOn), desc(waterTests.createdAt), desc(waterTests.id))
+		.limit(limit);
 }
 
 export async function many(tankId: number, ids: number[], tx: DbOrTx = appDb): Promise<WaterTestRow[]> {
 	if (!ids.length) return [];
-	return tx.select().from(waterTests).where(and(eq(waterTests.tankId, tankId), inArray(waterTests.id, ids)));
+	return tx
+		.select()
+		.from(waterTests)
+		.where(and(eq(waterTests.tankId, tankId), inArray(waterTests.id, ids)));
 }
 
 export interface TankSeries {

@@ -91,12 +91,7 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 		const due = await tx
 			.select()
 			.from(outbox)
-			.where(
-				or(
-					and(eq(outbox.state, 'queued'), lte(outbox.nextAttemptAt, now)),
-					and(eq(outbox.state, 'sending'), lte(outbox.leaseUntil, now))
-				)
-			)
+			.where(or(and(eq(outbox.state, 'queued'), lte(outbox.nextAttemptAt, now)), and(eq(outbox.state, 'sending'), lte(outbox.leaseUntil, now))))
 			.orderBy(outbox.priority, outbox.id)
 			.limit(batchSize)
 			.for('update', { skipLocked: true });
@@ -104,7 +99,12 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 		await tx
 			.update(outbox)
 			.set({ state: 'sending', leaseUntil: new Date(now.getTime() + LEASE_MS), attempts: sql`${outbox.attempts} + 1` })
-			.where(inArray(outbox.id, due.map((d) => d.id)));
+			.where(
+				inArray(
+					outbox.id,
+					due.map((d) => d.id)
+				)
+			);
 		return due;
 	});
 
@@ -122,10 +122,7 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 				messageId: message.messageId
 			});
 			await db.transaction(async (tx) => {
-				await tx
-					.update(outbox)
-					.set({ state: 'sent', sentAt: new Date(), leaseUntil: null, lastError: null })
-					.where(eq(outbox.id, message.id));
+				await tx.update(outbox).set({ state: 'sent', sentAt: new Date(), leaseUntil: null, lastError: null }).where(eq(outbox.id, message.id));
 				await tx.insert(outboxAttempts).values({ outboxId: message.id, worker, ok: true, at: new Date() });
 			});
 			sent++;

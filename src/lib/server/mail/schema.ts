@@ -1,15 +1,4 @@
-import {
-	index,
-	int,
-	json,
-	mediumtext,
-	mysqlEnum,
-	tinyint,
-	mysqlTable,
-	boolean,
-	text,
-	varchar
-} from 'drizzle-orm/mysql-core';
+import { index, int, json, mediumtext, mysqlEnum, tinyint, mysqlTable, boolean, text, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 
 export const OUTBOX_STATES = ['queued', 'sending', 'sent', 'failed'] as const;
@@ -43,10 +32,7 @@ export const outbox = mysqlTable(
 		sentAt: at(),
 		createdAt: createdAt()
 	},
-	(t) => [
-		index('outbox_due_idx').on(t.state, t.nextAttemptAt),
-		index('outbox_topic_idx').on(t.topic)
-	]
+	(t) => [index('outbox_due_idx').on(t.state, t.nextAttemptAt), index('outbox_topic_idx').on(t.topic)]
 );
 
 /** Every delivery attempt, successful or not, for the admin's delivery report. */

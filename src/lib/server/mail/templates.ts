@@ -10,8 +10,7 @@ export interface MailContent {
 	unsubscribeUrl?: string;
 }
 
-export const escapeHtml = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 export function renderMail(content: MailContent): { html: string; text: string } {
 	const paragraphs = content.paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('');
@@ -21,9 +20,7 @@ export function renderMail(content: MailContent): { html: string; text: string }
 		: '';
 	const footerBits = [
 		content.footer ? escapeHtml(content.footer) : '',
-		content.unsubscribeUrl
-			? `<a href="${escapeHtml(content.unsubscribeUrl)}" style="color:#4a5a52">Unsubscribe from these mails</a>`
-			: ''
+		content.unsubscribeUrl ? `<a href="${escapeHtml(content.unsubscribeUrl)}" style="color:#4a5a52">Unsubscribe from these mails</a>` : ''
 	].filter(Boolean);
 	const html = `<!doctype html><html lang="en"><body style="margin:0;background:#f3f5f0;font-family:Georgia,'Times New Roman',serif;color:#1b2a23">
 <table role="presentation" width="100%" cellpadding="0" cellspacing="0"><tr><td align="center" style="padding:24px 12px">

@@ -73,7 +73,11 @@ export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}
 		.from(media)
 		.where(and(eq(media.ownerId, ownerId), isNull(media.scope)));
 	if ((pending?.n ?? 0) >= MAX_PENDING_PER_OWNER) {
-		throw new MediaError(429, 'too-many-pending', `You have ${MAX_PENDING_PER_OWNER} photos uploaded but not yet saved with anything. Save or remove some first.`);
+		throw new MediaError(
+			429,
+			'too-many-pending',
+			`You have ${MAX_PENDING_PER_OWNER} photos uploaded but not yet saved with anything. Save or remove some first.`
+		);
 	}
 
 	const prepared = await prepareImage(bytes);
@@ -91,9 +95,10 @@ export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}
 		);
 		const failed = puts.find((p): p is PromiseRejectedResult => p.status === 'rejected');
 		if (failed) throw failed.reason;
-		const renditions = Object.fromEntries(
-			prepared.renditions.map((r) => [r.size, { width: r.width, height: r.height, bytes: r.data.byteLength }])
-		) as Record<RenditionSize, StoredRendition>;
+		const renditions = Object.fromEntries(prepared.renditions.map((r) => [r.size, { width: r.width, height: r.height, bytes: r.data.byteLength }])) as Record<
+			RenditionSize,
+			StoredRendition
+		>;
 		const [result] = await database.insert(media).values({
 			ownerId,
 			storageKey,
@@ -177,14 +182,12 @@ export async function attach(tx: DbOrTx, ownerId: string, scope: MediaScope, sco
 		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)));
 	let position = last?.n ?? 0;
 	for (const p of photos) {
-		await tx
-			.update(media)
-			.set({ scope, scopeId, position: position++, altText: p.alt, caption: p.caption, attachedAt: now })
-			.where(eq(media.id, p.id));
+		await tx.update(media).set({ scope, scopeId, position: position++, altText: p.alt, caption: p.caption, attachedAt: now }).where(eq(media.id, p.id));
 	}
 }
 
-const unavailable = () => new MediaError(400, 'photo-unavailable', 'One of the photos is no longer available (uploads not saved within a day are removed). Upload it again.');
+const unavailable = () =>
+	new MediaError(400, 'photo-unavailable', 'One of the photos is no longer available (uploads not saved within a day are removed). Upload it again.');
 
 /**
  * Makes `photos`, in this order, exactly the photos of a thing: new ids must be pending uploads of
@@ -224,7 +227,13 @@ export async function setPhotos(
 	}
 	const keep = new Set(photos.map((p) => p.id));
 	const dropped = current.filter((r) => !keep.has(r.id));
-	if (dropped.length) await tx.delete(media).where(inArray(media.id, dropped.map((r) => r.id)));
+	if (dropped.length)
+		await tx.delete(media).where(
+			inArray(
+				media.id,
+				dropped.map((r) => r.id)
+			)
+		);
 	return dropped.flatMap((r) => objectKeys(r.storageKey));
 }
 
@@ -255,7 +264,13 @@ export async function detach(tx: DbOrTx, scope: MediaScope, scopeId: number, ids
 		.from(media)
 		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId), inArray(media.id, ids)))
 		.for('update');
-	if (rows.length) await tx.delete(media).where(inArray(media.id, rows.map((r) => r.id)));
+	if (rows.length)
+		await tx.delete(media).where(
+			inArray(
+				media.id,
+				rows.map((r) => r.id)
+			)
+		);
 	return rows.flatMap((r) => objectKeys(r.storageKey));
 }
 
@@ -266,7 +281,13 @@ export async function deleteFor(tx: DbOrTx, scope: MediaScope, scopeId: number):
 		.from(media)
 		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
 		.for('update');
-	if (rows.length) await tx.delete(media).where(inArray(media.id, rows.map((r) => r.id)));
+	if (rows.length)
+		await tx.delete(media).where(
+			inArray(
+				media.id,
+				rows.map((r) => r.id)
+			)
+		);
 	return rows.flatMap((r) => objectKeys(r.storageKey));
 }
 

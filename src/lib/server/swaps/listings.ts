@@ -12,7 +12,16 @@ import type { Photo, Purge } from '../media';
 import * as tanks from '../journals/tanks';
 import { species } from '../species/schema';
 import type { PhotoField } from '../../media/form';
-import { effectiveState, transition, type Actor, type Listing, type ListingAction, type ListingEvent, type ListingState, type TransitionResult } from '../../swaps/listing-state';
+import {
+	effectiveState,
+	transition,
+	type Actor,
+	type Listing,
+	type ListingAction,
+	type ListingEvent,
+	type ListingState,
+	type TransitionResult
+} from '../../swaps/listing-state';
 import { CATEGORY_CAUTIONS, type ListingCategory, type ListingKind } from '../../swaps/listing';
 import { formatQuantity, type Quantity } from '../../swaps/quantity';
 import { describeTerms, type ListingTerms } from '../../swaps/terms';
@@ -140,8 +149,15 @@ export interface CardRow {
 /** Turns selected rows into cards, with their first photo and how the club's restrictions see them. */
 export async function toCards(rows: CardRow[], viewer: Pick<Viewer, 'id'>, now: Date, tx: DbOrTx = appDb): Promise<ListingCard[]> {
 	const [photos, assessed] = await Promise.all([
-		media.listForMany('listing', rows.map((r) => r.id), tx),
-		restricted.assessMany(rows.flatMap((r) => (r.speciesId === null ? [] : [r.speciesId])), tx)
+		media.listForMany(
+			'listing',
+			rows.map((r) => r.id),
+			tx
+		),
+		restricted.assessMany(
+			rows.flatMap((r) => (r.speciesId === null ? [] : [r.speciesId])),
+			tx
+		)
 	]);
 	return rows.map((r) => {
 		const photo = photos.get(r.id)?.[0];
@@ -169,7 +185,12 @@ export async function toCards(rows: CardRow[], viewer: Pick<Viewer, 'id'>, now: 
 }
 
 const cardQuery = (tx: DbOrTx) =>
-	tx.select(cardColumns).from(listings).innerJoin(users, eq(users.id, listings.ownerId)).leftJoin(clubAreas, eq(clubAreas.id, listings.pickupAreaId)).leftJoin(species, eq(species.id, listings.speciesId));
+	tx
+		.select(cardColumns)
+		.from(listings)
+		.innerJoin(users, eq(users.id, listings.ownerId))
+		.leftJoin(clubAreas, eq(clubAreas.id, listings.pickupAreaId))
+		.leftJoin(species, eq(species.id, listings.speciesId));
 
 export interface ListingDetail {
 	id: number;
@@ -367,8 +388,16 @@ export async function update(viewer: Viewer, id: number, input: ListingInput, ph
 		const row = await rowOf(id, tx, true);
 		if (!row || row.ownerId !== viewer.id) throw notFound();
 		const state = effectiveState(toPure(row), now);
-		if (state === 'handed-over' || state === 'withdrawn') throw new SwapError(409, 'closed', state === 'handed-over' ? 'This listing has been handed over; it can no longer be changed.' : 'This listing has been withdrawn; it can no longer be changed.');
-		if (input.kind !== row.kind && state === 'reserved') throw new SwapError(409, 'reserved', 'A reserved listing cannot change between an offer and a wanted post.', 'kind');
+		if (state === 'handed-over' || state === 'withdrawn')
+			throw new SwapError(
+				409,
+				'closed',
+				state === 'handed-over'
+					? 'This listing has been handed over; it can no longer be changed.'
+					: 'This listing has been withdrawn; it can no longer be changed.'
+			);
+		if (input.kind !== row.kind && state === 'reserved')
+			throw new SwapError(409, 'reserved', 'A reserved listing cannot change between an offer and a wanted post.', 'kind');
 		const place = await placeFor(tx, viewer.id, input.pickupAreaId);
 		const checked = await checkedSpecies(tx, input);
 		const tankId = await checkedTank(viewer, input, tx);
@@ -420,7 +449,9 @@ export async function note(tx: DbOrTx, thread: Pick<ThreadRow, 'id'>, senderId: 
 }
 
 async function tell(tx: DbOrTx, userId: string, kind: NoticeKind, o: { threadId: number | null; listing: ListingRow; actorName: string; reason?: string }) {
-	await queueNotice(tx, userId, (email) => noticeMail(email, { kind, threadId: o.threadId, listingId: o.listing.id, title: o.listing.title, actorName: o.actorName, reason: o.reason }));
+	await queueNotice(tx, userId, (email) =>
+		noticeMail(email, { kind, threadId: o.threadId, listingId: o.listing.id, title: o.listing.title, actorName: o.actorName, reason: o.reason })
+	);
 }
 
 const threadsOf = (tx: DbOrTx, listingId: number) => tx.select().from(swapThreads).where(eq(swapThreads.listingId, listingId)).orderBy(asc(swapThreads.id));
@@ -456,7 +487,14 @@ export async function act(viewer: Viewer, id: number, action: OwnerAction, optio
 				await tell(tx, t.requesterId, 'withdrawn', { threadId: t.id, listing: row, actorName });
 			}
 		} else if (action.type === 'release' && reservedThread) {
-			await note(tx, reservedThread, viewer.id, reservedThread.requesterId, `${actorName} released the reservation; the listing is open for requests again.`, now);
+			await note(
+				tx,
+				reservedThread,
+				viewer.id,
+				reservedThread.requesterId,
+				`${actorName} released the reservation; the listing is open for requests again.`,
+				now
+			);
 			await tell(tx, reservedThread.requesterId, 'released', { threadId: reservedThread.id, listing: row, actorName });
 			if (result.listing.state === 'open') {
 				for (const t of threads) {
@@ -466,7 +504,16 @@ export async function act(viewer: Viewer, id: number, action: OwnerAction, optio
 		} else if (action.type === 'confirm-handover' && reservedThread) {
 			const otherId = viewer.id === row.ownerId ? reservedThread.requesterId : row.ownerId;
 			const done = result.listing.state === 'handed-over';
-			await note(tx, reservedThread, viewer.id, otherId, done ? `${actorName} confirmed the handover too: the swap is complete.` : `${actorName} confirmed the handover. Please confirm it too once it has changed hands.`, now);
+			await note(
+				tx,
+				reservedThread,
+				viewer.id,
+				otherId,
+				done
+					? `${actorName} confirmed the handover too: the swap is complete.`
+					: `${actorName} confirmed the handover. Please confirm it too once it has changed hands.`,
+				now
+			);
 			await tell(tx, otherId, done ? 'handed-over' : 'confirmed-by-other', { threadId: reservedThread.id, listing: row, actorName });
 		}
 		return result.listing.state;
@@ -510,7 +557,9 @@ export async function moderatorWithdraw(admin: Viewer, id: number, reason: strin
 	const result = moderatorTransition(before, admin.id, now);
 	if (!result.ok) throw new SwapError(409, result.error.code, result.error.message);
 	await save(tx, result, reason);
-	await tx.insert(auditLog).values({ actorId: admin.id, action: 'listing.withdraw', subjectType: 'listing', subjectId: String(id), detail: { reason, from: result.event.from } });
+	await tx
+		.insert(auditLog)
+		.values({ actorId: admin.id, action: 'listing.withdraw', subjectType: 'listing', subjectId: String(id), detail: { reason, from: result.event.from } });
 	await tell(tx, row.ownerId, 'withdrawn-by-admin', { threadId: null, listing: row, actorName: 'The admins', reason });
 	for (const t of await threadsOf(tx, id)) {
 		const status = conversationStatus(before, String(t.id), now);
@@ -603,7 +652,15 @@ export async function history(viewer: Viewer, id: number, database: DbOrTx = app
 	const row = await rowOf(id, database);
 	if (!row || row.ownerId !== viewer.id) return [];
 	return database
-		.select({ action: listingEvents.action, fromState: listingEvents.fromState, toState: listingEvents.toState, at: listingEvents.at, note: listingEvents.note, actorId: listingEvents.actorId, actorName: users.displayName })
+		.select({
+			action: listingEvents.action,
+			fromState: listingEvents.fromState,
+			toState: listingEvents.toState,
+			at: listingEvents.at,
+			note: listingEvents.note,
+			actorId: listingEvents.actorId,
+			actorName: users.displayName
+		})
 		.from(listingEvents)
 		.leftJoin(users, eq(users.id, listingEvents.actorId))
 		.where(eq(listingEvents.listingId, id))

@@ -32,11 +32,20 @@ export function threadMail(to: string, o: { threadId: number; recipientId: strin
 		action: { label: 'Open the conversation', url: absoluteUrl(`/swaps/threads/${o.threadId}`) },
 		footer: footer()
 	});
-	return { to, subject: count === 1 ? `New message about ${quoted(o.title)}` : `${count} new messages about ${quoted(o.title)}`, html, text, topic: `swap-thread:${o.threadId}:${o.recipientId}` };
+	return {
+		to,
+		subject: count === 1 ? `New message about ${quoted(o.title)}` : `${count} new messages about ${quoted(o.title)}`,
+		html,
+		text,
+		topic: `swap-thread:${o.threadId}:${o.recipientId}`
+	};
 }
 
 /** The hourly summary of every conversation with news. */
-export function summaryMail(to: string, o: { recipientId: string; threads: { threadId: number; title: string; otherName: string; count: number }[] }): QueuedMail {
+export function summaryMail(
+	to: string,
+	o: { recipientId: string; threads: { threadId: number; title: string; otherName: string; count: number }[] }
+): QueuedMail {
 	const total = o.threads.reduce((s, t) => s + t.count, 0);
 	const { html, text } = renderMail({
 		heading: `${total} new swap message${total === 1 ? '' : 's'}`,
@@ -53,7 +62,10 @@ export function summaryMail(to: string, o: { recipientId: string; threads: { thr
 /** Changes of a listing that the other member should hear about at once. */
 export type NoticeKind = 'accepted' | 'not-chosen' | 'released' | 'withdrawn' | 'withdrawn-by-admin' | 'confirmed-by-other' | 'handed-over';
 
-export function noticeMail(to: string, o: { kind: NoticeKind; threadId: number | null; listingId: number; title: string; actorName: string; reason?: string }): QueuedMail {
+export function noticeMail(
+	to: string,
+	o: { kind: NoticeKind; threadId: number | null; listingId: number; title: string; actorName: string; reason?: string }
+): QueuedMail {
 	const t = quoted(o.title);
 	const words: Record<NoticeKind, { subject: string; heading: string; paragraphs: string[] }> = {
 		accepted: {
@@ -92,11 +104,19 @@ export function noticeMail(to: string, o: { kind: NoticeKind; threadId: number |
 		'handed-over': {
 			subject: `${t}: handed over`,
 			heading: 'Swap complete',
-			paragraphs: [`You and ${o.actorName} both confirmed the handover of ${t}. Thank you for swapping!`, 'Remember: never release plants, animals or tank water into the wild.']
+			paragraphs: [
+				`You and ${o.actorName} both confirmed the handover of ${t}. Thank you for swapping!`,
+				'Remember: never release plants, animals or tank water into the wild.'
+			]
 		}
 	};
 	const w = words[o.kind];
 	const url = absoluteUrl(o.threadId ? `/swaps/threads/${o.threadId}` : `/swaps/${o.listingId}`);
-	const { html, text } = renderMail({ heading: w.heading, paragraphs: w.paragraphs, action: { label: o.threadId ? 'Open the conversation' : 'Open the listing', url }, footer: footer() });
+	const { html, text } = renderMail({
+		heading: w.heading,
+		paragraphs: w.paragraphs,
+		action: { label: o.threadId ? 'Open the conversation' : 'Open the listing', url },
+		footer: footer()
+	});
 	return { to, subject: w.subject, html, text, topic: `swap-listing:${o.listingId}` };
 }

@@ -21,7 +21,10 @@ export interface MemberProfile {
 }
 
 /** The label for where a member is: their area, "near" the area nearest their point, or null. */
-export async function areaLabelOf(user: { homeAreaId: number | null; homeLat: number | null; homeLng: number | null }, database: DbOrTx = appDb): Promise<string | null> {
+export async function areaLabelOf(
+	user: { homeAreaId: number | null; homeLat: number | null; homeLng: number | null },
+	database: DbOrTx = appDb
+): Promise<string | null> {
 	const all = await areas.list(database);
 	const own = user.homeAreaId !== null ? all.find((a) => a.id === user.homeAreaId) : undefined;
 	if (own) return own.name;
@@ -33,7 +36,11 @@ export async function areaLabelOf(user: { homeAreaId: number | null; homeLat: nu
 export async function profile(viewer: Viewer, memberId: string, database: DbOrTx = appDb): Promise<MemberProfile | null> {
 	const [user] = await database.select().from(users).where(eq(users.id, memberId));
 	if (!user || !user.displayName) return null;
-	const [area, completed, relation] = await Promise.all([areaLabelOf(user, database), completedSwaps(user.id, database), blocks.between(viewer.id, user.id, database)]);
+	const [area, completed, relation] = await Promise.all([
+		areaLabelOf(user, database),
+		completedSwaps(user.id, database),
+		blocks.between(viewer.id, user.id, database)
+	]);
 	return {
 		id: user.id,
 		displayName: user.displayName,

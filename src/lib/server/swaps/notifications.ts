@@ -12,7 +12,10 @@ import { listings, swapMailState, swapMessages, swapThreads, type ThreadRow } fr
 import { summaryMail, threadMail } from './mail';
 
 async function person(tx: DbOrTx, id: string) {
-	const [row] = await tx.select({ email: users.email, displayName: users.displayName, notifyMessages: users.notifyMessages }).from(users).where(eq(users.id, id));
+	const [row] = await tx
+		.select({ email: users.email, displayName: users.displayName, notifyMessages: users.notifyMessages })
+		.from(users)
+		.where(eq(users.id, id));
 	return row;
 }
 
@@ -24,7 +27,12 @@ const sideOf = (thread: Pick<ThreadRow, 'ownerId'>, userId: string) => (thread.o
  * After a member's message is stored (the thread row locked by the caller): mail the recipient
  * now, leave it for the job, or settle that no mail will go.
  */
-export async function afterPost(tx: DbOrTx, thread: ThreadRow, message: { id: number; senderId: string; recipientId: string; body: string }, now: Date): Promise<void> {
+export async function afterPost(
+	tx: DbOrTx,
+	thread: ThreadRow,
+	message: { id: number; senderId: string; recipientId: string; body: string },
+	now: Date
+): Promise<void> {
 	const recipient = await person(tx, message.recipientId);
 	if (!recipient?.email) return;
 	const side = sideOf(thread, message.recipientId);
@@ -35,9 +43,18 @@ export async function afterPost(tx: DbOrTx, thread: ThreadRow, message: { id: nu
 		const sender = displayName(await person(tx, message.senderId));
 		await enqueue(
 			tx,
-			threadMail(recipient.email, { threadId: thread.id, recipientId: message.recipientId, title: listing?.title ?? 'your swap', otherName: sender, messages: [{ senderName: sender, body: message.body }] })
+			threadMail(recipient.email, {
+				threadId: thread.id,
+				recipientId: message.recipientId,
+				title: listing?.title ?? 'your swap',
+				otherName: sender,
+				messages: [{ senderName: sender, body: message.body }]
+			})
 		);
-		await tx.update(swapThreads).set({ [side]: now }).where(eq(swapThreads.id, thread.id));
+		await tx
+			.update(swapThreads)
+			.set({ [side]: now })
+			.where(eq(swapThreads.id, thread.id));
 	}
 	await tx.update(swapMessages).set({ notifiedAt: now }).where(eq(swapMessages.id, message.id));
 }
@@ -97,14 +114,35 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 			const rows = await tx
 				.select({ id: swapMessages.id, threadId: swapMessages.threadId, body: swapMessages.body, senderId: swapMessages.senderId })
 				.from(swapMessages)
-				.where(and(inArray(swapMessages.id, planned.flatMap((p) => p.messageIds)), isNull(swapMessages.readAt), isNull(swapMessages.notifiedAt)))
+				.where(
+					and(
+						inArray(
+							swapMessages.id,
+							planned.flatMap((p) => p.messageIds)
+						),
+						isNull(swapMessages.readAt),
+						isNull(swapMessages.notifiedAt)
+					)
+				)
 				.orderBy(asc(swapMessages.id));
 			if (rows.length === 0) return 0;
 			const titles = new Map(
-				(await tx.select({ id: listings.id, title: listings.title }).from(listings).where(inArray(listings.id, threads.map((t) => t.listingId)))).map((l) => [l.id, l.title])
+				(
+					await tx
+						.select({ id: listings.id, title: listings.title })
+						.from(listings)
+						.where(
+							inArray(
+								listings.id,
+								threads.map((t) => t.listingId)
+							)
+						)
+				).map((l) => [l.id, l.title])
 			);
 			const partyIds = [...new Set(threads.flatMap((t) => [t.ownerId, t.requesterId]))];
-			const senders = new Map((await tx.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, partyIds))).map((u) => [u.id, displayName(u)]));
+			const senders = new Map(
+				(await tx.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, partyIds))).map((u) => [u.id, displayName(u)])
+			);
 			const otherOf = (t: ThreadRow) => senders.get(t.ownerId === recipientId ? t.requesterId : t.ownerId) ?? 'The other member';
 			let mails = 0;
 			for (const p of plan) {
@@ -123,7 +161,10 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 							messages: included.map((r) => ({ senderName: r.senderId ? (senders.get(r.senderId) ?? 'A member') : 'Riparia', body: r.body }))
 						})
 					);
-					await tx.update(swapThreads).set({ [sideOf(t, recipientId)]: now }).where(eq(swapThreads.id, t.id));
+					await tx
+						.update(swapThreads)
+						.set({ [sideOf(t, recipientId)]: now })
+						.where(eq(swapThreads.id, t.id));
 				} else {
 					const summary = ids.flatMap((id) => {
 						const t = byId.get(id)!;
@@ -135,9 +176,21 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 						.insert(swapMailState)
 						.values({ userId: recipientId, summaryMailedAt: now })
 						.onDuplicateKeyUpdate({ set: { summaryMailedAt: now } });
-					for (const id of ids) await tx.update(swapThreads).set({ [sideOf(byId.get(id)!, recipientId)]: now }).where(eq(swapThreads.id, id));
+					for (const id of ids)
+						await tx
+							.update(swapThreads)
+							.set({ [sideOf(byId.get(id)!, recipientId)]: now })
+							.where(eq(swapThreads.id, id));
 				}
-				await tx.update(swapMessages).set({ notifiedAt: now }).where(inArray(swapMessages.id, included.map((r) => r.id)));
+				await tx
+					.update(swapMessages)
+					.set({ notifiedAt: now })
+					.where(
+						inArray(
+							swapMessages.id,
+							included.map((r) => r.id)
+						)
+					);
 				mails++;
 			}
 			return mails;

@@ -62,7 +62,12 @@ export interface ReportView extends ReportRow {
 }
 
 /** Reports in one state, oldest open first (newest first for closed ones), paged. */
-export async function list(admin: Viewer, state: 'open' | 'closed', page = 1, database: DbOrTx = appDb): Promise<{ rows: ReportView[]; total: number; pages: number }> {
+export async function list(
+	admin: Viewer,
+	state: 'open' | 'closed',
+	page = 1,
+	database: DbOrTx = appDb
+): Promise<{ rows: ReportView[]; total: number; pages: number }> {
 	if (admin.role !== 'admin') throw notFound('report');
 	const where = state === 'open' ? eq(swapReports.state, 'open') : inArray(swapReports.state, ['resolved', 'dismissed']);
 	const [{ total }] = (await database.select({ total: count() }).from(swapReports).where(where)) as [{ total: number }];
@@ -75,7 +80,14 @@ export async function list(admin: Viewer, state: 'open' | 'closed', page = 1, da
 		.limit(REPORTS_PAGE_SIZE)
 		.offset((page - 1) * REPORTS_PAGE_SIZE);
 	const ids = [...new Set(rows.flatMap((r) => [r.report.reporterId, r.listingOwnerId, ...(r.report.resolvedById ? [r.report.resolvedById] : [])]))];
-	const names = new Map(ids.length ? (await database.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, ids))).map((u) => [u.id, u.displayName ?? 'A member']) : []);
+	const names = new Map(
+		ids.length
+			? (await database.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, ids))).map((u) => [
+					u.id,
+					u.displayName ?? 'A member'
+				])
+			: []
+	);
 	return {
 		rows: rows.map((r) => ({
 			...r.report,
@@ -99,8 +111,13 @@ async function openReport(tx: DbOrTx, id: number): Promise<ReportRow> {
 }
 
 async function close(tx: DbOrTx, admin: Viewer, report: ReportRow, state: 'resolved' | 'dismissed', resolution: string, action: string, now: Date) {
-	await tx.update(swapReports).set({ state, resolvedById: admin.id, resolvedAt: now, resolution: resolution.trim().slice(0, 500) }).where(eq(swapReports.id, report.id));
-	await tx.insert(auditLog).values({ actorId: admin.id, action, subjectType: 'swap_report', subjectId: String(report.id), detail: { listingId: report.listingId, resolution } });
+	await tx
+		.update(swapReports)
+		.set({ state, resolvedById: admin.id, resolvedAt: now, resolution: resolution.trim().slice(0, 500) })
+		.where(eq(swapReports.id, report.id));
+	await tx
+		.insert(auditLog)
+		.values({ actorId: admin.id, action, subjectType: 'swap_report', subjectId: String(report.id), detail: { listingId: report.listingId, resolution } });
 }
 
 export type Decision = { kind: 'resolve'; note: string } | { kind: 'dismiss'; note: string } | { kind: 'withdraw'; reason: string };
@@ -126,7 +143,15 @@ export async function decide(admin: Viewer, id: number, decision: Decision, opti
 				.for('update');
 			for (const r of others) await close(tx, admin, r, 'resolved', `Listing withdrawn: ${reason}`, 'report.withdraw-listing', now);
 		} else {
-			await close(tx, admin, report, decision.kind === 'resolve' ? 'resolved' : 'dismissed', decision.note, decision.kind === 'resolve' ? 'report.resolve' : 'report.dismiss', now);
+			await close(
+				tx,
+				admin,
+				report,
+				decision.kind === 'resolve' ? 'resolved' : 'dismissed',
+				decision.note,
+				decision.kind === 'resolve' ? 'report.resolve' : 'report.dismiss',
+				now
+			);
 		}
 	});
 }

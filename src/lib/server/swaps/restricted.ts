@@ -26,7 +26,10 @@ export async function setClubJurisdictions(actor: Pick<Viewer, 'id'> | null, lis
 	const value = [...new Set(list.map((j) => j.trim()).filter(Boolean))].sort((a, b) => a.localeCompare(b, 'en'));
 	await database.transaction(async (tx) => {
 		await tx.insert(swapSettings).values({ name: JURISDICTIONS_SETTING, value }).onDuplicateKeyUpdate({ set: { value } });
-		if (actor) await tx.insert(auditLog).values({ actorId: actor.id, action: 'swaps.jurisdictions', subjectType: 'swap_setting', subjectId: JURISDICTIONS_SETTING, detail: { value } });
+		if (actor)
+			await tx
+				.insert(auditLog)
+				.values({ actorId: actor.id, action: 'swaps.jurisdictions', subjectType: 'swap_setting', subjectId: JURISDICTIONS_SETTING, detail: { value } });
 	});
 }
 
@@ -71,7 +74,10 @@ export async function assessMany(speciesIds: number[], database: DbOrTx = appDb)
 		.innerJoin(species, eq(species.id, restrictedSpecies.speciesId))
 		.where(and(inArray(restrictedSpecies.speciesId, ids), inArray(restrictedSpecies.jurisdiction, jurisdictions)));
 	for (const id of ids) {
-		const assessment = assess(rows.filter((r) => r.speciesId === id), jurisdictions);
+		const assessment = assess(
+			rows.filter((r) => r.speciesId === id),
+			jurisdictions
+		);
 		if (assessment.banned.length || assessment.cautioned.length) result.set(id, assessment);
 	}
 	return result;
@@ -132,16 +138,26 @@ export async function add(actor: Pick<Viewer, 'id'> | null, input: RestrictionIn
 			.where(and(eq(restrictedSpecies.speciesId, input.speciesId), eq(restrictedSpecies.jurisdiction, input.jurisdiction)));
 		if (existing) throw new SwapError(409, 'duplicate', 'This species already has an entry for that jurisdiction; change that one instead.', 'speciesName');
 		const [result] = await tx.insert(restrictedSpecies).values(input);
-		if (actor) await tx.insert(auditLog).values({ actorId: actor.id, action: 'restricted.add', subjectType: 'restricted_species', subjectId: String(result.insertId), detail: { ...input } });
+		if (actor)
+			await tx
+				.insert(auditLog)
+				.values({ actorId: actor.id, action: 'restricted.add', subjectType: 'restricted_species', subjectId: String(result.insertId), detail: { ...input } });
 		return result.insertId;
 	});
 }
 
-export async function update(actor: Pick<Viewer, 'id'>, id: number, changes: Pick<RestrictionInput, 'level' | 'note' | 'source' | 'checkedOn' | 'checkBasis'>, database: DbOrTx = appDb): Promise<void> {
+export async function update(
+	actor: Pick<Viewer, 'id'>,
+	id: number,
+	changes: Pick<RestrictionInput, 'level' | 'note' | 'source' | 'checkedOn' | 'checkBasis'>,
+	database: DbOrTx = appDb
+): Promise<void> {
 	await database.transaction(async (tx) => {
 		const [result] = await tx.update(restrictedSpecies).set(changes).where(eq(restrictedSpecies.id, id));
 		if (result.affectedRows === 0) throw new SwapError(404, 'not-found', 'That entry no longer exists.');
-		await tx.insert(auditLog).values({ actorId: actor.id, action: 'restricted.update', subjectType: 'restricted_species', subjectId: String(id), detail: { ...changes } });
+		await tx
+			.insert(auditLog)
+			.values({ actorId: actor.id, action: 'restricted.update', subjectType: 'restricted_species', subjectId: String(id), detail: { ...changes } });
 	});
 }
 

@@ -108,7 +108,10 @@ function toViews(rows: (MessageRow & { senderName: string | null })[]): MessageV
 		senderId: r.senderId,
 		senderName: r.senderId ? (r.senderName ?? 'A member') : 'Riparia',
 		body: r.body,
-		pickup: r.kind === 'proposal' || r.kind === 'confirm' ? { on: r.pickupOn ?? '', from: r.pickupFrom ?? '', to: r.pickupTo ?? '', place: r.pickupPlace ?? '' } : null,
+		pickup:
+			r.kind === 'proposal' || r.kind === 'confirm'
+				? { on: r.pickupOn ?? '', from: r.pickupFrom ?? '', to: r.pickupTo ?? '', place: r.pickupPlace ?? '' }
+				: null,
 		refersTo: r.refersTo,
 		proposalState: r.kind !== 'proposal' ? null : confirmed.has(r.id) ? 'confirmed' : r.id === lastProposal ? 'open' : 'replaced',
 		createdAt: r.createdAt,
@@ -149,14 +152,22 @@ export async function get(viewer: Viewer | null, id: number, options: Options = 
 	if (!listing) return null;
 	const pure = toPure(listing);
 	const [names, rows, restrictions] = await Promise.all([
-		tx.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, [thread.ownerId, thread.requesterId])),
+		tx
+			.select({ id: users.id, displayName: users.displayName })
+			.from(users)
+			.where(inArray(users.id, [thread.ownerId, thread.requesterId])),
 		messageRows(thread.id, tx),
 		restricted.assessOne(listing.speciesId, tx)
 	]);
 	const name = (uid: string) => displayName(names.find((n) => n.id === uid));
 	const status = conversationStatus(pure, String(thread.id), now);
 	const otherId = role === 'owner' ? thread.requesterId : role === 'requester' ? thread.ownerId : null;
-	const writeBlock = role === 'admin' ? 'Admins read a reported conversation; they do not write in it.' : !canWrite(status) ? 'This conversation is closed.' : await writeBlockFor(viewer.id, otherId!, tx);
+	const writeBlock =
+		role === 'admin'
+			? 'Admins read a reported conversation; they do not write in it.'
+			: !canWrite(status)
+				? 'This conversation is closed.'
+				: await writeBlockFor(viewer.id, otherId!, tx);
 	const messages = toViews(rows);
 	const agreed = [...messages].reverse().find((m) => m.kind === 'proposal' && m.proposalState === 'confirmed');
 	const open = messages.find((m) => m.kind === 'proposal' && m.proposalState === 'open');

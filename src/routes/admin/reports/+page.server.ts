@@ -22,7 +22,24 @@ export const load = (async (event) => {
 				.filter((r) => r.state === 'open' && r.threadId !== null)
 				.map(async (r) => {
 					const t = await threads.get(admin, r.threadId!);
-					return [r.id, t ? { id: t.id, ownerName: t.ownerName, requesterName: t.requesterName, messages: t.messages.map((m) => ({ id: m.id, kind: m.kind, senderName: m.senderName, body: m.body, pickup: m.pickup, createdAt: m.createdAt })) } : null] as const;
+					return [
+						r.id,
+						t
+							? {
+									id: t.id,
+									ownerName: t.ownerName,
+									requesterName: t.requesterName,
+									messages: t.messages.map((m) => ({
+										id: m.id,
+										kind: m.kind,
+										senderName: m.senderName,
+										body: m.body,
+										pickup: m.pickup,
+										createdAt: m.createdAt
+									}))
+								}
+							: null
+					] as const;
 				})
 		)
 	);
@@ -32,7 +49,11 @@ export const load = (async (event) => {
 const decision = z.discriminatedUnion('decision', [
 	z.object({ decision: z.literal('resolve'), reportId: z.coerce.number().int().positive(), note: z.string().max(500).default('') }),
 	z.object({ decision: z.literal('dismiss'), reportId: z.coerce.number().int().positive(), note: z.string().max(500).default('') }),
-	z.object({ decision: z.literal('withdraw'), reportId: z.coerce.number().int().positive(), reason: z.string().max(300, 'Keep the reason to 300 characters.').default('') })
+	z.object({
+		decision: z.literal('withdraw'),
+		reportId: z.coerce.number().int().positive(),
+		reason: z.string().max(300, 'Keep the reason to 300 characters.').default('')
+	})
 ]);
 
 export const actions = {

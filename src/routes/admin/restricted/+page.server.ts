@@ -43,7 +43,10 @@ export const actions = {
 		const admin = requireRole(event, 'admin');
 		const form = await event.request.formData();
 		const present = await restricted.jurisdictionsPresent();
-		const chosen = form.getAll('jurisdiction').map(String).filter((j) => present.includes(j));
+		const chosen = form
+			.getAll('jurisdiction')
+			.map(String)
+			.filter((j) => present.includes(j));
 		await restricted.setClubJurisdictions(admin, chosen);
 		return { jurisdictionsSaved: true };
 	},

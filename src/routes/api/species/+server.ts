@@ -15,7 +15,8 @@ const query = z.object({
 export const GET: RequestHandler = async (event) => {
 	requireUser(event);
 	const parsed = query.safeParse(Object.fromEntries(event.url.searchParams));
-	if (!parsed.success) return json({ message: 'Use q (up to 60 characters), kind (plant, fish, shrimp, snail, invertebrate or animal) and limit (1–25).' }, { status: 400 });
+	if (!parsed.success)
+		return json({ message: 'Use q (up to 60 characters), kind (plant, fish, shrimp, snail, invertebrate or animal) and limit (1–25).' }, { status: 400 });
 	const results = await catalogue.search(parsed.data.q, { kind: parsed.data.kind, limit: parsed.data.limit });
 	return json({ results }, { headers: { 'cache-control': 'private, max-age=300' } });
 };

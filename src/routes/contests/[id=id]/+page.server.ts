@@ -30,10 +30,24 @@ export const load = (async (event) => {
 			publishedAt: contest.publishedAt
 		},
 		rulesHtml: renderMarkdown(contest.rules),
-		criteria: contest.criteria.map((c) => ({ id: c.id, label: c.label, guidance: c.guidance, maxPoints: c.maxPoints, weight: c.weight, tieBreakRank: c.tieBreakRank })),
+		criteria: contest.criteria.map((c) => ({
+			id: c.id,
+			label: c.label,
+			guidance: c.guidance,
+			maxPoints: c.maxPoints,
+			weight: c.weight,
+			tieBreakRank: c.tieBreakRank
+		})),
 		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
 		accepting,
-		mine: mine.map((e) => ({ id: e.id, categoryName: e.categoryName, tankName: e.tankName, number: e.number, thumb: e.photos[0]?.urls.thumb ?? null, alt: e.photos[0]?.alt ?? '' })),
+		mine: mine.map((e) => ({
+			id: e.id,
+			categoryName: e.categoryName,
+			tankName: e.tankName,
+			number: e.number,
+			thumb: e.photos[0]?.urls.thumb ?? null,
+			alt: e.photos[0]?.alt ?? ''
+		})),
 		canEnter: !!viewer && accepting && mine.length < contest.entriesPerMember,
 		results: results && {
 			panel: results.panel,

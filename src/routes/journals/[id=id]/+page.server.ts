@@ -83,7 +83,8 @@ async function toggle(event: Parameters<Actions[string]>[0], what: 'admire' | 'f
 		return { following: await social.toggleFollow(viewer, Number(event.params.id), want) };
 	} catch (e) {
 		if (e instanceof tanks.TankNotFound) error(404, 'We could not find that tank.');
-		if (e instanceof social.OwnTankError) return fail(400, { socialError: what === 'admire' ? 'You cannot admire your own tank.' : 'You keep this tank; there is nothing to follow.' });
+		if (e instanceof social.OwnTankError)
+			return fail(400, { socialError: what === 'admire' ? 'You cannot admire your own tank.' : 'You keep this tank; there is nothing to follow.' });
 		throw e;
 	}
 }

@@ -1,5 +1,18 @@
 import * as tanks from '$lib/server/journals/tanks';
-import { NUTRIENTS, SALT_IDS, SALTS, doseContribution, fromMetric, gramsForTarget, massFraction, parseVolume, roundTo, CalcInputError, type Nutrient, type SaltId } from '$lib/journals/calc';
+import {
+	NUTRIENTS,
+	SALT_IDS,
+	SALTS,
+	doseContribution,
+	fromMetric,
+	gramsForTarget,
+	massFraction,
+	parseVolume,
+	roundTo,
+	CalcInputError,
+	type Nutrient,
+	type SaltId
+} from '$lib/journals/calc';
 import type { PageServerLoad } from './$types';
 
 // Public, like any calculator; a tank named in ?tank= fills in its volume only for those who may see it.
@@ -45,6 +58,12 @@ export const load = (async ({ url, locals }) => {
 		result,
 		units,
 		tank: tank ? { id: tank.id, name: tank.name } : null,
-		salts: SALT_IDS.map((id) => ({ id, name: SALTS[id].name, formula: SALTS[id].formula, supplies: Object.keys(SALTS[id].yields) as Nutrient[], fractions: (Object.keys(SALTS[id].yields) as Nutrient[]).map((n) => ({ nutrient: n, percent: massFraction(id, n) * 100 })) }))
+		salts: SALT_IDS.map((id) => ({
+			id,
+			name: SALTS[id].name,
+			formula: SALTS[id].formula,
+			supplies: Object.keys(SALTS[id].yields) as Nutrient[],
+			fractions: (Object.keys(SALTS[id].yields) as Nutrient[]).map((n) => ({ nutrient: n, percent: massFraction(id, n) * 100 }))
+		}))
 	};
 }) satisfies PageServerLoad;

@@ -22,7 +22,11 @@ export const load = (async (event) => {
 	const profile = await members.profile(viewer, id);
 	if (!profile) error(404, 'We could not find that member.');
 	const [open, tankList] = await Promise.all([listings.listOpenOf(viewer, id), tanks.listVisibleOf(viewer, id)]);
-	return { profile, listings: open, tanks: tankList.map((t) => ({ id: t.id, name: t.name, style: t.style, cover: t.cover ? { url: t.cover.urls.thumb, alt: t.cover.alt } : null })) };
+	return {
+		profile,
+		listings: open,
+		tanks: tankList.map((t) => ({ id: t.id, name: t.name, style: t.style, cover: t.cover ? { url: t.cover.urls.thumb, alt: t.cover.alt } : null }))
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {

@@ -30,15 +30,33 @@ export const load = (async (event) => {
 		: [];
 	const trail = await audit.trail(id);
 	return {
-		contest: { id: c.id, title: c.title, state: c.state, entryOpensOn: c.entryOpensOn, entryClosesOn: c.entryClosesOn, judgingOpensOn: c.judgingOpensOn, judgingClosesOn: c.judgingClosesOn, entriesPerMember: c.entriesPerMember, aggregation: c.aggregation },
+		contest: {
+			id: c.id,
+			title: c.title,
+			state: c.state,
+			entryOpensOn: c.entryOpensOn,
+			entryClosesOn: c.entryClosesOn,
+			judgingOpensOn: c.judgingOpensOn,
+			judgingClosesOn: c.judgingClosesOn,
+			entriesPerMember: c.entriesPerMember,
+			aggregation: c.aggregation
+		},
 		next,
 		problems,
 		needsReason: next?.name === 'publish' && !report.readiness.ready,
-		categories: c.categories.map((k) => ({ id: k.id, name: k.name, rule: describeRule(contests.ruleOf(k)), entries: data.entries.filter((e) => e.categoryId === k.id).length })),
+		categories: c.categories.map((k) => ({
+			id: k.id,
+			name: k.name,
+			rule: describeRule(contests.ruleOf(k)),
+			entries: data.entries.filter((e) => e.categoryId === k.id).length
+		})),
 		criteria: c.criteria.map((k) => ({ id: k.id, label: k.label, maxPoints: k.maxPoints, weight: k.weight })),
 		panel: data.panel.map((p) => p.displayName),
 		progress: report.readiness.overall,
-		trail: trail.reverse().slice(0, 30).map((t) => ({ id: t.id, action: t.action, actorName: t.actorName, createdAt: t.createdAt, detail: t.detail }))
+		trail: trail
+			.reverse()
+			.slice(0, 30)
+			.map((t) => ({ id: t.id, action: t.action, actorName: t.actorName, createdAt: t.createdAt, detail: t.detail }))
 	};
 }) satisfies PageServerLoad;
 

@@ -22,7 +22,13 @@ export async function photosAgain(viewer: Viewer, fields: PhotoField[], entryId:
 	});
 }
 
-export async function readEntryForm(request: Request, viewer: Viewer, tank: Pick<TankRow, 'setUpOn'>, entryId: number | null, today = new Date().toISOString().slice(0, 10)): Promise<EntryFormRead> {
+export async function readEntryForm(
+	request: Request,
+	viewer: Viewer,
+	tank: Pick<TankRow, 'setUpOn'>,
+	entryId: number | null,
+	today = new Date().toISOString().slice(0, 10)
+): Promise<EntryFormRead> {
 	const form = await request.formData();
 	const draft = entryDraftFrom(form);
 	const photos = readPhotoFields(form, 'photos', ENTRY_PHOTOS_MAX);

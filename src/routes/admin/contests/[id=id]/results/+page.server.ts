@@ -25,7 +25,12 @@ export const load = (async (event) => {
 		readiness: {
 			ready: report.readiness.ready,
 			overall: report.readiness.overall,
-			missing: report.readiness.missing.map((m) => ({ number: entryOf(m.entryId).number, entrant: name(entryOf(m.entryId).entrantId), judge: name(m.judgeId), state: m.state })),
+			missing: report.readiness.missing.map((m) => ({
+				number: entryOf(m.entryId).number,
+				entrant: name(entryOf(m.entryId).entrantId),
+				judge: name(m.judgeId),
+				state: m.state
+			})),
 			unjudgeable: report.readiness.unjudgeableEntryIds.map((id) => entryOf(id).number)
 		},
 		categories: c.categories.map((category, i) => {
@@ -35,10 +40,33 @@ export const load = (async (event) => {
 				name: category.name,
 				unevenPanel: cat.unevenPanel,
 				concordance: cat.concordance.ok
-					? { ok: true as const, w: cat.concordance.w, wTieCorrected: cat.concordance.wTieCorrected, m: cat.concordance.m, n: cat.concordance.n, excluded: cat.concordance.excludedEntryIds.length, chi: cat.concordance.friedmanChiSquare, df: cat.concordance.degreesOfFreedom }
+					? {
+							ok: true as const,
+							w: cat.concordance.w,
+							wTieCorrected: cat.concordance.wTieCorrected,
+							m: cat.concordance.m,
+							n: cat.concordance.n,
+							excluded: cat.concordance.excludedEntryIds.length,
+							chi: cat.concordance.friedmanChiSquare,
+							df: cat.concordance.degreesOfFreedom
+						}
 					: { ok: false as const, message: cat.concordance.message, excluded: cat.concordance.excludedEntryIds.length },
-				judges: cat.judges.map((j) => ({ name: name(j.judgeId), cards: j.cards, mean: j.mean, sd: j.standardDeviation, status: j.status, fewCards: j.fewCards })),
-				flagged: cat.flaggedCards.map((o) => ({ cardId: o.cardId, number: entryOf(o.entryId).number, judge: name(o.judgeId), total: o.total, othersMean: o.othersMean, deviationSds: o.deviationSds })),
+				judges: cat.judges.map((j) => ({
+					name: name(j.judgeId),
+					cards: j.cards,
+					mean: j.mean,
+					sd: j.standardDeviation,
+					status: j.status,
+					fewCards: j.fewCards
+				})),
+				flagged: cat.flaggedCards.map((o) => ({
+					cardId: o.cardId,
+					number: entryOf(o.entryId).number,
+					judge: name(o.judgeId),
+					total: o.total,
+					othersMean: o.othersMean,
+					deviationSds: o.deviationSds
+				})),
 				entries: cat.entries.map((e) => {
 					const entry = entryOf(e.entryId);
 					return {

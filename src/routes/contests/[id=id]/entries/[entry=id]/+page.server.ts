@@ -26,7 +26,14 @@ export const load = (async (event) => {
 			volumeSource: entry.volumeSource,
 			ageWeeks: entry.ageWeeks,
 			statementHtml: renderMarkdown(entry.statement),
-			photos: entry.photos.map((p) => ({ id: p.id, alt: p.alt, caption: p.caption, urls: p.urls, width: p.renditions.medium.width, height: p.renditions.medium.height }))
+			photos: entry.photos.map((p) => ({
+				id: p.id,
+				alt: p.alt,
+				caption: p.caption,
+				urls: p.urls,
+				width: p.renditions.medium.width,
+				height: p.renditions.medium.height
+			}))
 		},
 		own: entry.entrantId === viewer.id,
 		changeable: entry.entrantId === viewer.id && entriesAccepted(contest.state, windowsOf(contest), new Date()),

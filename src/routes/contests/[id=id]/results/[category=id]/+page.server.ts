@@ -33,7 +33,14 @@ export const load = (async (event) => {
 				methodNote: e.methodNote,
 				criteria: e.criteria,
 				comments: e.comments,
-				photos: e.photos.map((p) => ({ id: p.id, alt: p.alt, caption: p.caption, urls: p.urls, width: p.renditions.medium.width, height: p.renditions.medium.height })),
+				photos: e.photos.map((p) => ({
+					id: p.id,
+					alt: p.alt,
+					caption: p.caption,
+					urls: p.urls,
+					width: p.renditions.medium.width,
+					height: p.renditions.medium.height
+				})),
 				litres: e.litres,
 				ageWeeks: e.ageWeeks,
 				mine: e.entrantId === viewerId

@@ -22,7 +22,13 @@ export const load = (async (event) => {
 	const fields = normaliseFields(rubricOf(data.contest.criteria), card.fields);
 	return {
 		contest: { id: data.contest.id, title: data.contest.title, state: data.contest.state },
-		card: { id: card.id, status: card.status, judge: data.people.get(card.judgeId)?.displayName ?? '', number: entry.number, entrant: data.people.get(entry.entrantId)?.displayName ?? '' },
+		card: {
+			id: card.id,
+			status: card.status,
+			judge: data.people.get(card.judgeId)?.displayName ?? '',
+			number: entry.number,
+			entrant: data.people.get(entry.entrantId)?.displayName ?? ''
+		},
 		criteria: data.contest.criteria.map((k) => ({ id: String(k.id), label: k.label, maxPoints: k.maxPoints })),
 		fields
 	};

@@ -37,8 +37,10 @@ export const actions = {
 		try {
 			await entries.update(viewer, tank.id, entry.id, read.input, read.photos);
 		} catch (e) {
-			if (e instanceof entries.EntryInputError) return fail(400, { errors: e.errors, draft: read.draft, photos: await photosAgain(viewer, read.fields, entry.id) });
-			if (e instanceof MediaError) return fail(400, { errors: { photos: e.message }, draft: read.draft, photos: await photosAgain(viewer, read.fields, entry.id) });
+			if (e instanceof entries.EntryInputError)
+				return fail(400, { errors: e.errors, draft: read.draft, photos: await photosAgain(viewer, read.fields, entry.id) });
+			if (e instanceof MediaError)
+				return fail(400, { errors: { photos: e.message }, draft: read.draft, photos: await photosAgain(viewer, read.fields, entry.id) });
 			throw e;
 		}
 		redirect(303, `/journals/${tank.id}/entries/${entry.id}`);

@@ -1,4 +1,4 @@
-import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
+import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { authHandle } from '$lib/server/auth';
@@ -11,8 +11,8 @@ import { startJobs } from '$lib/server/jobs/runner';
 import { defaultTransport } from '$lib/server/mail/transport';
 import { pool } from '$lib/server/db';
 import { safeRedirectPath } from '$lib/club/redirect';
-
-const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'];
+import { checkRequests } from '$lib/server/http/requests';
+import { isPublic, responseHeaders } from '$lib/server/http/responses';
 
 export const init: ServerInit = async () => {
 	if (building) return;
@@ -30,34 +30,69 @@ export const init: ServerInit = async () => {
 	});
 };
 
-/** Sign-in links are requested only through /signin, where they are validated and rate-limited. */
-const onlyOurSignInForm: Handle = async ({ event, resolve }) => {
-	if (event.request.method === 'POST' && event.url.pathname.startsWith('/auth/signin')) {
+/**
+ * Sign-in links are requested only through /signin, where they are validated and rate-limited;
+ * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
+ */
+/** A redirect returned (not thrown), so the outer hooks still add their headers to it. */
+const seeOther = (location: string) => new Response(null, { status: 303, headers: { location } });
+
+const AUTH_PAGES: Record<string, string> = {
+	'/auth/signin': '/signin',
+	'/auth/signout': '/',
+	'/auth/error': '/signin/problem',
+	'/auth/verify-request': '/signin/check-email'
+};
+const onlyOurAuthPages: Handle = async ({ event, resolve }) => {
+	const path = event.url.pathname.replace(/\/+$/, '');
+	if (event.request.method === 'POST' && path.startsWith('/auth/signin')) {
 		return new Response('Request a sign-in link on /signin.', { status: 404 });
+	}
+	const ours = event.request.method === 'GET' ? AUTH_PAGES[path] : undefined;
+	if (ours) {
+		const error = event.url.searchParams.get('error');
+		return seeOther(ours === '/signin/problem' && error ? `${ours}?error=${encodeURIComponent(error)}` : ours);
 	}
 	return resolve(event);
 };
 
+const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'];
+
+/**
+ * Resolves the session cookie into `locals.user` with one query (session joined to its member).
+ * Auth.js's own session call is not used: it re-sends the cookie on every response, including
+ * ones a shared cache may keep. The cookie is re-sent only when its end moves (once a day of
+ * use) and never on a public response.
+ */
 const resolveViewer: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
 	event.locals.sessionToken = null;
 	if (event.url.pathname.startsWith('/auth/')) return resolve(event);
-	const token = SESSION_COOKIES.map((name) => event.cookies.get(name)).find(Boolean) ?? null;
-	if (token) {
-		const session = await event.locals.auth();
-		const id = session?.user?.id;
-		const row = id ? await users.getById(id) : undefined;
-		if (row) {
-			event.locals.user = users.toViewer(row);
-			event.locals.sessionToken = token;
-			const stored = await sessions.getByToken(token);
-			await Promise.all([
-				users.touchLastSeen(row.id, row.lastSeenAt),
-				stored ? sessions.touch(token, stored.lastSeenAt, event.request.headers.get('user-agent')) : undefined
-			]);
+	const cookieName = SESSION_COOKIES.find((name) => event.cookies.get(name));
+	const token = cookieName ? event.cookies.get(cookieName)! : null;
+	const session = token ? await sessions.resolve(token) : undefined;
+	if (!token || !cookieName || !session) return resolve(event);
+
+	event.locals.user = users.toViewer(session.user);
+	event.locals.sessionToken = token;
+	const response = await resolve(event);
+	const renew = sessions.renewalDue(session) && !isPublic(response);
+	const expires = await sessions.recordUse(token, session, event.request.headers.get('user-agent'), renew);
+	if (expires) {
+		const cookie = event.cookies.serialize(cookieName, token, {
+			path: '/',
+			httpOnly: true,
+			sameSite: 'lax',
+			secure: cookieName.startsWith('__Secure-'),
+			expires
+		});
+		try {
+			response.headers.append('set-cookie', cookie);
+		} catch {
+			// A response with immutable headers keeps the old end; the next page renews it.
 		}
 	}
-	return resolve(event);
+	return response;
 };
 
 /** A signed-in person without a display name is asked for one before anything else. */
@@ -75,24 +110,13 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 		!path.startsWith('/media/') &&
 		!path.startsWith('/_app/')
 	) {
-		redirect(303, `/welcome?redirectTo=${encodeURIComponent(safeRedirectPath(path + event.url.search))}`);
+		return seeOther(`/welcome?redirectTo=${encodeURIComponent(safeRedirectPath(path + event.url.search))}`);
 	}
 	return resolve(event);
 };
 
-const securityHeaders: Handle = async ({ event, resolve }) => {
-	const response = await resolve(event);
-	response.headers.set('X-Content-Type-Options', 'nosniff');
-	response.headers.set('Referrer-Policy', 'strict-origin-when-cross-origin');
-	response.headers.set('Permissions-Policy', 'camera=(), microphone=(), geolocation=(self), payment=(), usb=(), interest-cohort=()');
-	response.headers.set('X-Frame-Options', 'DENY');
-	if (event.url.protocol === 'https:') {
-		response.headers.set('Strict-Transport-Security', 'max-age=31536000; includeSubDomains');
-	}
-	return response;
-};
-
-export const handle: Handle = sequence(onlyOurSignInForm, authHandle, resolveViewer, askForDisplayName, securityHeaders);
+// Outermost first: every response, Auth.js's included, leaves through responseHeaders.
+export const handle: Handle = sequence(responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName);
 
 /** Last resort: log the error under an id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

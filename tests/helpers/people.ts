@@ -35,3 +35,12 @@ export async function roleOf(id: string): Promise<Role | undefined> {
 	const [row] = await db.select({ role: users.role }).from(users).where(eq(users.id, id));
 	return row?.role;
 }
+
+/** A database session for someone who already exists (a demo member, say). */
+export async function personByEmail(email: string): Promise<TestPerson> {
+	const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
+	if (!row) throw new Error(`No member with the address ${email}.`);
+	const token = crypto.randomUUID();
+	await db.insert(sessions).values({ sessionToken: token, userId: row.id, expires: new Date(Date.now() + 30 * 86_400_000) });
+	return { id: row.id, email: row.email ?? email, displayName: row.displayName ?? '', role: row.role, token, cookie: `${SESSION_COOKIE}=${token}` };
+}

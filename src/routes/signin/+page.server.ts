@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
-import { signIn } from '$lib/server/auth';
+import { authEvent, signIn } from '$lib/server/auth';
 import * as limit from '$lib/server/club/sign-in-limit';
 import { safeRedirectPath } from '$lib/club/redirect';
 import type { Actions, PageServerLoad } from './$types';
@@ -32,18 +32,8 @@ export const actions = {
 					: 'Several sign-in links were asked for from this device in the last hour.';
 			return fail(429, { email, errors: { email: `${why} Use the newest one, or try again in ${verdict.retryAfterMinutes} minutes.` } });
 		}
-		// Auth.js reads the form itself: hand it a clean one with a safe destination.
-		const body = new URLSearchParams({
-			providerId: 'nodemailer',
-			email: parsed.data.email,
-			redirectTo: safeRedirectPath(parsed.data.redirectTo)
-		});
-		const request = new Request(event.request.url, {
-			method: 'POST',
-			headers: { ...Object.fromEntries(event.request.headers), 'content-type': 'application/x-www-form-urlencoded' },
-			body
-		});
+		// Auth.js reads the form itself: hand it a clean request on ORIGIN with a safe destination.
 		// signIn throws the redirect to the "check your mail" page.
-		await signIn({ ...event, request });
+		await signIn(authEvent(event, { providerId: 'nodemailer', email: parsed.data.email, redirectTo: safeRedirectPath(parsed.data.redirectTo) }));
 	}
 } satisfies Actions;

@@ -1,7 +1,8 @@
 import { createHash } from 'node:crypto';
 import { and, desc, eq, gt } from 'drizzle-orm';
 import { db } from '../db';
-import { sessions } from './schema';
+import { sessions, users } from './schema';
+import type { UserRow } from './users';
 
 /** Sessions are addressed by a hash of their token, so the token never reaches a page. */
 export const sessionHandle = (token: string) => createHash('sha256').update(token).digest('hex').slice(0, 16);
@@ -43,16 +44,46 @@ export async function revokeAll(userId: string): Promise<void> {
 	await db.delete(sessions).where(eq(sessions.userId, userId));
 }
 
-/** Records the device and time of use, at most every few minutes per session. */
-export async function touch(token: string, previous: Date | null, userAgent: string | null, now = new Date()): Promise<void> {
-	if (previous && now.getTime() - previous.getTime() < 5 * 60_000) return;
-	await db
-		.update(sessions)
-		.set({ lastSeenAt: now, userAgent: userAgent?.slice(0, 255) ?? null })
-		.where(eq(sessions.sessionToken, token));
+/** How long a session lasts without use, and how often its end is pushed out again (as Auth.js does). */
+export const SESSION_MAX_AGE_MS = 30 * 24 * 60 * 60_000;
+export const SESSION_UPDATE_AGE_MS = 24 * 60 * 60_000;
+/** Last-seen times are written at most this often, so reads stay reads. */
+const TOUCH_GAP_MS = 5 * 60_000;
+
+export interface ResolvedSession {
+	user: UserRow;
+	expires: Date;
+	lastSeenAt: Date | null;
 }
 
-export async function getByToken(token: string) {
-	const [row] = await db.select().from(sessions).where(eq(sessions.sessionToken, token)).limit(1);
+/** The live session for a cookie's token and its member, in one query; undefined when it is unknown or expired. */
+export async function resolve(token: string, now = new Date()): Promise<ResolvedSession | undefined> {
+	const [row] = await db
+		.select({ user: users, expires: sessions.expires, lastSeenAt: sessions.lastSeenAt })
+		.from(sessions)
+		.innerJoin(users, eq(users.id, sessions.userId))
+		.where(and(eq(sessions.sessionToken, token), gt(sessions.expires, now)))
+		.limit(1);
 	return row;
+}
+
+/** Sliding expiry: once a day of use has passed since the end was last set, it moves out again. */
+export const renewalDue = (session: Pick<ResolvedSession, 'expires'>, now = new Date()) =>
+	session.expires.getTime() - SESSION_MAX_AGE_MS + SESSION_UPDATE_AGE_MS <= now.getTime();
+
+/**
+ * Records the device and time of use (at most every few minutes) and, when `renew` is set,
+ * pushes the session's end out; returns the new end, or null when nothing was renewed.
+ */
+export async function recordUse(token: string, session: ResolvedSession, userAgent: string | null, renew: boolean, now = new Date()): Promise<Date | null> {
+	const expires = renew ? new Date(now.getTime() + SESSION_MAX_AGE_MS) : null;
+	const stale = (at: Date | null) => !at || now.getTime() - at.getTime() >= TOUCH_GAP_MS;
+	if (expires || stale(session.lastSeenAt)) {
+		await db
+			.update(sessions)
+			.set({ lastSeenAt: now, userAgent: userAgent?.slice(0, 255) ?? null, ...(expires ? { expires } : {}) })
+			.where(eq(sessions.sessionToken, token));
+	}
+	if (stale(session.user.lastSeenAt)) await db.update(users).set({ lastSeenAt: now }).where(eq(users.id, session.user.id));
+	return expires;
 }

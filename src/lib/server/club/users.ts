@@ -35,12 +35,6 @@ export async function getByEmail(email: string, tx: DbOrTx = db): Promise<UserRo
 	return row;
 }
 
-/** Notes that the person was here, at most every few minutes so reads stay reads. */
-export async function touchLastSeen(id: string, previous: Date | null, now = new Date()): Promise<void> {
-	if (previous && now.getTime() - previous.getTime() < 5 * 60_000) return;
-	await db.update(users).set({ lastSeenAt: now }).where(eq(users.id, id));
-}
-
 export async function setDisplayName(id: string, displayName: string): Promise<void> {
 	await db.update(users).set({ displayName }).where(eq(users.id, id));
 }

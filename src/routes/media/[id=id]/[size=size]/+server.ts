@@ -5,10 +5,15 @@ import { store } from '$lib/server/media/storage';
 import type { RequestHandler } from './$types';
 
 /**
- * A photo rendition. Keys never change, so browsers may keep a copy for a year; shared caches
- * only for public photos and for an hour, so a tank made private stops being served by them soon.
+ * A photo rendition. Public photos may be kept by browsers for a year and by shared caches for
+ * an hour, so a tank made private stops being served by them soon. Anything else is kept only by
+ * the viewer's browser and only briefly, then asked for again (a 304 while access lasts), so
+ * someone who loses access — a tank made private, a judge who stepped back — stops seeing it.
  * Anyone who may not see what the photo belongs to gets 404, as if it did not exist.
  */
+const PRIVATE_CACHE = 'private, max-age=60, must-revalidate';
+const PUBLIC_CACHE = 'public, max-age=31536000, s-maxage=3600, immutable';
+
 export const GET: RequestHandler = async (event) => {
 	const id = Number(event.params.id);
 	const size = event.params.size as 'thumb' | 'medium' | 'large';
@@ -18,12 +23,13 @@ export const GET: RequestHandler = async (event) => {
 	if (!audience) error(404, 'No such photo.');
 
 	const etag = `"${id}-${size}"`;
-	const cacheControl = audience === 'public' ? 'public, max-age=31536000, s-maxage=3600, immutable' : 'private, max-age=31536000, immutable';
 	const headers: Record<string, string> = {
-		'cache-control': cacheControl,
+		'cache-control': audience === 'public' ? PUBLIC_CACHE : PRIVATE_CACHE,
 		etag,
-		vary: 'Cookie',
-		'content-security-policy': "default-src 'none'; img-src 'self'",
+		// Who may see it depends on the cookie; the bytes of a public photo do not.
+		...(audience === 'public' ? {} : { vary: 'Cookie' }),
+		// Opened on its own, the browser's image viewer styles the page inline; no script may run.
+		'content-security-policy': "default-src 'none'; img-src 'self'; style-src 'unsafe-inline'",
 		'cross-origin-resource-policy': 'same-origin'
 	};
 	if (event.request.headers.get('if-none-match') === etag) return new Response(null, { status: 304, headers });

@@ -1,0 +1,50 @@
+import { expect, test, type Page } from '@playwright/test';
+import { personByEmail } from '../helpers/people';
+import { contextFor } from './fixtures';
+
+// The strict CSP (no 'unsafe-eval', no inline script) must never have to refuse anything our
+// own pages try: a refusal is a console error, and usually a feature quietly not working.
+// Each role walks the pages it can reach from the main sections, following our own links.
+
+const START = ['/', '/journals', '/journals/showcase', '/journals/dose', '/swaps', '/swaps/mine', '/swaps/new', '/contests', '/judging', '/admin', '/account'];
+const SKIP = /^\/(auth|signout|media)\b|\/export\b|\.xml$/;
+
+async function walk(page: Page, limit: number): Promise<{ visited: string[]; problems: string[] }> {
+	const problems: string[] = [];
+	page.on('console', (message) => {
+		// Pages this role may not open answer 403/404 during the walk; that is not a script problem.
+		if (message.type() === 'error' && !message.text().startsWith('Failed to load resource')) problems.push(`${page.url()}: ${message.text()}`);
+	});
+	page.on('pageerror', (error) => problems.push(`${page.url()}: ${error.message}`));
+	await page.addInitScript(() => {
+		document.addEventListener('securitypolicyviolation', (e) =>
+			console.error(`CSP refused ${e.violatedDirective}: ${e.blockedURI} ${e.sourceFile}:${e.lineNumber}`)
+		);
+	});
+	const seen = new Set<string>();
+	const visited: string[] = [];
+	const queue = [...START];
+	while (queue.length && visited.length < limit) {
+		const path = queue.shift()!;
+		const shape = path.replace(/\d+/g, 'N').replace(/[?#].*$/, '');
+		if (seen.has(shape) || SKIP.test(path)) continue;
+		seen.add(shape);
+		visited.push(path);
+		await page.goto(path);
+		await page.waitForLoadState('networkidle');
+		for (const href of await page.$$eval('a[href^="/"]', (links) => links.map((a) => a.getAttribute('href')!))) queue.push(href);
+	}
+	return { visited, problems };
+}
+
+for (const who of ['mara.quillfeather@kettlewater.test', 'sefa.lindqvoss@kettlewater.test', 'oriel.vantwist@kettlewater.test', null]) {
+	test(`no page asks the browser for anything our CSP refuses (${who ?? 'signed out'})`, async ({ browser }) => {
+		test.setTimeout(120_000);
+		const context = who ? await contextFor(browser, await personByEmail(who)) : await browser.newContext();
+		const page = await context.newPage();
+		const { visited, problems } = await walk(page, 45);
+		expect(visited.length).toBeGreaterThan(who ? 15 : 5);
+		expect(problems).toEqual([]);
+		await context.close();
+	});
+}

@@ -178,7 +178,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
 	const httpPort = Number(process.env.MAIL_FAKE_HTTP_PORT ?? 8025);
 	const fake = await startMailFake({ smtpPort, httpPort, storeFile: process.env.MAIL_FAKE_STORE });
 	console.log(`mail fake: SMTP on 127.0.0.1:${smtpPort}, inbox on http://127.0.0.1:${httpPort}/`);
-	const stop = () => fake.close().then(() => process.exit(0));
+	const stop = () => void fake.close().then(() => process.exit(0));
 	process.on('SIGTERM', stop);
 	process.on('SIGINT', stop);
 }

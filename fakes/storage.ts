@@ -32,7 +32,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
 	const bucket = process.env.S3_BUCKET ?? 'riparia-media';
 	const fake = await startStorageFake({ port, directory, bucket });
 	console.log(`storage fake: S3 on http://127.0.0.1:${port}/ (bucket ${bucket}, files in ${directory})`);
-	const stop = () => fake.close().then(() => process.exit(0));
+	const stop = () => void fake.close().then(() => process.exit(0));
 	process.on('SIGTERM', stop);
 	process.on('SIGINT', stop);
 }

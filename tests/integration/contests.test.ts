@@ -4,7 +4,7 @@ import { describe, expect, test } from 'vitest';
 import { and, eq, like } from 'drizzle-orm';
 import { parse } from 'csv-parse/sync';
 import { db } from '../../src/lib/server/db';
-import { auditLog } from '../../src/lib/server/club/schema';
+import { auditLog } from '../../src/lib/server/audit/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { contestCards } from '../../src/lib/server/contests/schema';
 import * as contests from '../../src/lib/server/contests/contests';

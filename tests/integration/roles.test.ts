@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { auditLog, users } from '../../src/lib/server/club/schema';
+import { users } from '../../src/lib/server/club/schema';
+import { auditLog } from '../../src/lib/server/audit/schema';
 import { changeRole, LastAdminError, toViewer } from '../../src/lib/server/club/users';
 import { scratchDatabase } from '../helpers/scratch-db';
 

@@ -1,6 +1,8 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireUser } from '$lib/server/club/guards';
 import * as users from '$lib/server/club/users';
+import { formAction, parseForm } from '$lib/server/http/forms';
 import { displayNameSchema } from '$lib/club/profile';
 import { safeRedirectPath } from '$lib/club/redirect';
 import type { Actions, PageServerLoad } from './$types';
@@ -10,14 +12,13 @@ export const load = ((event) => {
 	return { displayName: user.displayName ?? '', redirectTo: safeRedirectPath(event.url.searchParams.get('redirectTo')) };
 }) satisfies PageServerLoad;
 
+const welcomeForm = z.object({ displayName: displayNameSchema, redirectTo: z.string().optional() });
+
 export const actions = {
-	default: async (event) => {
+	default: formAction(async (event, data) => {
 		const user = requireUser(event);
-		const data = await event.request.formData();
-		const raw = String(data.get('displayName') ?? '');
-		const parsed = displayNameSchema.safeParse(raw);
-		if (!parsed.success) return fail(400, { displayName: raw, error: parsed.error.issues[0]?.message });
-		await users.setDisplayName(user.id, parsed.data);
-		redirect(303, safeRedirectPath(String(data.get('redirectTo') ?? '/')));
-	}
+		const input = parseForm(welcomeForm, data);
+		await users.setDisplayName(user.id, input.displayName);
+		redirect(303, safeRedirectPath(input.redirectTo));
+	})
 } satisfies Actions;

@@ -1,7 +1,8 @@
 import { asc, eq } from 'drizzle-orm';
 import { db, type DbOrTx } from '../db';
 import { roundToKilometre, type LatLng } from '../../club/location';
-import { auditLog, clubAreas, users } from './schema';
+import { clubAreas, users } from './schema';
+import { auditLog } from '../audit/schema';
 import type { Viewer } from './users';
 
 export type Area = typeof clubAreas.$inferSelect;

@@ -2,7 +2,8 @@ import { and, asc, count, eq, like, ne, or, sql } from 'drizzle-orm';
 import { db, type Database, type DbOrTx } from '../db';
 import type { Role, UnitSystem } from '../../club/roles';
 import { roundToKilometre } from '../../club/location';
-import { auditLog, users } from './schema';
+import { users } from './schema';
+import * as audit from '../audit';
 
 export type UserRow = typeof users.$inferSelect;
 
@@ -118,13 +119,10 @@ export async function changeRole(actor: Viewer, targetId: string, role: Role, da
 			if (others.length === 0) throw new LastAdminError();
 		}
 		await tx.update(users).set({ role }).where(eq(users.id, targetId));
-		await tx.insert(auditLog).values({
-			actorId: actor.id,
-			action: 'role.change',
-			subjectType: 'user',
-			subjectId: targetId,
-			detail: { from: target.role, to: role }
-		});
+		await audit.record(
+			{ actorId: actor.id, action: 'role.change', subject: { type: 'user', id: targetId }, detail: { from: target.role, to: role } },
+			{ db: tx }
+		);
 	});
 }
 
@@ -132,12 +130,4 @@ export async function changeRole(actor: Viewer, targetId: string, role: Role, da
 export async function promoteConfiguredAdmin(email: string | undefined, tx: DbOrTx = db): Promise<void> {
 	if (!email) return;
 	await tx.update(users).set({ role: 'admin' }).where(eq(users.email, email.toLowerCase()));
-}
-
-/** Records an action on someone else's data (e.g. an admin removing a member's comment) in the audit log. */
-export async function recordAudit(
-	tx: DbOrTx,
-	entry: { actorId: string; action: string; subjectType: string; subjectId: string; detail?: Record<string, unknown> }
-): Promise<void> {
-	await tx.insert(auditLog).values(entry);
 }

@@ -2,7 +2,8 @@
 // override and correction, with who did it and why.
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { db as appDb, type DbOrTx } from '../db';
-import { auditLog, users } from '../club/schema';
+import { users } from '../club/schema';
+import { auditLog } from '../audit/schema';
 
 export const SUBJECT = 'contest';
 

@@ -2,6 +2,7 @@
 // (drizzle.config.ts points here). A new domain adds one line.
 export * from './meta';
 export * from '../club/schema';
+export * from '../audit/schema';
 export * from '../mail/schema';
 export * from '../media/schema';
 export * from '../species/schema';

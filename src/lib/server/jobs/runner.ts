@@ -79,9 +79,9 @@ export function startJobs(jobs: Job[], intervalMs = 30_000) {
 		} catch (error) {
 			console.error('[jobs] round failed:', error instanceof Error ? error.message : error);
 		}
-		if (!stopped) timer = setTimeout(tick, intervalMs);
+		if (!stopped) timer = setTimeout(() => void tick(), intervalMs);
 	};
-	timer = setTimeout(tick, 1_000);
+	timer = setTimeout(() => void tick(), 1_000);
 	return () => {
 		stopped = true;
 		if (timer) clearTimeout(timer);

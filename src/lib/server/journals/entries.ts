@@ -6,7 +6,8 @@ import { db as appDb, type DbOrTx } from '../db';
 import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
-import { recordAudit, type Viewer } from '../club/users';
+import type { Viewer } from '../club/users';
+import * as audit from '../audit';
 import { users } from '../club/schema';
 import { species } from '../species/schema';
 import { renderMarkdown } from '../markdown';
@@ -409,13 +410,15 @@ export async function removeComment(viewer: Viewer, tankId: number, commentId: n
 		if (!isAuthor && !isKeeper && viewer.role !== 'admin') throw new EntryNotFound();
 		await tx.delete(entryComments).where(eq(entryComments.id, commentId));
 		if (!isAuthor) {
-			await recordAudit(tx, {
-				actorId: viewer.id,
-				action: 'comment.remove',
-				subjectType: 'entry_comment',
-				subjectId: String(commentId),
-				detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper }
-			});
+			await audit.record(
+				{
+					actorId: viewer.id,
+					action: 'comment.remove',
+					subject: { type: 'entry_comment', id: commentId },
+					detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper }
+				},
+				{ db: tx }
+			);
 		}
 	});
 }

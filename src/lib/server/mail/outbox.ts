@@ -167,9 +167,9 @@ export function startWorker(options: { intervalMs?: number; onError?: (e: unknow
 		} catch (error) {
 			options.onError?.(error);
 		}
-		if (!stopped) timer = setTimeout(tick, interval);
+		if (!stopped) timer = setTimeout(() => void tick(), interval);
 	};
-	timer = setTimeout(tick, 500);
+	timer = setTimeout(() => void tick(), 500);
 	return () => {
 		stopped = true;
 		if (timer) clearTimeout(timer);

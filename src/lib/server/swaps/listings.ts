@@ -4,7 +4,8 @@
 // $lib/swaps/listing-state and are recorded in listing_event with who and when.
 import { and, asc, count, desc, eq, inArray, lte, or, sql } from 'drizzle-orm';
 import { db as appDb, type DbOrTx } from '../db';
-import { auditLog, clubAreas, users } from '../club/schema';
+import { clubAreas, users } from '../club/schema';
+import { auditLog } from '../audit/schema';
 import type { Viewer } from '../club/users';
 import * as areas from '../club/areas';
 import * as media from '../media';

@@ -3,7 +3,8 @@
 // withdraws the listing with a reason; each is recorded in the audit log.
 import { and, asc, count, desc, eq, inArray } from 'drizzle-orm';
 import { db as appDb, type DbOrTx } from '../db';
-import { auditLog, users } from '../club/schema';
+import { users } from '../club/schema';
+import { auditLog } from '../audit/schema';
 import type { Viewer } from '../club/users';
 import { listings, swapMessages, swapReports, swapThreads, type ReportRow } from './schema';
 import * as listingsDomain from './listings';

@@ -2,7 +2,7 @@
 // and nowhere else: entries of the jurisdictions the club has chosen (the `jurisdictions` setting).
 import { and, asc, eq, inArray, or, sql } from 'drizzle-orm';
 import { db as appDb, type DbOrTx } from '../db';
-import { auditLog } from '../club/schema';
+import { auditLog } from '../audit/schema';
 import type { Viewer } from '../club/users';
 import { species } from '../species/schema';
 import type { SpeciesKind } from '../../species/kinds';

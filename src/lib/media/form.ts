@@ -11,6 +11,14 @@ export interface PhotoField {
 	caption: string;
 }
 
+/** A photo as the PhotoUploader shows it (also when a form comes back with errors). */
+export interface UploaderPhoto {
+	id: number;
+	alt: string;
+	caption: string;
+	urls: { thumb: string; medium: string; large: string };
+}
+
 export const photoFieldName = (name: string, index: number, part: 'id' | 'alt' | 'caption') => `${name}[${index}][${part}]`;
 
 const photoSchema = z.object({

@@ -5,7 +5,8 @@ import { randomUUID } from 'node:crypto';
 import { and, asc, count, eq, inArray, isNull, lt } from 'drizzle-orm';
 import { db as appDb, type Database, type DbOrTx } from '../db';
 import { mediaUrls, RENDITION_SIZES, type RenditionSize } from '../../media/urls';
-import type { PhotoField } from '../../media/form';
+import type { PhotoField, UploaderPhoto } from '../../media/form';
+import { resolve, type Context } from '../context';
 import { media, type MediaRow, type StoredRendition } from './schema';
 import { MediaError, prepareImage } from './process';
 import { store as defaultStore, type ObjectStore } from './storage';
@@ -338,4 +339,26 @@ export async function sweepPending(options: { now?: Date; batch?: number } & Dep
 export async function getRow(id: number, tx: DbOrTx = appDb): Promise<MediaRow | undefined> {
 	const [row] = await tx.select().from(media).where(eq(media.id, id)).limit(1);
 	return row;
+}
+
+/**
+ * The photos a form named, as the uploader shows them again after the form came back with
+ * errors: the member's own pending uploads, and those already attached to what is being edited.
+ * The alt text and caption are the ones the member typed, not the stored ones.
+ */
+export async function photosAgain(
+	ownerId: string,
+	fields: PhotoField[],
+	attachedTo: { scope: MediaScope; id: number } | null,
+	context: Context = {}
+): Promise<UploaderPhoto[]> {
+	const { db: tx } = resolve(context);
+	const ids = fields.map((f) => f.id);
+	const known = new Map(
+		[...(await pendingOf(ownerId, ids, tx)), ...(attachedTo ? await listFor(attachedTo.scope, attachedTo.id, tx) : [])].map((p) => [p.id, p])
+	);
+	return fields.flatMap((f) => {
+		const photo = known.get(f.id);
+		return photo ? [{ id: photo.id, alt: f.alt, caption: f.caption, urls: photo.urls }] : [];
+	});
 }

@@ -6,7 +6,7 @@ import { readPhotoFields, type PhotoField } from '$lib/media/form';
 import { draftFromForm, parseTankDraft, type TankDraft } from '$lib/journals/tank-form';
 import type { TankInput } from '$lib/journals/tank-input';
 import { TANK_COVER_MAX } from '$lib/journals/tank-vocabulary';
-import type { UploaderPhoto } from '$lib/components/PhotoUploader.svelte';
+import type { UploaderPhoto } from '$lib/media/form';
 
 export type TankFormRead =
 	{ ok: true; input: TankInput; cover: PhotoField[] } | { ok: false; errors: Record<string, string>; draft: TankDraft; cover: UploaderPhoto[] };

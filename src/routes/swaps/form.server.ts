@@ -11,7 +11,7 @@ import { SwapError } from '$lib/server/swaps/errors';
 import type { ListingDetail } from '$lib/server/swaps/listings';
 import { readPhotoFields, type PhotoField } from '$lib/media/form';
 import { dateOnly, draftFromForm, LISTING_PHOTOS_MAX, parseListingDraft, type ListingDraft, type ListingInput } from '$lib/swaps/listing-form';
-import type { UploaderPhoto } from '$lib/components/PhotoUploader.svelte';
+import type { UploaderPhoto } from '$lib/media/form';
 
 export type ListingFormRead =
 	| { ok: true; input: ListingInput; photos: PhotoField[]; draft: ListingDraft }

@@ -8,7 +8,7 @@ import { SCOPE } from '$lib/server/contests/entries';
 import type { EntryInput } from '$lib/server/contests/entries';
 import { readPhotoFields, type PhotoField } from '$lib/media/form';
 import { ENTRY_PHOTOS_FIELD, ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, entryFieldsSchema, type EntryDraft } from '$lib/contests/entry-form';
-import type { UploaderPhoto } from '$lib/components/PhotoUploader.svelte';
+import type { UploaderPhoto } from '$lib/media/form';
 import * as contests from '$lib/server/contests/contests';
 import * as entries from '$lib/server/contests/entries';
 import { describeRule, roundLitres } from '$lib/contests/eligibility';

@@ -6,7 +6,7 @@ import type { TankRow } from '$lib/server/journals/schema';
 import { readPhotoFields, type PhotoField } from '$lib/media/form';
 import { entryDraftFrom, parseEntryDraft, type EntryDraft, type EntryInput } from '$lib/journals/entry-form';
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
-import type { UploaderPhoto } from '$lib/components/PhotoUploader.svelte';
+import type { UploaderPhoto } from '$lib/media/form';
 
 export type EntryFormRead =
 	| { ok: true; input: EntryInput; photos: PhotoField[]; draft: EntryDraft; fields: PhotoField[] }

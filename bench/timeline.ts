@@ -2,7 +2,7 @@
 // item of the journal, for a long journal (2,000 entries, events and tests each). Prints figures
 // from one run on this machine; compare the ratios, not the absolute times.
 //   npx tsx bench/timeline.ts
-import { compareTimeline, mergeTimeline, rowsNeeded, type TimelineKey } from '../src/lib/journals/timeline';
+import { compareTimeline, mergeTimeline, rowsNeeded, type TimelineKey } from '../src/lib/journals/timeline-merge';
 
 const PER_SOURCE = 2000;
 const SIZE = 10;

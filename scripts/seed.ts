@@ -10,6 +10,9 @@ import { seedJournalTanks, seedJournals } from './seed/journals';
 import { seedRestrictedSpecies } from './seed/restricted';
 import { seedSwaps } from './seed/swaps';
 import { seedContests } from './seed/contests';
+import { registerMediaScopes } from '../src/lib/server/media-scopes';
+
+registerMediaScopes();
 
 interface SeedStep {
 	name: string;

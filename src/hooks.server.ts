@@ -13,6 +13,10 @@ import { pool } from '$lib/server/db';
 import { safeRedirectPath } from '$lib/club/redirect';
 import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
+import { registerMediaScopes } from '$lib/server/media-scopes';
+
+// Who may see each kind of photo is known before the first request.
+registerMediaScopes();
 
 export const init: ServerInit = async () => {
 	if (building) return;

@@ -431,11 +431,11 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			const category = contest.categories[e.category]!;
 			const rule = contests.ruleOf(category);
 			// A tank of the owner's that fits and is not entered here yet, else a new one.
-			const own = await tanks.listOwn(owner, { retired: false }, db);
+			const own = await tanks.listOwn(owner, { retired: false }, { db });
 			let tankId: number | null = null;
 			for (const summary of own) {
 				if ([...tankOf.entries()].some(([k, v]) => v === summary.id && k.startsWith(`${contestId}:`))) continue;
-				const full = await tanks.getOwn(owner, summary.id, db);
+				const full = await tanks.getOwn(owner, summary.id, { db });
 				if (full && checkEligibility(rule, entries.factsOf(full, when).facts).eligible && full.setUpOn && new Date(full.setUpOn) < when) {
 					tankId = full.id;
 					break;
@@ -455,7 +455,7 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 						`A ${e.shape.style} layout with ${scene}.`
 					),
 					[],
-					db
+					{ db }
 				);
 			}
 			tankOf.set(`${contestId}:${e.owner}:${i}`, tankId);

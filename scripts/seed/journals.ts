@@ -9,12 +9,12 @@ import { demoUserIds } from './club';
 import { randomFrom, storeDemoPhoto } from './lib/images';
 import { users } from '../../src/lib/server/club/schema';
 import { tanks as tankTable } from '../../src/lib/server/journals/schema';
-import * as entries from '../../src/lib/server/journals/entries';
+import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as water from '../../src/lib/server/journals/water';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as social from '../../src/lib/server/journals/social';
 import { defaultSchedule } from '../../src/lib/journals/schedule';
-import type { EventInput } from '../../src/lib/journals/entry-form';
+import type { EventInput } from '../../src/lib/journals/journal-entry-form';
 import { dayNumber, isoDay } from '../../src/lib/journals/calc';
 import type { Viewer } from '../../src/lib/server/club/users';
 
@@ -176,7 +176,7 @@ export async function seedJournalTanks(db: DbOrTx): Promise<void> {
 				livestock: demo.livestock.map(([name, count, addedOn]) => ({ speciesId: catalogue.get(name) ?? null, name, count, addedOn, removedOn: null }))
 			},
 			[{ id: photo.id, alt: demo.alt, caption: '' }],
-			db
+			{ db }
 		);
 	}
 }
@@ -571,10 +571,10 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 				}))
 			},
 			[{ id: photo.id, alt: demo.alt, caption: '' }],
-			db
+			{ db }
 		);
 	}
-	await tanks.refreshVolumes(db);
+	await tanks.refreshVolumes({ db });
 
 	const viewerOf = async (id: string): Promise<Viewer> => {
 		const [u] = await db.select().from(users).where(eq(users.id, id));
@@ -646,7 +646,10 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 					});
 				}
 			}
-			const entryId = await entries.create(owner, tank.id, { entryOn: on, title: pick(TITLES).replace('{n}', String(weekNo)), body, events }, photos, db, at);
+			const entryId = await entries.create(owner, tank.id, { entryOn: on, title: pick(TITLES).replace('{n}', String(weekNo)), body, events }, photos, {
+				db,
+				now: at
+			});
 			entryIds.push({ tankId: tank.id, entryId, ownerId: tank.ownerId, visibility: tank.visibility });
 
 			// A water test the same day: cycling tanks show ammonia and nitrite, one tank lets nitrate run high.
@@ -670,12 +673,11 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 					tds: Math.round(120 + rnd() * 80),
 					note: ''
 				},
-				db,
-				new Date(at.getTime() + 30 * 60_000)
+				{ db, now: new Date(at.getTime() + 30 * 60_000) }
 			);
 		}
 		// The usual schedule; worked out from the events above, so some tasks are due, some not.
-		await upkeep.saveSchedule(owner, tank.id, defaultSchedule(tank), db, now);
+		await upkeep.saveSchedule(owner, tank.id, defaultSchedule(tank), { db, now });
 	}
 
 	// Other members admire, follow and comment.
@@ -686,15 +688,15 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 		const viewer = await viewerOf(memberId);
 		for (const tank of shareable) {
 			if (tank.ownerId === memberId) continue;
-			if (rnd() < 0.45) await social.toggleAdmire(viewer, tank.id, true, db);
-			if (rnd() < 0.25) await social.toggleFollow(viewer, tank.id, true, db);
+			if (rnd() < 0.45) await social.toggleAdmire(viewer, tank.id, true, { db });
+			if (rnd() < 0.25) await social.toggleFollow(viewer, tank.id, true, { db });
 		}
 	}
 	let c = 0;
 	for (const e of entryIds.filter((x) => x.visibility !== 'private')) {
 		if (rnd() > 0.3) continue;
 		const authorId = members.find((m) => m !== e.ownerId && rnd() < 0.5) ?? members.find((m) => m !== e.ownerId)!;
-		await entries.addComment(await viewerOf(authorId), e.tankId, e.entryId, COMMENTS[c++ % COMMENTS.length]!, db);
+		await entries.addComment(await viewerOf(authorId), e.tankId, e.entryId, COMMENTS[c++ % COMMENTS.length]!, { db });
 	}
 
 	// Two members have asked for the weekly digest.

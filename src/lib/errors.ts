@@ -7,8 +7,8 @@ import type { z } from 'zod';
 /** Messages for particular form fields, keyed by the field's name. */
 export type FieldErrors = Record<string, string>;
 
-/** The statuses a refusal may carry: bad input, not signed in, not allowed, not visible, state does not allow it, gone, too many. */
-export type RefusalStatus = 400 | 401 | 403 | 404 | 409 | 410 | 413 | 415 | 422 | 429;
+/** The statuses a refusal may carry: bad input, not signed in, not allowed, not visible, state does not allow it, gone, too many, busy (try again soon). */
+export type RefusalStatus = 400 | 401 | 403 | 404 | 409 | 410 | 413 | 415 | 422 | 429 | 503;
 
 export class DomainError extends Error {
 	constructor(

@@ -1,9 +1,10 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
 import * as tanks from '$lib/server/journals/tanks';
-import * as entries from '$lib/server/journals/entries';
+import * as entries from '$lib/server/journals/journal-entries';
 import * as showcase from '$lib/server/journals/showcase';
 import * as upkeep from '$lib/server/journals/upkeep';
+import { isDomainError } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Upkeep due within this many days shows on the dashboard. */
@@ -18,7 +19,7 @@ export const load = (async ({ locals }) => {
 	}
 	const now = new Date();
 	const [scheduled, mine, followed] = await Promise.all([
-		upkeep.scheduleOf(viewer, now),
+		upkeep.scheduleOf(viewer, { now }),
 		tanks.listOwn(viewer, { retired: false }),
 		entries.recentFollowed(viewer)
 	]);
@@ -43,7 +44,7 @@ export const actions = {
 		try {
 			await upkeep.markDone(viewer, Number(taskId));
 		} catch (e) {
-			if (e instanceof tanks.TankNotFound) error(404, 'We could not find that task.');
+			if (isDomainError(e) && e.status === 404) error(404, 'We could not find that task.');
 			throw e;
 		}
 		return { done: Number(taskId) };

@@ -5,7 +5,7 @@ import { makePerson, type TestPerson } from '../helpers/people';
 import { request } from '../helpers/http';
 import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
-import * as entries from '../../src/lib/server/journals/entries';
+import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';

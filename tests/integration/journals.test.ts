@@ -1,22 +1,23 @@
 // Journal entries, water tests, the schedule, the showcase and what other members do, through the
 // running app, the real database, the bucket and the mail fake.
 import { beforeAll, describe, expect, test } from 'vitest';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import sharp from 'sharp';
 import { XMLParser, XMLValidator } from 'fast-xml-parser';
 import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
 import * as tanks from '../../src/lib/server/journals/tanks';
-import * as entries from '../../src/lib/server/journals/entries';
+import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as water from '../../src/lib/server/journals/water';
 import * as social from '../../src/lib/server/journals/social';
 import * as digest from '../../src/lib/server/journals/digest';
-import { tankFollows } from '../../src/lib/server/journals/schema';
+import { journalDigests, tankFollows } from '../../src/lib/server/journals/schema';
 import { media as mediaTable } from '../../src/lib/server/media/schema';
 import { isoDay, dayNumber } from '../../src/lib/journals/calc';
-import { weekOf } from '../../src/lib/journals/digest';
+import { weekOf } from '../../src/lib/journals/digest-content';
+import { today } from '../../src/lib/dates';
 import type { Viewer } from '../../src/lib/server/club/users';
 import { request } from '../helpers/http';
 import { mailsTo, waitForMail } from '../helpers/mail';
@@ -25,7 +26,6 @@ import { makePerson, type TestPerson } from '../helpers/people';
 import { tankInput } from '../helpers/tanks';
 
 const viewerOf = (p: TestPerson): Viewer => ({ id: p.id, email: p.email, displayName: p.displayName, role: p.role, units: 'metric' });
-const today = () => new Date().toISOString().slice(0, 10);
 const daysAgo = (n: number) => isoDay(dayNumber(new Date()) - n);
 const jpeg = (colour = '#2f7a58') =>
 	sharp({ create: { width: 480, height: 320, channels: 3, background: colour } })
@@ -111,7 +111,7 @@ describe('who may see a journal', () => {
 					'NO2',
 					'temperature'
 				]);
-			else expect(await api.json()).toEqual({ message: 'We could not find that tank.' });
+			else expect(await api.json()).toEqual({ code: 'not-found', message: 'We could not find that tank.', fields: {} });
 			expect((await request(`/journals/${tankId}/feed.xml`, { cookie, accept: 'application/atom+xml' })).status, `${who}: feed`).toBe(feedStatus);
 		}
 	});
@@ -400,9 +400,11 @@ describe('following', () => {
 		// A day later the next entry mails again.
 		const later = new Date(Date.now() + 25 * 60 * 60_000);
 		const tank = (await tanks.findVisible(viewerOf(keeper), tankId))!;
-		expect(await db.transaction((tx) => social.notifyFollowers(tx, tank, { id: 1, title: 'Next day', entryOn: today() }, later))).toBe(1);
+		expect(await db.transaction((tx) => social.notifyFollowers(tank, { id: 1, title: 'Next day', entryOn: today() }, { db: tx, now: later }))).toBe(1);
 		expect(
-			await db.transaction((tx) => social.notifyFollowers(tx, tank, { id: 2, title: 'Same next day', entryOn: today() }, new Date(later.getTime() + 60_000)))
+			await db.transaction((tx) =>
+				social.notifyFollowers(tank, { id: 2, title: 'Same next day', entryOn: today() }, { db: tx, now: new Date(later.getTime() + 60_000) })
+			)
 		).toBe(0);
 		const [row] = await db
 			.select()
@@ -503,7 +505,7 @@ describe('the weekly digest', () => {
 		await db.update(users).set({ weeklyDigest: true }).where(eq(users.id, quiet.id));
 
 		const now = new Date();
-		expect(await digest.sendWeeklyDigests(now)).toBeGreaterThanOrEqual(1);
+		expect(await digest.sendWeeklyDigests({ now })).toBeGreaterThanOrEqual(1);
 		const mail = await waitForMail(reader.email, { subject: /Your tanks this week/ });
 		expect(mail.subject).toBe('Your tanks this week: 1 task due');
 		expect(mail.text).toContain(`Hello Digest Reader, here is your week at the tanks from`);
@@ -515,11 +517,15 @@ describe('the weekly digest', () => {
 		expect(mail.headers['list-unsubscribe']).toContain(`/unsubscribe/${token}?kind=digest`);
 
 		// A second run in the same week queues nothing more; the quiet member had nothing to hear about.
-		await digest.sendWeeklyDigests(new Date(now.getTime() + 3_600_000));
+		await digest.sendWeeklyDigests({ now: new Date(now.getTime() + 3_600_000) });
 		const queued = await db.select().from(outbox).where(eq(outbox.toAddress, reader.email));
 		expect(queued.filter((m) => m.topic === 'journal-digest').map((m) => m.dedupeKey)).toEqual([`journal-digest:${reader.id}:${weekOf(now)}`]);
 		expect(await db.select().from(outbox).where(eq(outbox.toAddress, quiet.email))).toEqual([]);
-		expect((await digest.consideredFor(now, [reader.id, quiet.id])).map((r) => [r.userId, r.sentAt !== null]).sort()).toEqual(
+		const considered = await db
+			.select()
+			.from(journalDigests)
+			.where(and(eq(journalDigests.weekOf, weekOf(now)), inArray(journalDigests.userId, [reader.id, quiet.id])));
+		expect(considered.map((r) => [r.userId, r.sentAt !== null]).sort()).toEqual(
 			[
 				[reader.id, true],
 				[quiet.id, false]

@@ -7,6 +7,7 @@ import * as media from '../../src/lib/server/media';
 import { media as mediaTable } from '../../src/lib/server/media/schema';
 import { bucketStore } from '../../src/lib/server/media/storage';
 import * as tanks from '../../src/lib/server/journals/tanks';
+import * as tankDeletion from '../../src/lib/server/journals/tank-deletion';
 import type { Viewer } from '../../src/lib/server/club/users';
 import { request } from '../helpers/http';
 import { bucketKeys, bucketObject, mediaRowsOf, ownerKeys, uploadFile } from '../helpers/media';
@@ -276,43 +277,47 @@ describe('removing photos removes their objects', () => {
 		const [cover] = await media.listFor('tank', tankId);
 		expect(cover).toMatchObject({ id: second.id, alt: 'New cover', caption: 'After the trim' });
 
-		await tanks.remove(viewer, tankId);
+		await tankDeletion.deleteTank(viewer, tankId);
 		await expectNothingStored(person);
 	});
 
-	test('attach, reorder, updateText and detach work on one thing’s photos', async () => {
+	test('setPhotos orders, describes and drops one thing’s photos', async () => {
 		const person = await makePerson({ label: 'arrange' });
 		const tankId = await tanks.create(viewerOf(person), tankInput());
 		const ids: number[] = [];
 		for (let i = 0; i < 3; i++) ids.push((await (await uploadFile(person, await jpeg(200 + i * 10, 150))).json()).id);
-		await db.transaction((tx) =>
-			media.attach(
-				tx,
-				person.id,
-				'tank',
-				tankId,
-				ids.map((id) => ({ id, alt: `photo ${id}`, caption: '' }))
-			)
-		);
+		const set = (photos: { id: number; alt: string; caption: string }[], scopeId = tankId) =>
+			db.transaction((tx) => media.setPhotos(person.id, 'tank', scopeId, photos, { max: 3 }, { db: tx }));
+		expect(await set(ids.map((id) => ({ id, alt: `photo ${id}`, caption: '' })))).toEqual([]);
 		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual(ids);
-		await db.transaction((tx) => media.reorder(tx, 'tank', tankId, [ids[2]!, ids[0]!, ids[1]!]));
+		await set([ids[2]!, ids[0]!, ids[1]!].map((id) => ({ id, alt: id === ids[0] ? 'Left side' : `photo ${id}`, caption: id === ids[0] ? 'Week two' : '' })));
 		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual([ids[2], ids[0], ids[1]]);
-		expect(await db.transaction((tx) => media.updateText(tx, 'tank', tankId, ids[0]!, { alt: 'Left side', caption: 'Week two' }))).toBe(true);
-		// A photo is changed only through the thing it belongs to.
-		expect(await db.transaction((tx) => media.updateText(tx, 'tank', tankId + 1, ids[0]!, { alt: 'x', caption: 'x' }))).toBe(false);
 		expect((await media.listFor('tank', tankId)).find((p) => p.id === ids[0])).toMatchObject({ alt: 'Left side', caption: 'Week two' });
-		// Attaching the same upload again is refused: it is no longer pending.
-		await expect(db.transaction((tx) => media.attach(tx, person.id, 'tank', tankId, [{ id: ids[0]!, alt: '', caption: '' }]))).rejects.toThrow(
-			/no longer available/
-		);
-		const keys = await db.transaction((tx) => media.detach(tx, 'tank', tankId, [ids[1]!]));
+		// A photo of one thing cannot be taken over by another: it is no longer pending.
+		const other = await tanks.create(viewerOf(person), tankInput());
+		await expect(set([{ id: ids[0]!, alt: '', caption: '' }], other)).rejects.toMatchObject({
+			status: 400,
+			code: 'photo-unavailable',
+			fields: { photos: expect.stringMatching(/no longer available/) }
+		});
+		await expect(set(ids.concat(ids[0]!).map((id) => ({ id, alt: '', caption: '' })))).rejects.toMatchObject({ status: 400, code: 'too-many-photos' });
+		const keys = await set([ids[2]!, ids[0]!].map((id) => ({ id, alt: '', caption: '' })));
 		expect(keys).toHaveLength(3);
 		expect(await bucketKeys(keys[0]!)).toHaveLength(1);
 		await media.purge(keys);
 		expect(await bucketKeys(keys[0]!)).toEqual([]);
 		expect((await media.listFor('tank', tankId)).map((p) => p.id)).toEqual([ids[2], ids[0]]);
-		await tanks.remove(viewerOf(person), tankId);
+		await tankDeletion.deleteTank(viewerOf(person), tankId);
+		await tankDeletion.deleteTank(viewerOf(person), other);
 		await expectNothingStored(person);
+	});
+
+	test('photos cannot be attached to a scope no feature registered', async () => {
+		const { id } = await (await uploadFile(owner, await jpeg())).json();
+		await expect(
+			db.transaction((tx) => media.setPhotos(owner.id, 'nobody-owns-this', 1, [{ id, alt: '', caption: '' }], { max: 1 }, { db: tx }))
+		).rejects.toThrow(/not registered/);
+		expect((await media.getRow(id))!.scope).toBeNull();
 	});
 
 	test('a photo of someone else cannot be attached to your tank', async () => {

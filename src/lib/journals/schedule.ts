@@ -1,6 +1,6 @@
 // Which logged events reset which upkeep tasks, and the schedule a tank starts with. The due
 // dates themselves come from ./calc/maintenance (scheduleTask, logTask).
-import { SUGGESTED_INTERVALS, dayNumber, isoDay, type MaintenanceTask } from './calc';
+import { SUGGESTED_INTERVALS, dayNumber, isoDay, type MaintenanceTask, type ScheduledTask } from './calc';
 import type { EventKind, FilterPart, TaskKind } from './journal-vocabulary';
 
 export interface TaskRule {
@@ -88,6 +88,10 @@ export function defaultSchedule(tank: { co2Method: 'none' | 'liquid' | 'pressuri
 export function asMaintenanceTask(task: { id: number; tankId: number; label: string; intervalDays: number; lastDoneOn: string | null }): MaintenanceTask {
 	return { id: String(task.id), tankId: String(task.tankId), label: task.label, intervalDays: task.intervalDays, lastDoneOn: task.lastDoneOn };
 }
+
+/** Tasks overdue, due today or due within `days` days (the dashboard, the digest, a tank's page). */
+export const dueWithin = <T extends MaintenanceTask>(scheduled: readonly ScheduledTask<T>[], days: number): ScheduledTask<T>[] =>
+	scheduled.filter((s) => s.status.kind !== 'due-in' || s.status.days <= days);
 
 export interface TaskFormRow {
 	id: string;

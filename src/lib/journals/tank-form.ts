@@ -4,8 +4,7 @@
 import { dayNumber, fromMetric, parseLength, parseVolume, roundTo, SUBSTRATE_KINDS, unitSymbol, type UnitSystem } from './calc';
 import { PLACEMENTS, type Placement } from '../species/kinds';
 import { CO2_METHODS, FLOW_UNITS, TANK_VISIBILITIES, type Co2Method, type FlowUnit, type TankVisibility } from './tank-vocabulary';
-import type { TankInput } from './tank-input';
-import type { Tank } from '../server/journals/tanks';
+import type { StoredTankProfile, TankInput } from './tank-input';
 
 export const SUBSTRATE_CHOICES = [...SUBSTRATE_KINDS, 'other'] as const;
 
@@ -175,7 +174,7 @@ const showLength = (cm: number | null, units: UnitSystem) => (cm === null ? '' :
 const showVolume = (litres: number | null, units: UnitSystem) => (litres === null ? '' : show(fromMetric('volume', litres, units), 2));
 
 /** The stored tank as a draft in the member's units, for the edit form. */
-export function draftFromTank(tank: Tank, units: UnitSystem): TankDraft {
+export function draftFromTank(tank: StoredTankProfile, units: UnitSystem): TankDraft {
 	return {
 		name: tank.name,
 		style: tank.style,

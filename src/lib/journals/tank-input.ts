@@ -70,3 +70,13 @@ export interface TankInput {
 	plants: PlantInput[];
 	livestock: LivestockInput[];
 }
+
+/** A saved profile as the edit form reads it back: the input's fields, each list row with its id. */
+export interface StoredTankProfile extends Omit<TankInput, 'description' | 'lights' | 'filters' | 'fertilisers' | 'plants' | 'livestock'> {
+	description: string | null;
+	lights: (LightInput & { id: number })[];
+	filters: (FilterInput & { id: number })[];
+	fertilisers: (FertiliserInput & { id: number })[];
+	plants: (PlantInput & { id: number })[];
+	livestock: (LivestockInput & { id: number })[];
+}

@@ -2,7 +2,7 @@ import { describe, expect, test } from 'vitest';
 import { parseFragment, type DefaultTreeAdapterMap } from 'parse5';
 import { ALLOWED_TAGS, LINK_REL, renderMarkdown } from './markdown';
 import { OWN_MEDIA_PATH } from '../media/urls';
-import { absoluteLinks } from '../journals/feed';
+import { absoluteLinks } from '../journals/atom';
 
 type Node = DefaultTreeAdapterMap['node'];
 type Element = DefaultTreeAdapterMap['element'];

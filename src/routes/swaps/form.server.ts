@@ -5,7 +5,7 @@ import type { Viewer } from '$lib/server/club/users';
 import * as areas from '$lib/server/club/areas';
 import * as users from '$lib/server/club/users';
 import * as media from '$lib/server/media';
-import { MediaError } from '$lib/server/media';
+import { isDomainError } from '$lib/errors';
 import * as tanks from '$lib/server/journals/tanks';
 import { SwapError } from '$lib/server/swaps/errors';
 import type { ListingDetail } from '$lib/server/swaps/listings';
@@ -47,7 +47,7 @@ export async function failed(error: unknown, viewer: Viewer, read: Extract<Listi
 			photos: await photosAgain(viewer, read.photos, listingId)
 		});
 	}
-	if (error instanceof MediaError)
+	if (isDomainError(error))
 		return fail(400, { errors: { photos: error.message }, draft: read.draft, photos: await photosAgain(viewer, read.photos, listingId) });
 	throw error;
 }

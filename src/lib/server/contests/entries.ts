@@ -8,10 +8,11 @@ import * as media from '../media';
 import type { Photo } from '../media';
 import * as tanks from '../journals/tanks';
 import type { PhotoField } from '../../media/form';
+import { isDomainError } from '../../errors';
 import { checkEligibility, type EligibilityCheck, type TankFacts } from '../../contests/eligibility';
 import { entriesAccepted } from '../../contests/lifecycle';
 import { ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, type EntryFields } from '../../contests/entry-form';
-import { contestCategories, contestEntries, contestJudges, contestConflicts, contests, type ContestEntryRow } from './schema';
+import { contestCategories, contestEntries, type ContestEntryRow } from './schema';
 import { ContestError, ContestNotFound } from './errors';
 import { isAdminViewer, load, ruleOf, row, windowsOf, type ContestDetail } from './contests';
 import * as audit from './audit';
@@ -31,7 +32,7 @@ export interface TankOption {
 }
 
 export function factsOf(tank: tanks.Tank, now = new Date()): { facts: TankFacts; ageLabel: string | null } {
-	const figures = tanks.tankFigures(tank, now);
+	const figures = tanks.tankFigures(tank, { now });
 	return {
 		facts: {
 			litres: figures.volume?.litres ?? null,
@@ -85,7 +86,7 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryIn
 		.where(and(eq(contestCategories.id, input.categoryId), eq(contestCategories.contestId, contestId)));
 	if (!category)
 		throw new ContestError(400, 'Choose one of this contest’s categories.', 'bad-category', { categoryId: 'Choose one of this contest’s categories.' });
-	const tank = await tanks.getOwn(viewer, input.tankId, tx);
+	const tank = await tanks.getOwn(viewer, input.tankId, { db: tx });
 	if (!tank) throw new ContestError(400, 'Choose one of your own tanks.', 'bad-tank', { tankId: 'Choose one of your own tanks.' });
 	const { facts } = factsOf(tank, now);
 	const check = checkEligibility(ruleOf(category), facts);
@@ -133,7 +134,7 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryIn
 }
 
 const wrapMedia = (error: unknown): never => {
-	if (error instanceof media.MediaError) throw new ContestError(error.status, error.message, 'photos', { photos: error.message });
+	if (isDomainError(error)) throw new ContestError(error.status, error.message, 'photos', { photos: error.message });
 	throw error;
 };
 
@@ -142,7 +143,7 @@ export async function create(viewer: Viewer, contestId: number, input: EntryInpu
 	return (options.database ?? appDb).transaction(async (tx) => {
 		const { values } = await vet(tx, viewer, contestId, input, null, now);
 		const [result] = await tx.insert(contestEntries).values({ ...values, contestId, entrantId: viewer.id });
-		await media.setPhotos(tx, viewer.id, SCOPE, result.insertId, input.photos, { max: ENTRY_PHOTOS_MAX, now }).catch(wrapMedia);
+		await media.setPhotos(viewer.id, SCOPE, result.insertId, input.photos, { max: ENTRY_PHOTOS_MAX }, { db: tx, now }).catch(wrapMedia);
 		return result.insertId;
 	});
 }
@@ -159,7 +160,7 @@ export async function update(viewer: Viewer, entryId: number, input: EntryInput,
 		const entry = await ownEntry(tx, viewer, entryId);
 		const { values } = await vet(tx, viewer, entry.contestId, input, entry.id, now);
 		await tx.update(contestEntries).set(values).where(eq(contestEntries.id, entry.id));
-		return media.setPhotos(tx, viewer.id, SCOPE, entry.id, input.photos, { max: ENTRY_PHOTOS_MAX, now }).catch(wrapMedia);
+		return media.setPhotos(viewer.id, SCOPE, entry.id, input.photos, { max: ENTRY_PHOTOS_MAX }, { db: tx, now }).catch(wrapMedia);
 	});
 	await media.purge(purge).catch((e: unknown) => console.error(`[contests] removing replaced photos of entry ${entryId} failed:`, e));
 }
@@ -172,7 +173,7 @@ export async function withdraw(viewer: Viewer, entryId: number, options: { now?:
 		if (!contest || !entriesAccepted(contest.state, windowsOf(contest), now)) {
 			throw new ContestError(409, 'Entries can no longer be withdrawn: the entry window has closed.', 'closed');
 		}
-		const keys = await media.deleteFor(tx, SCOPE, entry.id);
+		const keys = await media.deleteFor(SCOPE, entry.id, { db: tx });
 		await tx.delete(contestEntries).where(eq(contestEntries.id, entry.id));
 		await audit.record(tx, viewer.id, 'entry.withdraw', entry.contestId, { entryId: entry.id });
 		return { contestId: entry.contestId, purge: keys };
@@ -198,9 +199,9 @@ export async function listOwn(viewer: Viewer, contestId: number, tx: DbOrTx = ap
 	const photos = await media.listForMany(
 		SCOPE,
 		rows.map((r) => r.entry.id),
-		tx
+		{ db: tx }
 	);
-	const names = new Map((await tanks.listOwn(viewer, {}, tx)).map((t) => [t.id, t.name]));
+	const names = new Map((await tanks.listOwn(viewer, {}, { db: tx })).map((t) => [t.id, t.name]));
 	return rows.map((r) => ({
 		...r.entry,
 		categoryName: r.categoryName,
@@ -220,38 +221,9 @@ export async function getOwn(viewer: Viewer, entryId: number, tx: DbOrTx = appDb
 	if (!found || (found.entry.entrantId !== viewer.id && !isAdminViewer(viewer))) return null;
 	const contest = await load(found.entry.contestId, tx);
 	if (!contest) return null;
-	const tank = found.entry.tankId && found.entry.entrantId === viewer.id ? await tanks.getOwn(viewer, found.entry.tankId, tx) : null;
+	const tank = found.entry.tankId && found.entry.entrantId === viewer.id ? await tanks.getOwn(viewer, found.entry.tankId, { db: tx }) : null;
 	return {
-		entry: { ...found.entry, categoryName: found.categoryName, tankName: tank?.name ?? null, photos: await media.listFor(SCOPE, entryId, tx) },
+		entry: { ...found.entry, categoryName: found.categoryName, tankName: tank?.name ?? null, photos: await media.listFor(SCOPE, entryId, { db: tx }) },
 		contest
 	};
-}
-
-/**
- * Media access for scope 'contest-entry' (registered in ../media/access.ts): the entrant and
- * admins always; during judging the contest's judges who did not declare a conflict on the entry
- * (a judge's own entry is theirs as entrant); everyone once the results are published.
- */
-export async function photoAudience(viewer: Viewer | null, entryId: number): Promise<'public' | 'restricted' | null> {
-	const [found] = await appDb
-		.select({ entrantId: contestEntries.entrantId, contestId: contestEntries.contestId, state: contests.state })
-		.from(contestEntries)
-		.innerJoin(contests, eq(contests.id, contestEntries.contestId))
-		.where(eq(contestEntries.id, entryId))
-		.limit(1);
-	if (!found) return null;
-	if (found.state === 'published' || found.state === 'archived') return 'public';
-	if (!viewer) return null;
-	if (viewer.id === found.entrantId || isAdminViewer(viewer)) return 'restricted';
-	if (found.state !== 'judging' || viewer.role !== 'judge') return null;
-	const [onPanel] = await appDb
-		.select({ judgeId: contestJudges.judgeId })
-		.from(contestJudges)
-		.where(and(eq(contestJudges.contestId, found.contestId), eq(contestJudges.judgeId, viewer.id)));
-	if (!onPanel) return null;
-	const [conflict] = await appDb
-		.select({ judgeId: contestConflicts.judgeId })
-		.from(contestConflicts)
-		.where(and(eq(contestConflicts.entryId, entryId), eq(contestConflicts.judgeId, viewer.id)));
-	return conflict ? null : 'restricted';
 }

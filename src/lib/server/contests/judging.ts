@@ -261,7 +261,7 @@ export interface ScorecardPage {
 export async function scorecardPage(viewer: Viewer, contestId: number, number: number, tx: DbOrTx = appDb): Promise<ScorecardPage> {
 	const { contest, entry } = await access(tx, viewer, contestId, number);
 	const category = contest.categories.find((c) => c.id === entry.categoryId)!;
-	const photos = await media.listFor(SCOPE, entry.id, tx);
+	const photos = await media.listFor(SCOPE, entry.id, { db: tx });
 	const cells = (await myCells(tx, viewer, contestId)).filter((c) => c.state !== 'conflicted' && c.number !== null).sort((a, b) => a.number! - b.number!);
 	const at = cells.findIndex((c) => c.number === number);
 	const mine = cells[at]?.card;

@@ -271,7 +271,7 @@ export async function publicResults(contestId: number, tx: DbOrTx = appDb): Prom
 	const photos = await media.listForMany(
 		SCOPE,
 		data.entries.map((e) => e.id),
-		tx
+		{ db: tx }
 	);
 	return {
 		contest: data.contest,
@@ -314,7 +314,7 @@ export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = app
 	const index = data.contest.categories.findIndex((c) => c.id === entry.categoryId);
 	const cat = report.categories[index]!;
 	const result = cat.entries.find((e) => e.entryId === String(entryId))!;
-	const photos = await media.listForMany(SCOPE, [entryId], tx);
+	const photos = await media.listForMany(SCOPE, [entryId], { db: tx });
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
 	return {
 		entry: shape(data, result, photos),

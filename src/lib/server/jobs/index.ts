@@ -22,14 +22,14 @@ const pruneSignInRequests: Job = {
 const sweepPendingMedia: Job = {
 	name: 'sweep-pending-media',
 	everyMs: 60 * 60_000,
-	run: (now) => sweepPending({ now })
+	run: (now) => sweepPending({}, { now })
 };
 
 /** The weekly journal digest: each member who asked for it gets one per week (Monday, UTC), at the first run of the week. */
 const weeklyJournalDigest: Job = {
 	name: 'weekly-journal-digest',
 	everyMs: 60 * 60_000,
-	run: (now) => sendWeeklyDigests(now)
+	run: (now) => sendWeeklyDigests({ now })
 };
 
 /** Open swap listings whose date has passed are recorded as expired (reads never wait for this). */

@@ -1,31 +1,28 @@
 // The opt-in weekly digest (users.weekly_digest), queued through the outbox by a periodic job.
 // One per member per week: a journal_digest row for (member, Monday) is written in the same
 // transaction as the mail, and the mail's dedupe key says the same, so a second run adds nothing.
-import { and, desc, eq, gte, inArray, isNotNull, sql } from 'drizzle-orm';
-import { db as appDb, type Database } from '../db';
-import { users } from '../club/schema';
+import { and, desc, eq, gte, inArray } from 'drizzle-orm';
+import { resolve, type Context } from '../context';
+import * as members from '../club/members';
+import type { DigestReader } from '../club/members';
 import { enqueue } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
 import { unsubscribeHeaders, unsubscribeUrl } from '../mail/unsubscribe';
 import { absoluteUrl } from '../config';
-import { digestContent, weekOf, type DigestEntry, type DigestTask } from '../../journals/digest';
+import { digestContent, weekOf, type DigestEntry, type DigestTask } from '../../journals/digest-content';
 import { journalDigests, journalEntries, tankFollows, tanks as tankTable } from './schema';
 import * as tanks from './tanks';
 import * as upkeep from './upkeep';
 
 /** Upkeep due within this many days goes in the digest. */
 export const DIGEST_DAYS_AHEAD = 7;
-
-interface Member {
-	id: string;
-	email: string | null;
-	displayName: string | null;
-	unsubscribeToken: string;
-}
+/** Members considered in one run; the hourly job takes the rest next time. */
+export const DIGESTS_PER_RUN = 500;
 
 /** What one member's digest says this week, or null when there is nothing to tell. */
-export async function contentFor(member: Member, now: Date, database: Database = appDb) {
-	const scheduled = upkeep.dueWithin(await upkeep.scheduleOf(member, now, database), DIGEST_DAYS_AHEAD);
+export async function contentFor(member: Pick<DigestReader, 'id' | 'displayName'>, context: Context = {}) {
+	const { db, now } = resolve(context);
+	const scheduled = upkeep.dueWithin(await upkeep.scheduleOf(member, context), DIGEST_DAYS_AHEAD);
 	const tasks: DigestTask[] = scheduled.map((s) => ({
 		tankName: s.task.tankName,
 		label: s.task.label,
@@ -33,7 +30,7 @@ export async function contentFor(member: Member, now: Date, database: Database =
 		overdue: s.status.kind === 'overdue'
 	}));
 	const since = new Date(now.getTime() - 7 * 86_400_000);
-	const rows = await database
+	const rows = await db
 		.select({ entry: journalEntries, tank: tankTable })
 		.from(tankFollows)
 		.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
@@ -52,24 +49,44 @@ const isDuplicate = (error: unknown): boolean => {
 	return !!e && (e.code === 'ER_DUP_ENTRY' || e.errno === 1062 || (e.cause !== undefined && isDuplicate(e.cause)));
 };
 
+/** Members who asked for the digest and whose week has not been considered yet, up to `limit`. */
+async function readersDue(week: string, limit: number, context: Context): Promise<DigestReader[]> {
+	const { db } = resolve(context);
+	const due: DigestReader[] = [];
+	let afterId: string | undefined;
+	while (due.length < limit) {
+		const page = await members.weeklyDigestReaders({ afterId, limit }, context);
+		if (page.length === 0) break;
+		const considered = new Set(
+			(
+				await db
+					.select({ userId: journalDigests.userId })
+					.from(journalDigests)
+					.where(
+						and(
+							eq(journalDigests.weekOf, week),
+							inArray(
+								journalDigests.userId,
+								page.map((r) => r.id)
+							)
+						)
+					)
+			).map((r) => r.userId)
+		);
+		due.push(...page.filter((r) => !considered.has(r.id)));
+		afterId = page.at(-1)!.id;
+	}
+	return due.slice(0, limit);
+}
+
 /** Queues this week's digest for every member who asked for one and has not had it; returns how many were queued. */
-export async function sendWeeklyDigests(now = new Date(), database: Database = appDb): Promise<number> {
+export async function sendWeeklyDigests(context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
 	const week = weekOf(now);
-	const members = await database
-		.select({ id: users.id, email: users.email, displayName: users.displayName, unsubscribeToken: users.unsubscribeToken })
-		.from(users)
-		.where(
-			and(
-				eq(users.weeklyDigest, true),
-				isNotNull(users.email),
-				sql`NOT EXISTS (SELECT 1 FROM ${journalDigests} WHERE ${journalDigests.userId} = ${users.id} AND ${journalDigests.weekOf} = ${week})`
-			)
-		)
-		.limit(500);
 	let queued = 0;
-	for (const member of members) {
-		const content = await contentFor(member, now, database);
-		const sent = await database.transaction(async (tx) => {
+	for (const member of await readersDue(week, DIGESTS_PER_RUN, context)) {
+		const content = await contentFor(member, { ...context, now });
+		const sent = await db.transaction(async (tx) => {
 			try {
 				await tx.insert(journalDigests).values({ userId: member.id, weekOf: week, sentAt: content ? now : null });
 			} catch (error) {
@@ -77,7 +94,7 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 				if (isDuplicate(error)) return false;
 				throw error;
 			}
-			if (!content || !member.email) return false;
+			if (!content) return false;
 			const unsubscribe = unsubscribeUrl(member.unsubscribeToken, 'digest');
 			const { html, text } = renderMail({
 				heading: content.heading,
@@ -105,13 +122,4 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 		if (sent) queued++;
 	}
 	return queued;
-}
-
-/** Ids of members whose digest for the week of `now` has been considered (for tests and the admin). */
-export async function consideredFor(now: Date, ids: string[], database: Database = appDb) {
-	if (!ids.length) return [];
-	return database
-		.select()
-		.from(journalDigests)
-		.where(and(eq(journalDigests.weekOf, weekOf(now)), inArray(journalDigests.userId, ids)));
 }

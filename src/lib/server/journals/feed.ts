@@ -1,17 +1,19 @@
 // The Atom feed of a public tank's journal. Club and private tanks have none (404): a feed
 // reader signs in to nothing.
 import { absoluteUrl, config } from '../config';
-import { buildAtomFeed, plainSummary } from '../../journals/feed';
+import type { Context } from '../context';
+import { buildAtomFeed, plainSummary } from '../../journals/atom';
 import { formatDate } from '../../format';
-import * as entries from './entries';
+import * as entries from './journal-entries';
 import * as tanks from './tanks';
 
 export const FEED_ENTRIES = 30;
 
-export async function atomFor(tankId: number): Promise<string | null> {
-	const tank = await tanks.get(null, tankId);
+/** The feed's XML, or null for a tank that is not public (or does not exist). */
+export async function atomFor(tankId: number, context: Context = {}): Promise<string | null> {
+	const tank = await tanks.get(null, tankId, context);
 	if (!tank || tank.visibility !== 'public') return null;
-	const latest = await entries.latestOf(tank.id, FEED_ENTRIES);
+	const latest = await entries.latestOf(tank.id, FEED_ENTRIES, context);
 	const tankUrl = absoluteUrl(`/journals/${tank.id}`);
 	return buildAtomFeed(
 		{

@@ -1,10 +1,11 @@
 // The public gallery: running public tanks, filtered by style and size, sorted and paged.
 import { and, count, desc, eq, gte, isNull, lt, sql, type SQL } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import * as media from '../media';
 import type { Photo } from '../media';
-import { users } from '../club/schema';
-import { VOLUME_BANDS, type ShowcaseSort, type VolumeBand } from '../../journals/showcase';
+import * as members from '../club/members';
+import { UNNAMED_MEMBER } from '../../club/names';
+import { VOLUME_BANDS, type ShowcaseSort, type VolumeBand } from '../../journals/showcase-filters';
 import { tankAdmires, tanks } from './schema';
 
 export const SHOWCASE_PAGE_SIZE = 12;
@@ -30,7 +31,8 @@ export interface ShowcaseCard {
 
 const admirers = sql<number>`(SELECT COUNT(*) FROM ${tankAdmires} WHERE ${tankAdmires.tankId} = ${tanks.id})`.mapWith(Number);
 
-export async function list(filter: ShowcaseFilter, tx: DbOrTx = appDb): Promise<{ cards: ShowcaseCard[]; page: number; pages: number; total: number }> {
+export async function list(filter: ShowcaseFilter, context: Context = {}): Promise<{ cards: ShowcaseCard[]; page: number; pages: number; total: number }> {
+	const { db: tx } = resolve(context);
 	const conditions: SQL[] = [eq(tanks.visibility, 'public'), isNull(tanks.retiredOn)];
 	if (filter.style) conditions.push(eq(tanks.style, filter.style));
 	if (filter.band) {
@@ -56,23 +58,28 @@ export async function list(filter: ShowcaseFilter, tx: DbOrTx = appDb): Promise<
 			style: tanks.style,
 			volumeLitres: tanks.volumeLitres,
 			setUpOn: tanks.setUpOn,
-			ownerName: users.displayName,
+			ownerId: tanks.ownerId,
 			admirers,
 			activityAt: tanks.activityAt
 		})
 		.from(tanks)
-		.innerJoin(users, eq(users.id, tanks.ownerId))
 		.where(where)
 		.orderBy(...order)
 		.limit(SHOWCASE_PAGE_SIZE)
 		.offset((page - 1) * SHOWCASE_PAGE_SIZE);
-	const covers = await media.listForMany(
-		'tank',
-		rows.map((r) => r.id),
-		tx
-	);
+	const [covers, owners] = await Promise.all([
+		media.listForMany(
+			'tank',
+			rows.map((r) => r.id),
+			context
+		),
+		members.names(
+			rows.map((r) => r.ownerId),
+			context
+		)
+	]);
 	return {
-		cards: rows.map((r) => ({ ...r, ownerName: r.ownerName ?? 'A member', cover: covers.get(r.id)?.[0] ?? null })),
+		cards: rows.map(({ ownerId, ...r }) => ({ ...r, ownerName: owners.get(ownerId) ?? UNNAMED_MEMBER, cover: covers.get(r.id)?.[0] ?? null })),
 		page,
 		pages,
 		total
@@ -80,9 +87,9 @@ export async function list(filter: ShowcaseFilter, tx: DbOrTx = appDb): Promise<
 }
 
 /** The styles public tanks give, for the filter (as typed, most used first). */
-export async function styles(tx: DbOrTx = appDb): Promise<string[]> {
-	const rows = await tx
-		.select({ style: tanks.style, n: count() })
+export async function styles(context: Context = {}): Promise<string[]> {
+	const rows = await resolve(context)
+		.db.select({ style: tanks.style, n: count() })
 		.from(tanks)
 		.where(and(eq(tanks.visibility, 'public'), isNull(tanks.retiredOn), sql`${tanks.style} <> ''`))
 		.groupBy(tanks.style)

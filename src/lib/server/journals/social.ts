@@ -1,34 +1,31 @@
 // What other members do with a tank: admire it (one each, a toggle), follow it (mail on a new
 // entry, at most one a day per tank and follower). Both need the viewer to be able to see it.
 import { and, count, eq, isNull, lte, ne, or, sql } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
-import { users } from '../club/schema';
+import * as members from '../club/members';
 import { enqueue } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
 import { absoluteUrl } from '../config';
+import { invalid } from '../../errors';
+import { UNNAMED_MEMBER } from '../../club/names';
+import { today } from '../../dates';
 import { formatDate } from '../../format';
 import { tankAdmires, tankFollows, type TankRow } from './schema';
 import * as tanks from './tanks';
 
-/** Thrown for an admire or follow of one's own tank. */
-export class OwnTankError extends Error {
-	constructor() {
-		super('This is your own tank.');
-	}
-}
-
-async function visibleOther(viewer: Viewer, tankId: number, tx: DbOrTx): Promise<TankRow> {
-	const tank = await tanks.findVisible(viewer, tankId, tx);
-	if (!tank) throw new tanks.TankNotFound();
-	if (tank.ownerId === viewer.id) throw new OwnTankError();
+/** A tank the viewer may see and does not keep: "not found", or a refusal saying `ownTank`. */
+async function visibleOther(viewer: Pick<Viewer, 'id'>, tankId: number, ownTank: string, context: Context): Promise<TankRow> {
+	const tank = await tanks.findVisible(viewer, tankId, context);
+	if (!tank) throw tanks.tankNotFound();
+	if (tank.ownerId === viewer.id) throw invalid({}, ownTank, 'own-tank');
 	return tank;
 }
 
 /** Admires the tank, or takes the admiration back; returns whether the viewer now admires it. */
-export async function toggleAdmire(viewer: Viewer, tankId: number, want?: boolean, database: DbOrTx = appDb): Promise<boolean> {
-	return database.transaction(async (tx) => {
-		await visibleOther(viewer, tankId, tx);
+export async function toggleAdmire(viewer: Pick<Viewer, 'id'>, tankId: number, want?: boolean, context: Context = {}): Promise<boolean> {
+	return resolve(context).db.transaction(async (tx) => {
+		await visibleOther(viewer, tankId, 'You cannot admire your own tank.', { ...context, db: tx });
 		const [existing] = await tx
 			.select()
 			.from(tankAdmires)
@@ -46,9 +43,9 @@ export async function toggleAdmire(viewer: Viewer, tankId: number, want?: boolea
 }
 
 /** Follows the tank, or stops; returns whether the viewer now follows it. */
-export async function toggleFollow(viewer: Viewer, tankId: number, want?: boolean, database: DbOrTx = appDb): Promise<boolean> {
-	return database.transaction(async (tx) => {
-		await visibleOther(viewer, tankId, tx);
+export async function toggleFollow(viewer: Pick<Viewer, 'id'>, tankId: number, want?: boolean, context: Context = {}): Promise<boolean> {
+	return resolve(context).db.transaction(async (tx) => {
+		await visibleOther(viewer, tankId, 'You keep this tank; there is nothing to follow.', { ...context, db: tx });
 		const [existing] = await tx
 			.select()
 			.from(tankFollows)
@@ -73,7 +70,8 @@ export interface Standing {
 }
 
 /** Counts for a tank page, and what the viewer has done. */
-export async function standingOf(viewer: Pick<Viewer, 'id'> | null, tankId: number, tx: DbOrTx = appDb): Promise<Standing> {
+export async function standingOf(viewer: Pick<Viewer, 'id'> | null, tankId: number, context: Context = {}): Promise<Standing> {
+	const { db: tx } = resolve(context);
 	const [[admirers], [followers], mine, follows] = await Promise.all([
 		tx.select({ n: count() }).from(tankAdmires).where(eq(tankAdmires.tankId, tankId)),
 		tx.select({ n: count() }).from(tankFollows).where(eq(tankFollows.tankId, tankId)),
@@ -115,51 +113,50 @@ export function followMail(input: { tankName: string; ownerName: string; entryTi
  * about it in the last day. The claim is one conditional UPDATE per follower, so two entries
  * written at once cannot both mail the same person. Call it in the entry's transaction.
  */
-export async function notifyFollowers(tx: DbOrTx, tank: TankRow, entry: { id: number; title: string; entryOn: string }, now = new Date()): Promise<number> {
-	const followers = await tx
-		.select({ userId: tankFollows.userId, email: users.email })
-		.from(tankFollows)
-		.innerJoin(users, eq(users.id, tankFollows.userId))
-		.where(and(eq(tankFollows.tankId, tank.id), ne(tankFollows.userId, tank.ownerId)));
-	const [owner] = await tx.select({ name: users.displayName }).from(users).where(eq(users.id, tank.ownerId));
+export async function notifyFollowers(tank: TankRow, entry: { id: number; title: string; entryOn: string }, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	const followerIds = (
+		await db
+			.select({ userId: tankFollows.userId })
+			.from(tankFollows)
+			.where(and(eq(tankFollows.tankId, tank.id), ne(tankFollows.userId, tank.ownerId)))
+	).map((f) => f.userId);
+	if (followerIds.length === 0) return 0;
+	const people = await members.contacts([tank.ownerId, ...followerIds], context);
 	let queued = 0;
-	for (const follower of followers) {
-		if (!follower.email || !tanks.canView({ id: follower.userId }, tank)) continue;
-		const [claimed] = await tx
+	for (const userId of followerIds) {
+		const email = people.get(userId)?.email;
+		if (!email || !tanks.canView({ id: userId }, tank)) continue;
+		const [claimed] = await db
 			.update(tankFollows)
 			.set({ lastMailedAt: now })
 			.where(
 				and(
 					eq(tankFollows.tankId, tank.id),
-					eq(tankFollows.userId, follower.userId),
+					eq(tankFollows.userId, userId),
 					or(isNull(tankFollows.lastMailedAt), lte(tankFollows.lastMailedAt, new Date(now.getTime() - FOLLOW_MAIL_GAP_MS)))
 				)
 			);
 		if (claimed.affectedRows !== 1) continue;
 		const mail = followMail({
 			tankName: tank.name,
-			ownerName: owner?.name ?? 'A member',
+			ownerName: people.get(tank.ownerId)?.name ?? UNNAMED_MEMBER,
 			entryTitle: entry.title,
 			entryOn: entry.entryOn,
 			entryUrl: absoluteUrl(`/journals/${tank.id}/entries/${entry.id}`),
 			tankUrl: absoluteUrl(`/journals/${tank.id}`)
 		});
 		await enqueue(
-			tx,
+			db,
 			{
-				to: follower.email,
+				to: email,
 				...mail,
 				topic: `tank-follow:${tank.id}`,
-				dedupeKey: `tank-follow:${tank.id}:${follower.userId}:${now.toISOString().slice(0, 10)}`
+				dedupeKey: `tank-follow:${tank.id}:${userId}:${today('UTC', now)}`
 			},
 			now
 		);
 		queued++;
 	}
 	return queued;
-}
-
-/** Ids of the tanks the viewer follows. */
-export async function followedBy(viewer: Pick<Viewer, 'id'>, tx: DbOrTx = appDb): Promise<number[]> {
-	return (await tx.select({ id: tankFollows.tankId }).from(tankFollows).where(eq(tankFollows.userId, viewer.id))).map((r) => r.id);
 }

@@ -1,13 +1,17 @@
 // Tank profiles. Every read takes the viewer and goes through canView, so who may see a tank
-// (and its photos, see ../media/access.ts) is decided here and nowhere else.
-import { and, asc, desc, eq, inArray, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+// (and its photos, see ./photo-access.ts) is decided here and nowhere else. Deleting a tank,
+// which takes its journal with it, is ./tank-deletion.ts.
+import { and, asc, desc, eq, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
+import type { DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
 import type { Viewer } from '../club/users';
-import { users } from '../club/schema';
-import { species } from '../species/schema';
+import * as members from '../club/members';
+import * as catalogue from '../species/catalogue';
+import { notFound } from '../../errors';
+import { UNNAMED_MEMBER } from '../../club/names';
 import type { TankInput } from '../../journals/tank-input';
 import { TANK_COVER_MAX } from '../../journals/tank-vocabulary';
 import { tankFigures as figuresOf } from '../../journals/figures';
@@ -54,74 +58,79 @@ export interface TankSummary {
 	cover: Photo | null;
 }
 
-/** Thrown by the write functions when the tank does not exist or is not the viewer's. */
-export class TankNotFound extends Error {
-	constructor() {
-		super('No such tank.');
-	}
-}
+/** What a refusal says when the tank does not exist or is not the viewer's to see or change. */
+export const tankNotFound = () => notFound('We could not find that tank.');
 
-async function row(id: number, tx: DbOrTx = appDb): Promise<TankRow | undefined> {
-	const [found] = await tx.select().from(tanks).where(eq(tanks.id, id)).limit(1);
+async function row(id: number, db: DbOrTx): Promise<TankRow | undefined> {
+	const [found] = await db.select().from(tanks).where(eq(tanks.id, id)).limit(1);
 	return found;
 }
 
-async function load(found: TankRow, tx: DbOrTx = appDb): Promise<Tank> {
+async function load(found: TankRow, context: Context): Promise<Tank> {
+	const { db } = resolve(context);
 	const [owner, lights, filters, fertilisers, plants, livestock, photos] = await Promise.all([
-		tx.select({ displayName: users.displayName }).from(users).where(eq(users.id, found.ownerId)),
-		tx.select().from(tankLights).where(eq(tankLights.tankId, found.id)).orderBy(asc(tankLights.position), asc(tankLights.id)),
-		tx.select().from(tankFilters).where(eq(tankFilters.tankId, found.id)).orderBy(asc(tankFilters.position), asc(tankFilters.id)),
-		tx.select().from(tankFertilisers).where(eq(tankFertilisers.tankId, found.id)).orderBy(asc(tankFertilisers.position), asc(tankFertilisers.id)),
-		tx
-			.select({ plant: tankPlants, commonName: species.commonName })
-			.from(tankPlants)
-			.leftJoin(species, eq(species.id, tankPlants.speciesId))
-			.where(eq(tankPlants.tankId, found.id))
-			.orderBy(asc(tankPlants.position), asc(tankPlants.id)),
-		tx
-			.select({ animal: tankLivestock, commonName: species.commonName })
-			.from(tankLivestock)
-			.leftJoin(species, eq(species.id, tankLivestock.speciesId))
-			.where(eq(tankLivestock.tankId, found.id))
-			.orderBy(asc(tankLivestock.position), asc(tankLivestock.id)),
-		media.listFor('tank', found.id, tx)
+		members.names([found.ownerId], context),
+		db.select().from(tankLights).where(eq(tankLights.tankId, found.id)).orderBy(asc(tankLights.position), asc(tankLights.id)),
+		db.select().from(tankFilters).where(eq(tankFilters.tankId, found.id)).orderBy(asc(tankFilters.position), asc(tankFilters.id)),
+		db.select().from(tankFertilisers).where(eq(tankFertilisers.tankId, found.id)).orderBy(asc(tankFertilisers.position), asc(tankFertilisers.id)),
+		db.select().from(tankPlants).where(eq(tankPlants.tankId, found.id)).orderBy(asc(tankPlants.position), asc(tankPlants.id)),
+		db.select().from(tankLivestock).where(eq(tankLivestock.tankId, found.id)).orderBy(asc(tankLivestock.position), asc(tankLivestock.id)),
+		media.listFor('tank', found.id, context)
 	]);
+	const known = await catalogue.getMany(
+		[...plants, ...livestock].flatMap((r) => (r.speciesId === null ? [] : [r.speciesId])),
+		context
+	);
+	const commonName = (speciesId: number | null) => (speciesId === null ? null : (known.get(speciesId)?.commonName ?? null));
 	return {
 		...found,
-		ownerName: owner[0]?.displayName ?? 'A member',
+		ownerName: owner.get(found.ownerId) ?? UNNAMED_MEMBER,
 		cover: photos[0] ?? null,
 		lights,
 		filters,
 		fertilisers,
-		plants: plants.map((p) => ({ ...p.plant, commonName: p.commonName })),
-		livestock: livestock.map((a) => ({ ...a.animal, commonName: a.commonName }))
+		plants: plants.map((p) => ({ ...p, commonName: commonName(p.speciesId) })),
+		livestock: livestock.map((a) => ({ ...a, commonName: commonName(a.speciesId) }))
 	};
 }
 
 /** The bare row of a tank the viewer may see (no lists or photos), or null. */
-export async function findVisible(viewer: Pick<Viewer, 'id'> | null, id: number, tx: DbOrTx = appDb): Promise<TankRow | null> {
-	const found = await row(id, tx);
+export async function findVisible(viewer: Pick<Viewer, 'id'> | null, id: number, context: Context = {}): Promise<TankRow | null> {
+	const found = await row(id, resolve(context).db);
 	return found && canView(viewer, found) ? found : null;
 }
 
 /** The bare row of one of the viewer's own tanks, or null. */
-export async function findOwn(viewer: Pick<Viewer, 'id'>, id: number, tx: DbOrTx = appDb): Promise<TankRow | null> {
-	const found = await row(id, tx);
+export async function findOwn(viewer: Pick<Viewer, 'id'>, id: number, context: Context = {}): Promise<TankRow | null> {
+	const found = await row(id, resolve(context).db);
 	return found && found.ownerId === viewer.id ? found : null;
 }
 
+/**
+ * The viewer's own tank, locked for the rest of the transaction in `context` (writes to its
+ * journal go through this, so two of them queue); "not found" for anyone else's.
+ */
+export async function lockOwn(viewer: Pick<Viewer, 'id'>, id: number, context: Context = {}): Promise<TankRow> {
+	const { db } = resolve(context);
+	const [found] = await db.select().from(tanks).where(eq(tanks.id, id)).for('update');
+	if (!found || found.ownerId !== viewer.id) throw tankNotFound();
+	return found;
+}
+
 /** Notes new journal activity (an entry, event or test) for "recently updated". */
-export async function touch(tx: DbOrTx, id: number, now = new Date()): Promise<void> {
-	await tx.update(tanks).set({ activityAt: now }).where(eq(tanks.id, id));
+export async function touch(id: number, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	await db.update(tanks).set({ activityAt: now }).where(eq(tanks.id, id));
 }
 
 /** Works the stored volume out again for tanks that lack it (rows written before it was kept). */
-export async function refreshVolumes(tx: DbOrTx = appDb): Promise<number> {
-	const missing = await tx.select().from(tanks).where(isNull(tanks.volumeLitres));
+export async function refreshVolumes(context: Context = {}): Promise<number> {
+	const { db } = resolve(context);
+	const missing = await db.select().from(tanks).where(isNull(tanks.volumeLitres));
 	for (const t of missing) {
 		const litres = figuresOf({ ...t, lights: [], filters: [] }).volume?.litres;
 		if (litres !== undefined && Number.isFinite(litres)) {
-			await tx
+			await db
 				.update(tanks)
 				.set({ volumeLitres: Math.round(litres * 100) / 100, activityAt: t.activityAt ?? t.updatedAt ?? t.createdAt })
 				.where(eq(tanks.id, t.id));
@@ -131,17 +140,17 @@ export async function refreshVolumes(tx: DbOrTx = appDb): Promise<number> {
 }
 
 /** A tank with everything on its profile, or null when it does not exist or the viewer may not see it. */
-export async function get(viewer: Viewer | null, id: number, tx: DbOrTx = appDb): Promise<Tank | null> {
-	const found = await row(id, tx);
+export async function get(viewer: Viewer | null, id: number, context: Context = {}): Promise<Tank | null> {
+	const found = await row(id, resolve(context).db);
 	if (!found || !canView(viewer, found)) return null;
-	return load(found, tx);
+	return load(found, context);
 }
 
 /** The tank for its owner's edit form; null for anyone else. */
-export async function getOwn(viewer: Viewer, id: number, tx: DbOrTx = appDb): Promise<Tank | null> {
-	const found = await row(id, tx);
+export async function getOwn(viewer: Pick<Viewer, 'id'>, id: number, context: Context = {}): Promise<Tank | null> {
+	const found = await row(id, resolve(context).db);
 	if (!found || found.ownerId !== viewer.id) return null;
-	return load(found, tx);
+	return load(found, context);
 }
 
 function summaries(rows: TankRow[], covers: Map<number, Photo[]>): TankSummary[] {
@@ -160,12 +169,12 @@ function summaries(rows: TankRow[], covers: Map<number, Photo[]>): TankSummary[]
 }
 
 /** The viewer's own tanks, running ones first (newest set-up first), then retired ones. */
-export async function listOwn(viewer: Viewer, options: { retired?: boolean } = {}, tx: DbOrTx = appDb): Promise<TankSummary[]> {
+export async function listOwn(viewer: Pick<Viewer, 'id'>, options: { retired?: boolean } = {}, context: Context = {}): Promise<TankSummary[]> {
 	const conditions = [eq(tanks.ownerId, viewer.id)];
 	if (options.retired === false) conditions.push(isNull(tanks.retiredOn));
 	if (options.retired === true) conditions.push(isNotNull(tanks.retiredOn));
-	const rows = await tx
-		.select()
+	const rows = await resolve(context)
+		.db.select()
 		.from(tanks)
 		.where(and(...conditions))
 		.orderBy(sql`${tanks.retiredOn} IS NOT NULL`, desc(tanks.setUpOn), desc(tanks.id));
@@ -174,16 +183,16 @@ export async function listOwn(viewer: Viewer, options: { retired?: boolean } = {
 		await media.listForMany(
 			'tank',
 			rows.map((r) => r.id),
-			tx
+			context
 		)
 	);
 }
 
 /** Another member's tanks that the viewer may see (running ones), e.g. for a profile or a contest entry form. */
-export async function listVisibleOf(viewer: Viewer | null, ownerId: string, tx: DbOrTx = appDb): Promise<TankSummary[]> {
+export async function listVisibleOf(viewer: Pick<Viewer, 'id'> | null, ownerId: string, context: Context = {}): Promise<TankSummary[]> {
 	const rows = (
-		await tx
-			.select()
+		await resolve(context)
+			.db.select()
 			.from(tanks)
 			.where(and(eq(tanks.ownerId, ownerId), isNull(tanks.retiredOn)))
 			.orderBy(desc(tanks.setUpOn), desc(tanks.id))
@@ -193,7 +202,7 @@ export async function listVisibleOf(viewer: Viewer | null, ownerId: string, tx: 
 		await media.listForMany(
 			'tank',
 			rows.map((r) => r.id),
-			tx
+			context
 		)
 	);
 }
@@ -230,14 +239,14 @@ function columns(input: TankInput) {
 }
 
 /** Plants and animals picked from the catalogue take its scientific name; unknown ids become free text. */
-async function resolveSpecies<T extends { speciesId: number | null; name: string }>(tx: DbOrTx, rows: T[]): Promise<T[]> {
-	const ids = [...new Set(rows.map((r) => r.speciesId).filter((id): id is number => id !== null))];
-	if (ids.length === 0) return rows;
-	const found = await tx.select({ id: species.id, scientificName: species.scientificName }).from(species).where(inArray(species.id, ids));
-	const names = new Map(found.map((s) => [s.id, s.scientificName]));
+async function resolveSpecies<T extends { speciesId: number | null; name: string }>(rows: T[], context: Context): Promise<T[]> {
+	const known = await catalogue.getMany(
+		rows.flatMap((r) => (r.speciesId === null ? [] : [r.speciesId])),
+		context
+	);
 	return rows.map((r) => {
 		if (r.speciesId === null) return r;
-		const name = names.get(r.speciesId);
+		const name = known.get(r.speciesId)?.scientificName;
 		return name ? { ...r, name } : { ...r, speciesId: null };
 	});
 }
@@ -276,14 +285,14 @@ async function writeChildren(tx: DbOrTx, tankId: number, input: TankInput) {
 		mediaNotes: f.mediaNotes
 	}));
 	await syncChildren(tx, tankFertilisers, tankId, input.fertilisers, (f) => ({ item: f.item, amount: f.amount, frequency: f.frequency }));
-	await syncChildren(tx, tankPlants, tankId, await resolveSpecies(tx, input.plants), (p) => ({
+	await syncChildren(tx, tankPlants, tankId, await resolveSpecies(input.plants, { db: tx }), (p) => ({
 		speciesId: p.speciesId,
 		name: p.name,
 		placement: p.placement,
 		addedOn: p.addedOn,
 		removedOn: p.removedOn
 	}));
-	await syncChildren(tx, tankLivestock, tankId, await resolveSpecies(tx, input.livestock), (a) => ({
+	await syncChildren(tx, tankLivestock, tankId, await resolveSpecies(input.livestock, { db: tx }), (a) => ({
 		speciesId: a.speciesId,
 		name: a.name,
 		count: a.count,
@@ -292,83 +301,59 @@ async function writeChildren(tx: DbOrTx, tankId: number, input: TankInput) {
 	}));
 }
 
+/** Cover photos: one, refused at the form's "cover" field. */
+const COVER_RULES = { max: TANK_COVER_MAX, field: 'cover' };
+
 /** Creates a tank for the viewer with its cover photo (a pending upload of theirs, or none). */
-export async function create(viewer: Pick<Viewer, 'id'>, input: TankInput, cover: PhotoField[] = [], database: DbOrTx = appDb): Promise<number> {
-	return database.transaction(async (tx) => {
-		const now = new Date();
+export async function create(viewer: Pick<Viewer, 'id'>, input: TankInput, cover: PhotoField[] = [], context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
 		const [result] = await tx.insert(tanks).values({ ...columns(input), ownerId: viewer.id, updatedAt: now, activityAt: now });
 		const id = result.insertId;
 		await writeChildren(tx, id, input);
 		// A new tank has no photos yet, so nothing can be dropped here.
-		await media.setPhotos(tx, viewer.id, 'tank', id, cover, { max: TANK_COVER_MAX });
+		await media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, { ...context, db: tx });
 		return id;
 	});
 }
 
-/** Saves the owner's changes; TankNotFound for anyone else. */
-export async function update(viewer: Viewer, id: number, input: TankInput, cover: PhotoField[], database: Database = appDb): Promise<void> {
-	const purge: Purge = await database.transaction(async (tx) => {
-		const [found] = await tx.select().from(tanks).where(eq(tanks.id, id)).for('update');
-		if (!found || found.ownerId !== viewer.id) throw new TankNotFound();
+/** Saves the owner's changes; "not found" for anyone else. */
+export async function update(viewer: Pick<Viewer, 'id'>, id: number, input: TankInput, cover: PhotoField[], context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const purge: Purge = await db.transaction(async (tx) => {
+		await lockOwn(viewer, id, { db: tx });
 		await tx
 			.update(tanks)
-			.set({ ...columns(input), updatedAt: new Date(), activityAt: new Date() })
+			.set({ ...columns(input), updatedAt: now, activityAt: now })
 			.where(eq(tanks.id, id));
 		await writeChildren(tx, id, input);
-		return media.setPhotos(tx, viewer.id, 'tank', id, cover, { max: TANK_COVER_MAX });
+		return media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, { ...context, db: tx });
 	});
 	await media.purge(purge).catch((error: unknown) => console.error(`[tanks] removing replaced photos of tank ${id} failed:`, error));
 }
 
 /** Retires a running tank: it stays on the profile with all its history, marked as taken down. */
-export async function retire(viewer: Viewer, id: number, on: string, note = '', database: Database = appDb): Promise<void> {
-	const [result] = await database
+export async function retire(viewer: Pick<Viewer, 'id'>, id: number, on: string, note = '', context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const [result] = await db
 		.update(tanks)
-		.set({ retiredOn: on, retiredNote: note, updatedAt: new Date() })
+		.set({ retiredOn: on, retiredNote: note, updatedAt: now })
 		.where(and(eq(tanks.id, id), eq(tanks.ownerId, viewer.id), isNull(tanks.retiredOn)));
 	if (result.affectedRows === 0) {
-		const found = await row(id, database);
-		if (!found || found.ownerId !== viewer.id) throw new TankNotFound();
+		const found = await row(id, db);
+		if (!found || found.ownerId !== viewer.id) throw tankNotFound();
 	}
 }
 
 /** Sets a retired tank running again. */
-export async function reopen(viewer: Viewer, id: number, database: Database = appDb): Promise<void> {
-	const [result] = await database
+export async function reopen(viewer: Pick<Viewer, 'id'>, id: number, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const [result] = await db
 		.update(tanks)
-		.set({ retiredOn: null, retiredNote: '', updatedAt: new Date() })
+		.set({ retiredOn: null, retiredNote: '', updatedAt: now })
 		.where(and(eq(tanks.id, id), eq(tanks.ownerId, viewer.id)));
-	if (result.affectedRows === 0) throw new TankNotFound();
+	if (result.affectedRows === 0) throw tankNotFound();
 }
 
-/**
- * Deletes a tank for good, its lists and its photos (rows in the transaction, objects after it).
- * Features that attach records to a tank delete theirs first in the same transaction: pass them
- * as `before`.
- */
-export async function remove(
-	viewer: Viewer,
-	id: number,
-	options: { before?: (tx: DbOrTx, tankId: number) => Promise<Purge | void> } = {},
-	database: Database = appDb
-): Promise<void> {
-	const purge = await database.transaction(async (tx) => {
-		const [found] = await tx.select().from(tanks).where(eq(tanks.id, id)).for('update');
-		if (!found || found.ownerId !== viewer.id) throw new TankNotFound();
-		const extra = (await options.before?.(tx, id)) ?? [];
-		const keys = await media.deleteFor(tx, 'tank', id);
-		await tx.delete(tanks).where(eq(tanks.id, id));
-		return [...extra, ...keys];
-	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[tanks] removing photos of deleted tank ${id} failed:`, error));
-}
-
-/** Media access for scope 'tank' (registered in ../media/access.ts): the tank's own visibility. */
-export async function photoAudience(viewer: Viewer | null, tankId: number): Promise<'public' | 'restricted' | null> {
-	const found = await row(tankId);
-	if (!found || !canView(viewer, found)) return null;
-	return found.visibility === 'public' ? 'public' : 'restricted';
-}
-
-/** The computed figures of a tank (volume, weight, light, turnover, age, cautions); see $lib/journals/figures. */
-export const tankFigures = (tank: Tank, now = new Date()) => figuresOf(tank, now);
+/** The computed figures of a tank (volume, weight, light, turnover, age, cautions) on the day of `context.now`; see $lib/journals/figures. */
+export const tankFigures = (tank: Tank, context: Context = {}) => figuresOf(tank, context.now ?? new Date());

@@ -1,9 +1,11 @@
 // A tank's timeline, newest first and paged: entries, events logged on their own and water tests.
+// Each source is read already sorted and cut to what the page can need, then merged by
+// $lib/journals/timeline-merge.
 import { and, count, desc, eq, inArray, isNull } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
-import { mergeTimeline, rowsNeeded, type TimelineKey } from '../../journals/timeline';
+import { resolve, type Context } from '../context';
+import { mergeTimeline, rowsNeeded, type TimelineKey } from '../../journals/timeline-merge';
 import { journalEntries, journalEvents, maintenanceTasks, waterTests, type EventRow, type WaterTestRow } from './schema';
-import * as entries from './entries';
+import * as entries from './journal-entries';
 import * as water from './water';
 
 export const TIMELINE_PAGE_SIZE = 10;
@@ -21,7 +23,9 @@ export interface Timeline {
 }
 
 /** One page of the timeline of a tank (the caller has checked that the viewer may see it). */
-export async function pageOf(tankId: number, requested: number, tx: DbOrTx = appDb, pageSize = TIMELINE_PAGE_SIZE): Promise<Timeline> {
+export async function pageOf(tankId: number, requested: number, context: Context = {}): Promise<Timeline> {
+	const { db: tx } = resolve(context);
+	const pageSize = TIMELINE_PAGE_SIZE;
 	const standalone = and(eq(journalEvents.tankId, tankId), isNull(journalEvents.entryId));
 	const [[e], [v], [t]] = await Promise.all([
 		tx.select({ n: count() }).from(journalEntries).where(eq(journalEntries.tankId, tankId)),
@@ -64,7 +68,7 @@ export async function pageOf(tankId: number, requested: number, tx: DbOrTx = app
 	);
 	const ids = (kind: TimelineKey['kind']) => merged.items.filter((i) => i.kind === kind).map((i) => i.id);
 	const [entryRows, eventRows, testRows] = await Promise.all([
-		entries.many(ids('entry'), tx),
+		entries.many(ids('entry'), context),
 		ids('event').length
 			? tx
 					.select({ event: journalEvents, taskLabel: maintenanceTasks.label })
@@ -72,7 +76,7 @@ export async function pageOf(tankId: number, requested: number, tx: DbOrTx = app
 					.leftJoin(maintenanceTasks, eq(maintenanceTasks.id, journalEvents.taskId))
 					.where(and(eq(journalEvents.tankId, tankId), inArray(journalEvents.id, ids('event'))))
 			: [],
-		water.many(tankId, ids('test'), tx)
+		water.many(tankId, ids('test'), context)
 	]);
 	const byId = {
 		entry: new Map(entryRows.map((r) => [r.id, r])),

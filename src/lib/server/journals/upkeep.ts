@@ -1,8 +1,11 @@
 // The upkeep schedule of each tank: its tasks, when each was last done (worked out from the
 // events and tests logged), what is due across a member's tanks, and "done today".
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import type { DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import { invalid, notFound } from '../../errors';
+import { today } from '../../dates';
 import { scheduleAll, type ScheduledTask, type MaintenanceTask } from '../../journals/calc';
 import { asMaintenanceTask, doneEventKind, lastDoneOn, type LoggedUpkeep, type TaskDraft } from '../../journals/schedule';
 import { journalEvents, maintenanceTasks, tanks as tankTable, waterTests, type TaskRow } from './schema';
@@ -13,10 +16,13 @@ export type { TaskRow };
 /** Most tasks one tank's schedule holds. */
 export const SCHEDULE_MAX = 20;
 
-export const todayOf = (now: Date) => now.toISOString().slice(0, 10);
-
-export async function listForTank(tankId: number, tx: DbOrTx = appDb): Promise<TaskRow[]> {
-	return tx.select().from(maintenanceTasks).where(eq(maintenanceTasks.tankId, tankId)).orderBy(asc(maintenanceTasks.position), asc(maintenanceTasks.id));
+/** The tasks of a tank's schedule, in the keeper's order. */
+export async function listForTank(tankId: number, context: Context = {}): Promise<TaskRow[]> {
+	return resolve(context)
+		.db.select()
+		.from(maintenanceTasks)
+		.where(eq(maintenanceTasks.tankId, tankId))
+		.orderBy(asc(maintenanceTasks.position), asc(maintenanceTasks.id));
 }
 
 /** Everything logged for a tank that can count as doing a task. */
@@ -35,20 +41,15 @@ async function loggedFor(tx: DbOrTx, tankId: number): Promise<LoggedUpkeep[]> {
  * Works out again when each task of a tank was last done. Call it in the transaction of anything
  * that adds, changes or removes events or tests, and after the schedule changes.
  */
-export async function recompute(tx: DbOrTx, tankId: number, now = new Date()): Promise<void> {
-	const tasks = await listForTank(tankId, tx);
+export async function recompute(tankId: number, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const tasks = await listForTank(tankId, context);
 	if (!tasks.length) return;
-	const logged = await loggedFor(tx, tankId);
-	const today = todayOf(now);
+	const logged = await loggedFor(db, tankId);
+	const day = today('UTC', now);
 	for (const task of tasks) {
-		const last = lastDoneOn(task, logged, today);
-		if (last !== task.lastDoneOn) await tx.update(maintenanceTasks).set({ lastDoneOn: last }).where(eq(maintenanceTasks.id, task.id));
-	}
-}
-
-export class ScheduleError extends Error {
-	constructor(readonly errors: Record<string, string>) {
-		super('The schedule has mistakes.');
+		const last = lastDoneOn(task, logged, day);
+		if (last !== task.lastDoneOn) await db.update(maintenanceTasks).set({ lastDoneOn: last }).where(eq(maintenanceTasks.id, task.id));
 	}
 }
 
@@ -56,18 +57,12 @@ export class ScheduleError extends Error {
  * Replaces the owner's schedule of a tank with `tasks` (in order). Rows carrying the id of a task
  * of this tank are updated, so events logged "done today" for them still point at them.
  */
-export async function saveSchedule(
-	viewer: Viewer,
-	tankId: number,
-	tasks: (TaskDraft & { id?: number })[],
-	database: DbOrTx = appDb,
-	now = new Date()
-): Promise<void> {
-	if (tasks.length > SCHEDULE_MAX) throw new ScheduleError({ tasks: `Keep the schedule to ${SCHEDULE_MAX} tasks.` });
-	await database.transaction(async (tx) => {
-		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
-		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
-		const existing = new Set((await listForTank(tankId, tx)).map((t) => t.id));
+export async function saveSchedule(viewer: Pick<Viewer, 'id'>, tankId: number, tasks: (TaskDraft & { id?: number })[], context: Context = {}): Promise<void> {
+	if (tasks.length > SCHEDULE_MAX) throw invalid({ tasks: `Keep the schedule to ${SCHEDULE_MAX} tasks.` });
+	await resolve(context).db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx };
+		await tanks.lockOwn(viewer, tankId, inTx);
+		const existing = new Set((await listForTank(tankId, inTx)).map((t) => t.id));
 		const kept: number[] = [];
 		for (const [position, task] of tasks.entries()) {
 			const values = {
@@ -87,7 +82,7 @@ export async function saveSchedule(
 		}
 		const dropped = [...existing].filter((id) => !kept.includes(id));
 		if (dropped.length) await tx.delete(maintenanceTasks).where(inArray(maintenanceTasks.id, dropped));
-		await recompute(tx, tankId, now);
+		await recompute(tankId, inTx);
 	});
 }
 
@@ -99,8 +94,9 @@ export interface DueTask extends MaintenanceTask {
 }
 
 /** The schedule of every running tank of the viewer, the most overdue first. */
-export async function scheduleOf(viewer: Pick<Viewer, 'id'>, now = new Date(), tx: DbOrTx = appDb): Promise<ScheduledTask<DueTask>[]> {
-	const rows = await tx
+export async function scheduleOf(viewer: Pick<Viewer, 'id'>, context: Context = {}): Promise<ScheduledTask<DueTask>[]> {
+	const { db, now } = resolve(context);
+	const rows = await db
 		.select({ task: maintenanceTasks, tankName: tankTable.name })
 		.from(maintenanceTasks)
 		.innerJoin(tankTable, eq(tankTable.id, maintenanceTasks.tankId))
@@ -115,13 +111,12 @@ export async function scheduleOf(viewer: Pick<Viewer, 'id'>, now = new Date(), t
 	return scheduleAll(tasks, now);
 }
 
-/** Tasks due within `days` days (0: due today or overdue). */
-export const dueWithin = <T extends MaintenanceTask>(scheduled: ScheduledTask<T>[], days: number) =>
-	scheduled.filter((s) => s.status.kind !== 'due-in' || s.status.days <= days);
+export { dueWithin } from '../../journals/schedule';
 
 /** The schedule of one tank for its page. */
-export async function scheduleOfTank(tankId: number, now = new Date(), tx: DbOrTx = appDb) {
-	const rows = await listForTank(tankId, tx);
+export async function scheduleOfTank(tankId: number, context: Context = {}) {
+	const { now } = resolve(context);
+	const rows = await listForTank(tankId, context);
 	return scheduleAll(
 		rows.map((t) => ({ ...asMaintenanceTask(t), taskId: t.id, kind: t.kind, filterPart: t.filterPart })),
 		now
@@ -130,41 +125,44 @@ export async function scheduleOfTank(tankId: number, now = new Date(), tx: DbOrT
 
 /**
  * "Done today": logs an event for the task on the owner's tank (not tied to an entry) and resets
- * it. Returns the tank's id; TankNotFound when the task is not the viewer's.
+ * it. Returns the tank's id; "not found" when the task is not the viewer's.
  */
-export async function markDone(viewer: Viewer, taskId: number, now = new Date(), database: DbOrTx = appDb): Promise<number> {
-	return database.transaction(async (tx) => {
+export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx, now };
 		const [row] = await tx
 			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId })
 			.from(maintenanceTasks)
 			.innerJoin(tankTable, eq(tankTable.id, maintenanceTasks.tankId))
 			.where(eq(maintenanceTasks.id, taskId))
 			.for('update');
-		if (!row || row.ownerId !== viewer.id) throw new tanks.TankNotFound();
+		if (!row || row.ownerId !== viewer.id) throw notFound('We could not find that task.');
 		const { task } = row;
 		const kind = doneEventKind(task.kind);
 		await tx.insert(journalEvents).values({
 			tankId: task.tankId,
 			entryId: null,
 			kind,
-			occurredOn: todayOf(now),
+			occurredOn: today('UTC', now),
 			filterPart: kind === 'filter-clean' ? task.filterPart : null,
 			what: kind === 'upkeep' ? task.label : '',
 			taskId: task.id
 		});
-		await recompute(tx, task.tankId, now);
-		await tanks.touch(tx, task.tankId, now);
+		await recompute(task.tankId, inTx);
+		await tanks.touch(task.tankId, inTx);
 		return task.tankId;
 	});
 }
 
 /** Takes back an event logged on its own ("done today" by mistake); events of entries go with their entry. */
-export async function removeLoggedEvent(viewer: Viewer, tankId: number, eventId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
-	await database.transaction(async (tx) => {
-		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
-		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
+export async function removeLoggedEvent(viewer: Pick<Viewer, 'id'>, tankId: number, eventId: number, context: Context = {}): Promise<void> {
+	const eventNotFound = () => notFound('We could not find that event.');
+	await resolve(context).db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx };
+		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.delete(journalEvents).where(and(eq(journalEvents.id, eventId), eq(journalEvents.tankId, tankId), isNull(journalEvents.entryId)));
-		if (result.affectedRows === 0) throw new tanks.TankNotFound();
-		await recompute(tx, tankId, now);
+		if (result.affectedRows === 0) throw eventNotFound();
+		await recompute(tankId, inTx);
 	});
 }

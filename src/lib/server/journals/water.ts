@@ -1,10 +1,11 @@
 // Water tests of a tank: logged by its keeper, read by whoever may see the tank.
 import { and, desc, eq, inArray } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import { notFound } from '../../errors';
 import { buildSeries, type Series, type WaterTestInput } from '../../journals/water-tests';
 import type { UnitSystem } from '../../journals/calc';
-import { tanks as tankTable, waterTests, type TankRow, type WaterTestRow } from './schema';
+import { waterTests, type TankRow, type WaterTestRow } from './schema';
 import * as tanks from './tanks';
 import * as upkeep from './upkeep';
 
@@ -13,41 +14,45 @@ export type { WaterTestRow };
 /** Tests a chart draws at most (the newest ones). */
 export const SERIES_LIMIT = 120;
 
-export async function create(viewer: Viewer, tankId: number, input: WaterTestInput, database: DbOrTx = appDb, now = new Date()): Promise<number> {
-	return database.transaction(async (tx) => {
-		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
-		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
+/** Logs a test on the viewer's own tank. */
+export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: WaterTestInput, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx, now };
+		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.insert(waterTests).values({ ...input, tankId, createdAt: now });
-		await upkeep.recompute(tx, tankId, now);
-		await tanks.touch(tx, tankId, now);
+		await upkeep.recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
 		return result.insertId;
 	});
 }
 
-export async function remove(viewer: Viewer, tankId: number, testId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
-	await database.transaction(async (tx) => {
-		const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
-		if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
+/** Deletes a test of the viewer's own tank. */
+export async function remove(viewer: Pick<Viewer, 'id'>, tankId: number, testId: number, context: Context = {}): Promise<void> {
+	await resolve(context).db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx };
+		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.delete(waterTests).where(and(eq(waterTests.id, testId), eq(waterTests.tankId, tankId)));
-		if (result.affectedRows === 0) throw new tanks.TankNotFound();
-		await upkeep.recompute(tx, tankId, now);
+		if (result.affectedRows === 0) throw notFound('We could not find that test.');
+		await upkeep.recompute(tankId, inTx);
 	});
 }
 
 /** The newest tests of a tank, newest first (the caller has checked visibility). */
-export async function latestOf(tankId: number, limit = SERIES_LIMIT, tx: DbOrTx = appDb): Promise<WaterTestRow[]> {
-	return tx
-		.select()
+export async function latestOf(tankId: number, limit = SERIES_LIMIT, context: Context = {}): Promise<WaterTestRow[]> {
+	return resolve(context)
+		.db.select()
 		.from(waterTests)
 		.where(eq(waterTests.tankId, tankId))
 		.orderBy(desc(waterTests.testedOn), desc(waterTests.createdAt), desc(waterTests.id))
 		.limit(limit);
 }
 
-export async function many(tankId: number, ids: number[], tx: DbOrTx = appDb): Promise<WaterTestRow[]> {
+/** Tests of a tank by id (the caller has checked visibility). */
+export async function many(tankId: number, ids: number[], context: Context = {}): Promise<WaterTestRow[]> {
 	if (!ids.length) return [];
-	return tx
-		.select()
+	return resolve(context)
+		.db.select()
 		.from(waterTests)
 		.where(and(eq(waterTests.tankId, tankId), inArray(waterTests.id, ids)));
 }
@@ -59,9 +64,9 @@ export interface TankSeries {
 }
 
 /** The chart data of a tank the viewer may see, in the viewer's units; null when not visible. */
-export async function seriesFor(viewer: Viewer | null, tankId: number, tx: DbOrTx = appDb): Promise<TankSeries | null> {
-	const tank = await tanks.findVisible(viewer, tankId, tx);
+export async function seriesFor(viewer: Pick<Viewer, 'id' | 'units'> | null, tankId: number, context: Context = {}): Promise<TankSeries | null> {
+	const tank = await tanks.findVisible(viewer, tankId, context);
 	if (!tank) return null;
 	const units = viewer?.units ?? 'metric';
-	return { tank: { id: tank.id, name: tank.name }, units, series: buildSeries(await latestOf(tankId, SERIES_LIMIT, tx), units) };
+	return { tank: { id: tank.id, name: tank.name }, units, series: buildSeries(await latestOf(tankId, SERIES_LIMIT, context), units) };
 }

@@ -1,37 +1,58 @@
-// Who may see an attached photo follows what owns it. Each scope maps to a check the owning
-// feature provides: it answers 'public' (anyone; may be cached by shared caches), 'restricted'
-// (this viewer only; private caching) or null (not visible: the photo answers 404).
+// Who may see an attached photo follows what owns it, and only the owning feature knows that.
+// Media knows no feature: each feature registers its scopes here at start-up (see
+// ../media-scopes.ts, which the app, the seed and the tests call before anything else), e.g.
 //
-// A feature that owns photos adds ONE entry here, e.g.
-//   listing: swaps.photoAudience,
-// and then passes its scope name to media.attach / setPhotos / listFor / deleteFor.
-import type { Viewer } from '../club/users';
-import * as tanks from '../journals/tanks';
-import * as entries from '../journals/entries';
-import * as listings from '../swaps/listings';
-import * as contestEntries from '../contests/entries';
+//   media.registerScope('listing', { audienceFor: (viewer, listingId, context) => … });
+//
+// and then passes its scope name to media.setPhotos / listFor / deleteFor. A check answers
+// 'public' (anyone; may be kept by shared caches), 'restricted' (this viewer only; private
+// caching) or null (not visible: the photo answers 404).
+import type { Context } from '../context';
 import type { MediaRow } from './schema';
 
+/** The name a feature gives the things its photos belong to ('tank', 'listing', …). */
+export type MediaScope = string;
+
 export type MediaAudience = 'public' | 'restricted';
-export type ScopeCheck = (viewer: Viewer | null, scopeId: number) => Promise<MediaAudience | null>;
 
-const scopes = {
-	tank: tanks.photoAudience,
-	entry: entries.photoAudience,
-	listing: listings.photoAudience,
-	'contest-entry': contestEntries.photoAudience
-} satisfies Record<string, ScopeCheck>;
+/** Who is asking, as the app resolved them (`locals.user`); media itself needs only the id. */
+export interface MediaViewer {
+	id: string;
+	role: string;
+}
 
-export type MediaScope = keyof typeof scopes;
+export interface ScopeAccess {
+	/** Who may see the photos of one thing of this scope. */
+	audienceFor(viewer: MediaViewer | null, scopeId: number, context?: Context): Promise<MediaAudience | null>;
+}
 
-export const isMediaScope = (value: string): value is MediaScope => Object.hasOwn(scopes, value);
+const scopes = new Map<MediaScope, ScopeAccess>();
+
+/** Registers the visibility check of a scope. Registering the same check again does nothing; another feature's claim on a taken scope is a mistake. */
+export function registerScope(scope: MediaScope, access: ScopeAccess): void {
+	const known = scopes.get(scope);
+	if (known && known !== access) throw new Error(`The photo scope '${scope}' is registered twice.`);
+	scopes.set(scope, access);
+}
+
+export const isMediaScope = (value: string): value is MediaScope => scopes.has(value);
+
+/** For writes: a photo attached to a scope nobody registered could never be seen again. */
+export function requireScope(scope: MediaScope): void {
+	if (!scopes.has(scope))
+		throw new Error(`The photo scope '${scope}' is not registered: call registerMediaScopes() (src/lib/server/media-scopes.ts) at start-up.`);
+}
 
 /**
  * Whether `viewer` may see this photo, and how it may be cached. A pending upload is its owner's
  * alone; a photo whose scope has no registered check is seen by nobody.
  */
-export async function audienceFor(viewer: Viewer | null, row: Pick<MediaRow, 'ownerId' | 'scope' | 'scopeId'>): Promise<MediaAudience | null> {
+export async function audienceFor(
+	viewer: MediaViewer | null,
+	row: Pick<MediaRow, 'ownerId' | 'scope' | 'scopeId'>,
+	context: Context = {}
+): Promise<MediaAudience | null> {
 	if (row.scope === null || row.scopeId === null) return viewer?.id === row.ownerId ? 'restricted' : null;
-	if (!isMediaScope(row.scope)) return null;
-	return scopes[row.scope](viewer, row.scopeId);
+	const access = scopes.get(row.scope);
+	return access ? access.audienceFor(viewer, row.scopeId, context) : null;
 }

@@ -1,19 +1,23 @@
 // The media pipeline: uploads, the photos attached to things, and their removal. Features that
 // own photos (tanks, journal entries, swap listings, contest entries) call these functions inside
-// their own transactions and register a visibility check in ./access.ts.
+// their own transactions (`{ db: tx }`) and register who may see their photos (./access.ts).
 import { randomUUID } from 'node:crypto';
 import { and, asc, count, eq, inArray, isNull, lt } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
 import { mediaUrls, RENDITION_SIZES, type RenditionSize } from '../../media/urls';
 import type { PhotoField, UploaderPhoto } from '../../media/form';
+import { DomainError } from '../../errors';
 import { resolve, type Context } from '../context';
 import { media, type MediaRow, type StoredRendition } from './schema';
-import { MediaError, prepareImage } from './process';
+import { prepareImage } from './process';
 import { store as defaultStore, type ObjectStore } from './storage';
-import type { MediaScope } from './access';
+import { requireScope, type MediaScope } from './access';
 
-export { MediaError } from './process';
-export type { MediaScope } from './access';
+export { registerScope, type MediaScope, type MediaAudience, type MediaViewer, type ScopeAccess } from './access';
+
+/** The context of media work: the database and the clock, and the bucket (tests pass a failing one). */
+export interface MediaContext extends Context {
+	store?: ObjectStore;
+}
 
 /** Uploads a member may hold unattached at once (each is swept after a day anyway). */
 export const MAX_PENDING_PER_OWNER = 60;
@@ -56,25 +60,20 @@ export function toPhoto(row: MediaRow): Photo {
 	};
 }
 
-interface Deps {
-	db?: DbOrTx;
-	store?: ObjectStore;
-}
-
 /**
  * Checks, converts and stores one uploaded file as a pending photo of `ownerId`. Nothing is left
  * behind when it fails: objects already written are deleted again if a later write or the
  * insert fails.
  */
-export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}): Promise<UploadResult> {
-	const database = deps.db ?? appDb;
-	const bucket = deps.store ?? defaultStore();
-	const [pending] = await database
+export async function upload(ownerId: string, bytes: Uint8Array, context: MediaContext = {}): Promise<UploadResult> {
+	const { db } = resolve(context);
+	const bucket = context.store ?? defaultStore();
+	const [pending] = await db
 		.select({ n: count() })
 		.from(media)
 		.where(and(eq(media.ownerId, ownerId), isNull(media.scope)));
 	if ((pending?.n ?? 0) >= MAX_PENDING_PER_OWNER) {
-		throw new MediaError(
+		throw new DomainError(
 			429,
 			'too-many-pending',
 			`You have ${MAX_PENDING_PER_OWNER} photos uploaded but not yet saved with anything. Save or remove some first.`
@@ -100,7 +99,7 @@ export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}
 			RenditionSize,
 			StoredRendition
 		>;
-		const [result] = await database.insert(media).values({
+		const [result] = await db.insert(media).values({
 			ownerId,
 			storageKey,
 			uploadBytes: bytes.byteLength,
@@ -122,14 +121,15 @@ export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}
 export type Purge = string[];
 
 /** Deletes the objects of removed photos; call it after the transaction has committed. */
-export async function purge(keys: Purge, deps: Deps = {}): Promise<void> {
+export async function purge(keys: Purge, context: MediaContext = {}): Promise<void> {
 	if (keys.length === 0) return;
-	await (deps.store ?? defaultStore()).remove(keys);
+	await (context.store ?? defaultStore()).remove(keys);
 }
 
 /** The photos of one thing, in order. */
-export async function listFor(scope: MediaScope, scopeId: number, tx: DbOrTx = appDb): Promise<Photo[]> {
-	const rows = await tx
+export async function listFor(scope: MediaScope, scopeId: number, context: Context = {}): Promise<Photo[]> {
+	const { db } = resolve(context);
+	const rows = await db
 		.select()
 		.from(media)
 		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
@@ -138,10 +138,11 @@ export async function listFor(scope: MediaScope, scopeId: number, tx: DbOrTx = a
 }
 
 /** The photos of many things at once (for lists showing a cover each), keyed by scope id. */
-export async function listForMany(scope: MediaScope, scopeIds: number[], tx: DbOrTx = appDb): Promise<Map<number, Photo[]>> {
+export async function listForMany(scope: MediaScope, scopeIds: number[], context: Context = {}): Promise<Map<number, Photo[]>> {
 	const map = new Map<number, Photo[]>();
 	if (scopeIds.length === 0) return map;
-	const rows = await tx
+	const { db } = resolve(context);
+	const rows = await db
 		.select()
 		.from(media)
 		.where(and(eq(media.scope, scope), inArray(media.scopeId, scopeIds)))
@@ -155,57 +156,43 @@ export async function listForMany(scope: MediaScope, scopeIds: number[], tx: DbO
 }
 
 /** A member's own pending uploads among `ids` (e.g. to show them again after a failed form). */
-export async function pendingOf(ownerId: string, ids: number[], tx: DbOrTx = appDb): Promise<Photo[]> {
+export async function pendingOf(ownerId: string, ids: number[], context: Context = {}): Promise<Photo[]> {
 	if (ids.length === 0) return [];
-	const rows = await tx
+	const { db } = resolve(context);
+	const rows = await db
 		.select()
 		.from(media)
 		.where(and(eq(media.ownerId, ownerId), isNull(media.scope), inArray(media.id, ids)));
 	return rows.map(toPhoto);
 }
 
-/**
- * Attaches pending uploads of `ownerId` to a thing, after the photos it already has. Refuses
- * (MediaError 400) an id that is not a pending upload of that owner.
- */
-export async function attach(tx: DbOrTx, ownerId: string, scope: MediaScope, scopeId: number, photos: PhotoField[], now = new Date()): Promise<void> {
-	if (photos.length === 0) return;
-	const ids = photos.map((p) => p.id);
-	const rows = await tx
-		.select({ id: media.id })
-		.from(media)
-		.where(and(inArray(media.id, ids), eq(media.ownerId, ownerId), isNull(media.scope)))
-		.for('update');
-	if (rows.length !== new Set(ids).size) throw unavailable();
-	const [last] = await tx
-		.select({ n: count() })
-		.from(media)
-		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)));
-	let position = last?.n ?? 0;
-	for (const p of photos) {
-		await tx.update(media).set({ scope, scopeId, position: position++, altText: p.alt, caption: p.caption, attachedAt: now }).where(eq(media.id, p.id));
-	}
+/** How many photos a thing may have, and the form field a refusal is shown at. */
+export interface PhotoRules {
+	max: number;
+	/** The name of the form's photo field; 'photos' unless the form calls it otherwise (a tank's 'cover'). */
+	field?: string;
 }
 
-const unavailable = () =>
-	new MediaError(400, 'photo-unavailable', 'One of the photos is no longer available (uploads not saved within a day are removed). Upload it again.');
+const refusal = (rules: PhotoRules, code: string, message: string) => new DomainError(400, code, message, { [rules.field ?? 'photos']: message });
 
 /**
  * Makes `photos`, in this order, exactly the photos of a thing: new ids must be pending uploads of
  * `ownerId`, ids already attached to this thing keep their files and get the new text and order,
  * and photos of the thing left out are deleted. Returns the object keys to purge after commit.
+ * Call it in the transaction that saves the thing.
  */
 export async function setPhotos(
-	tx: DbOrTx,
 	ownerId: string,
 	scope: MediaScope,
 	scopeId: number,
 	photos: PhotoField[],
-	options: { max: number; now?: Date }
+	rules: PhotoRules,
+	context: Context = {}
 ): Promise<Purge> {
-	if (photos.length > options.max) throw new MediaError(400, 'too-many-photos', `Add at most ${options.max} photo${options.max === 1 ? '' : 's'}.`);
-	const now = options.now ?? new Date();
-	const current = await tx
+	requireScope(scope);
+	if (photos.length > rules.max) throw refusal(rules, 'too-many-photos', `Add at most ${rules.max} photo${rules.max === 1 ? '' : 's'}.`);
+	const { db, now } = resolve(context);
+	const current = await db
 		.select()
 		.from(media)
 		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
@@ -213,15 +200,17 @@ export async function setPhotos(
 	const currentIds = new Set(current.map((r) => r.id));
 	const newIds = photos.map((p) => p.id).filter((id) => !currentIds.has(id));
 	if (newIds.length) {
-		const fresh = await tx
+		const fresh = await db
 			.select({ id: media.id })
 			.from(media)
 			.where(and(inArray(media.id, newIds), eq(media.ownerId, ownerId), isNull(media.scope)))
 			.for('update');
-		if (fresh.length !== new Set(newIds).size) throw unavailable();
+		if (fresh.length !== new Set(newIds).size) {
+			throw refusal(rules, 'photo-unavailable', 'One of the photos is no longer available (uploads not saved within a day are removed). Upload it again.');
+		}
 	}
 	for (const [position, p] of photos.entries()) {
-		await tx
+		await db
 			.update(media)
 			.set({ scope, scopeId, position, altText: p.alt, caption: p.caption, ...(currentIds.has(p.id) ? {} : { attachedAt: now }) })
 			.where(eq(media.id, p.id));
@@ -229,7 +218,7 @@ export async function setPhotos(
 	const keep = new Set(photos.map((p) => p.id));
 	const dropped = current.filter((r) => !keep.has(r.id));
 	if (dropped.length)
-		await tx.delete(media).where(
+		await db.delete(media).where(
 			inArray(
 				media.id,
 				dropped.map((r) => r.id)
@@ -238,52 +227,16 @@ export async function setPhotos(
 	return dropped.flatMap((r) => objectKeys(r.storageKey));
 }
 
-/** Sets a new order for a thing's photos; ids not attached to it are ignored. */
-export async function reorder(tx: DbOrTx, scope: MediaScope, scopeId: number, orderedIds: number[]): Promise<void> {
-	for (const [position, id] of orderedIds.entries()) {
-		await tx
-			.update(media)
-			.set({ position })
-			.where(and(eq(media.id, id), eq(media.scope, scope), eq(media.scopeId, scopeId)));
-	}
-}
-
-/** Changes the description (alt text) and caption of one photo of a thing. */
-export async function updateText(tx: DbOrTx, scope: MediaScope, scopeId: number, id: number, text: { alt: string; caption: string }): Promise<boolean> {
-	const [result] = await tx
-		.update(media)
-		.set({ altText: text.alt, caption: text.caption })
-		.where(and(eq(media.id, id), eq(media.scope, scope), eq(media.scopeId, scopeId)));
-	return result.affectedRows > 0;
-}
-
-/** Removes some photos of a thing; returns the object keys to purge after commit. */
-export async function detach(tx: DbOrTx, scope: MediaScope, scopeId: number, ids: number[]): Promise<Purge> {
-	if (ids.length === 0) return [];
-	const rows = await tx
-		.select()
-		.from(media)
-		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId), inArray(media.id, ids)))
-		.for('update');
-	if (rows.length)
-		await tx.delete(media).where(
-			inArray(
-				media.id,
-				rows.map((r) => r.id)
-			)
-		);
-	return rows.flatMap((r) => objectKeys(r.storageKey));
-}
-
 /** Removes every photo of a thing that is being deleted; returns the object keys to purge after commit. */
-export async function deleteFor(tx: DbOrTx, scope: MediaScope, scopeId: number): Promise<Purge> {
-	const rows = await tx
+export async function deleteFor(scope: MediaScope, scopeId: number, context: Context = {}): Promise<Purge> {
+	const { db } = resolve(context);
+	const rows = await db
 		.select()
 		.from(media)
 		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
 		.for('update');
 	if (rows.length)
-		await tx.delete(media).where(
+		await db.delete(media).where(
 			inArray(
 				media.id,
 				rows.map((r) => r.id)
@@ -293,9 +246,9 @@ export async function deleteFor(tx: DbOrTx, scope: MediaScope, scopeId: number):
 }
 
 /** Discards one of the owner's own pending uploads at once (the uploader's remove button). */
-export async function discardPending(ownerId: string, id: number, deps: { db?: Database; store?: ObjectStore } = {}): Promise<boolean> {
-	const database = deps.db ?? appDb;
-	const keys = await database.transaction(async (tx) => {
+export async function discardPending(ownerId: string, id: number, context: MediaContext = {}): Promise<boolean> {
+	const { db } = resolve(context);
+	const keys = await db.transaction(async (tx) => {
 		const [row] = await tx
 			.select()
 			.from(media)
@@ -306,7 +259,7 @@ export async function discardPending(ownerId: string, id: number, deps: { db?: D
 		return objectKeys(row.storageKey);
 	});
 	if (!keys) return false;
-	await purge(keys, deps);
+	await purge(keys, context);
 	return true;
 }
 
@@ -314,11 +267,11 @@ export async function discardPending(ownerId: string, id: number, deps: { db?: D
  * Deletes pending uploads older than the time-to-live, objects first, so a row is only gone once
  * its objects are; a failure leaves the row for the next round.
  */
-export async function sweepPending(options: { now?: Date; batch?: number } & Deps = {}): Promise<number> {
-	const database = options.db ?? appDb;
-	const bucket = options.store ?? defaultStore();
-	const cutoff = new Date((options.now ?? new Date()).getTime() - PENDING_TTL_MS);
-	const rows = await database
+export async function sweepPending(options: { batch?: number } = {}, context: MediaContext = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	const bucket = context.store ?? defaultStore();
+	const cutoff = new Date(now.getTime() - PENDING_TTL_MS);
+	const rows = await db
 		.select({ id: media.id, storageKey: media.storageKey })
 		.from(media)
 		.where(and(isNull(media.scope), lt(media.createdAt, cutoff)))
@@ -327,7 +280,7 @@ export async function sweepPending(options: { now?: Date; batch?: number } & Dep
 	for (const row of rows) {
 		try {
 			await bucket.remove(objectKeys(row.storageKey));
-			await database.delete(media).where(and(eq(media.id, row.id), isNull(media.scope)));
+			await db.delete(media).where(and(eq(media.id, row.id), isNull(media.scope)));
 			removed++;
 		} catch (error) {
 			console.error(`[media] sweeping pending upload ${row.id} failed:`, error instanceof Error ? error.message : error);
@@ -336,8 +289,9 @@ export async function sweepPending(options: { now?: Date; batch?: number } & Dep
 	return removed;
 }
 
-export async function getRow(id: number, tx: DbOrTx = appDb): Promise<MediaRow | undefined> {
-	const [row] = await tx.select().from(media).where(eq(media.id, id)).limit(1);
+export async function getRow(id: number, context: Context = {}): Promise<MediaRow | undefined> {
+	const { db } = resolve(context);
+	const [row] = await db.select().from(media).where(eq(media.id, id)).limit(1);
 	return row;
 }
 
@@ -352,10 +306,9 @@ export async function photosAgain(
 	attachedTo: { scope: MediaScope; id: number } | null,
 	context: Context = {}
 ): Promise<UploaderPhoto[]> {
-	const { db: tx } = resolve(context);
 	const ids = fields.map((f) => f.id);
 	const known = new Map(
-		[...(await pendingOf(ownerId, ids, tx)), ...(attachedTo ? await listFor(attachedTo.scope, attachedTo.id, tx) : [])].map((p) => [p.id, p])
+		[...(await pendingOf(ownerId, ids, context)), ...(attachedTo ? await listFor(attachedTo.scope, attachedTo.id, context) : [])].map((p) => [p.id, p])
 	);
 	return fields.flatMap((f) => {
 		const photo = known.get(f.id);

@@ -2,18 +2,8 @@
 // decoded them: the file name and the browser's MIME type are never consulted.
 import pLimit from 'p-limit';
 import sharp, { type Metadata, type SharpOptions } from 'sharp';
+import { DomainError } from '../../errors';
 import { MAX_INPUT_PIXELS, MAX_UPLOAD_BYTES, RENDITIONS, RENDITION_SIZES, type RenditionSize } from '../../media/urls';
-
-/** A refusal the uploader can act on; `status` and `code` go into the JSON answer. */
-export class MediaError extends Error {
-	constructor(
-		readonly status: number,
-		readonly code: string,
-		message: string
-	) {
-		super(message);
-	}
-}
 
 /** Formats libvips decodes for us. SVG and PDF are refused: they are documents, not photos. */
 const ACCEPTED_FORMATS = new Set(['jpeg', 'png', 'webp', 'gif', 'avif', 'heif', 'tiff']);
@@ -48,15 +38,15 @@ async function prepareNow(bytes: Uint8Array): Promise<PreparedImage> {
 		// (libvips' own limit would throw the same error as for a file that is no image).
 		meta = await sharp(bytes, { limitInputPixels: false }).metadata();
 	} catch {
-		throw new MediaError(415, 'not-an-image', 'That file is not a picture we can read. Upload a JPEG, PNG, WebP, AVIF, HEIF, GIF or TIFF photo.');
+		throw new DomainError(415, 'not-an-image', 'That file is not a picture we can read. Upload a JPEG, PNG, WebP, AVIF, HEIF, GIF or TIFF photo.');
 	}
 	if (!meta.format || !ACCEPTED_FORMATS.has(meta.format) || !meta.width || !meta.height) {
-		throw new MediaError(415, 'not-an-image', 'That file is not a picture we can read. Upload a JPEG, PNG, WebP, AVIF, HEIF, GIF or TIFF photo.');
+		throw new DomainError(415, 'not-an-image', 'That file is not a picture we can read. Upload a JPEG, PNG, WebP, AVIF, HEIF, GIF or TIFF photo.');
 	}
 	// The header is read before any pixel is decoded, so an oversized (or "bomb") picture stops here.
 	if (meta.width * meta.height > MAX_INPUT_PIXELS) {
 		const mp = ((meta.width * meta.height) / 1e6).toFixed(1);
-		throw new MediaError(
+		throw new DomainError(
 			422,
 			'too-many-pixels',
 			`That picture is ${meta.width} × ${meta.height} pixels (${mp} megapixels); the most we take is ${MAX_INPUT_PIXELS / 1e6} megapixels. Scale it down and try again.`
@@ -82,8 +72,8 @@ async function prepareNow(bytes: Uint8Array): Promise<PreparedImage> {
 		const height = meta.autoOrient?.height ?? meta.height;
 		return { width, height, renditions };
 	} catch (error) {
-		if (error instanceof MediaError) throw error;
-		throw new MediaError(415, 'unreadable-image', 'That picture could not be read to the end; the file may be damaged. Try exporting it again.');
+		if (error instanceof DomainError) throw error;
+		throw new DomainError(415, 'unreadable-image', 'That picture could not be read to the end; the file may be damaged. Try exporting it again.');
 	}
 }
 
@@ -92,14 +82,14 @@ export function prepareImage(bytes: Uint8Array): Promise<PreparedImage> {
 	if (bytes.byteLength > MAX_UPLOAD_BYTES) {
 		return Promise.reject(tooBig(bytes.byteLength));
 	}
-	if (bytes.byteLength === 0) return Promise.reject(new MediaError(400, 'empty-file', 'That file is empty.'));
+	if (bytes.byteLength === 0) return Promise.reject(new DomainError(400, 'empty-file', 'That file is empty.'));
 	if (queue.pendingCount >= MAX_WAITING) {
-		return Promise.reject(new MediaError(503, 'busy', 'Many photos are being processed right now. Try again in a minute.'));
+		return Promise.reject(new DomainError(503, 'busy', 'Many photos are being processed right now. Try again in a minute.'));
 	}
 	return queue(() => prepareNow(bytes));
 }
 
-export function tooBig(bytes: number): MediaError {
+export function tooBig(bytes: number): DomainError {
 	const mb = (n: number) => (n / 1024 / 1024).toFixed(1);
-	return new MediaError(413, 'too-big', `That file is ${mb(bytes)} MB; photos can be at most ${mb(MAX_UPLOAD_BYTES)} MB.`);
+	return new DomainError(413, 'too-big', `That file is ${mb(bytes)} MB; photos can be at most ${mb(MAX_UPLOAD_BYTES)} MB.`);
 }

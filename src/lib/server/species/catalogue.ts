@@ -1,7 +1,7 @@
 // The shared species catalogue: search for pickers (tank plants and livestock, swap listings)
 // and look-ups by id. Anyone signed in may read it.
 import { and, asc, eq, inArray, like, or, sql } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import { ANIMAL_KINDS, type SpeciesKind } from '../../species/kinds';
 import { species, type SpeciesRow } from './schema';
 
@@ -27,7 +27,7 @@ const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => '\\' + c);
  * Species whose scientific or common names contain the words of `query`, best first: names that
  * start with it, then names with a word that starts with it, then the rest.
  */
-export async function search(query: string, options: { kind?: KindFilter; limit?: number } = {}, tx: DbOrTx = appDb): Promise<SpeciesHit[]> {
+export async function search(query: string, options: { kind?: KindFilter; limit?: number } = {}, context: Context = {}): Promise<SpeciesHit[]> {
 	const q = query.trim().replace(/\s+/g, ' ').slice(0, 60);
 	if (q.length < 1) return [];
 	const contains = `%${escapeLike(q)}%`;
@@ -38,8 +38,8 @@ export async function search(query: string, options: { kind?: KindFilter; limit?
 		WHEN ${species.scientificName} LIKE ${starts} OR ${species.commonName} LIKE ${starts} THEN 0
 		WHEN ${species.scientificName} LIKE ${wordStarts} OR ${species.commonName} LIKE ${wordStarts} THEN 1
 		ELSE 2 END`;
-	const rows = await tx
-		.select({
+	const rows = await resolve(context)
+		.db.select({
 			id: species.id,
 			kind: species.kind,
 			scientificName: species.scientificName,
@@ -60,13 +60,16 @@ export async function search(query: string, options: { kind?: KindFilter; limit?
 	return rows;
 }
 
-export async function get(id: number, tx: DbOrTx = appDb): Promise<SpeciesRow | undefined> {
-	const [row] = await tx.select().from(species).where(eq(species.id, id)).limit(1);
+/** One species of the catalogue, or undefined. */
+export async function get(id: number, context: Context = {}): Promise<SpeciesRow | undefined> {
+	const [row] = await resolve(context).db.select().from(species).where(eq(species.id, id)).limit(1);
 	return row;
 }
 
-export async function getMany(ids: number[], tx: DbOrTx = appDb): Promise<Map<number, SpeciesRow>> {
-	if (ids.length === 0) return new Map();
-	const rows = await tx.select().from(species).where(inArray(species.id, ids));
+/** Species by id in one query (ids not in the catalogue are left out), keyed by id. */
+export async function getMany(ids: number[], context: Context = {}): Promise<Map<number, SpeciesRow>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	const rows = await resolve(context).db.select().from(species).where(inArray(species.id, unique));
 	return new Map(rows.map((r) => [r.id, r]));
 }

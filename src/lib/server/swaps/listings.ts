@@ -153,7 +153,7 @@ export async function toCards(rows: CardRow[], viewer: Pick<Viewer, 'id'>, now: 
 		media.listForMany(
 			'listing',
 			rows.map((r) => r.id),
-			tx
+			{ db: tx }
 		),
 		restricted.assessMany(
 			rows.flatMap((r) => (r.speciesId === null ? [] : [r.speciesId])),
@@ -235,10 +235,10 @@ async function detail(viewer: Viewer | null, row: ListingRow, now: Date, tx: DbO
 		row.pickupAreaId === null ? [] : tx.select({ name: clubAreas.name }).from(clubAreas).where(eq(clubAreas.id, row.pickupAreaId)),
 		row.speciesId === null ? [] : tx.select({ commonName: species.commonName }).from(species).where(eq(species.id, row.speciesId)),
 		row.reservedRequesterId === null ? [] : tx.select({ displayName: users.displayName }).from(users).where(eq(users.id, row.reservedRequesterId)),
-		media.listFor('listing', row.id, tx),
+		media.listFor('listing', row.id, { db: tx }),
 		restricted.assessOne(row.speciesId, tx)
 	]);
-	const tank = row.tankId !== null ? await tanks.get(viewer, row.tankId, tx) : null;
+	const tank = row.tankId !== null ? await tanks.get(viewer, row.tankId, { db: tx }) : null;
 	const pure = toPure(row);
 	return {
 		id: row.id,
@@ -320,7 +320,7 @@ async function checkedSpecies(tx: DbOrTx, input: ListingInput): Promise<{ specie
 
 async function checkedTank(viewer: Viewer, input: ListingInput, tx: DbOrTx): Promise<number | null> {
 	if (input.kind !== 'offer' || input.tankId === null) return null;
-	const tank = await tanks.getOwn(viewer, input.tankId, tx);
+	const tank = await tanks.getOwn(viewer, input.tankId, { db: tx });
 	if (!tank) throw new SwapError(400, 'no-tank', 'Choose one of your own tanks.', 'tankId');
 	return tank.id;
 }
@@ -374,7 +374,7 @@ export async function create(viewer: Viewer, input: ListingInput, photos: PhotoF
 		});
 		const id = result.insertId;
 		await tx.insert(listingEvents).values({ listingId: id, action: 'create', actorId: viewer.id, fromState: null, toState: 'open', at: now });
-		await media.setPhotos(tx, viewer.id, 'listing', id, photos, { max: LISTING_PHOTOS_MAX, now });
+		await media.setPhotos(viewer.id, 'listing', id, photos, { max: LISTING_PHOTOS_MAX }, { db: tx, now });
 		return id;
 	});
 }
@@ -411,7 +411,7 @@ export async function update(viewer: Viewer, id: number, input: ListingInput, ph
 			if (!result.ok) throw new SwapError(result.error.code === 'bad-date' ? 400 : 409, result.error.code, result.error.message, 'availableUntil');
 			await save(tx, result);
 		}
-		return media.setPhotos(tx, viewer.id, 'listing', id, photos, { max: LISTING_PHOTOS_MAX, now });
+		return media.setPhotos(viewer.id, 'listing', id, photos, { max: LISTING_PHOTOS_MAX }, { db: tx, now });
 	});
 	await media.purge(purge).catch((error: unknown) => console.error(`[swaps] removing replaced photos of listing ${id} failed:`, error));
 }
@@ -590,13 +590,6 @@ export async function expireDue(now: Date = new Date(), database: DbOrTx = appDb
 		});
 	}
 	return expired;
-}
-
-/** Media access for scope 'listing' (registered in ../media/access.ts): the listing's own visibility. */
-export async function photoAudience(viewer: Viewer | null, listingId: number): Promise<'public' | 'restricted' | null> {
-	const row = await rowOf(listingId, appDb);
-	if (!row || !canView(viewer, row)) return null;
-	return 'restricted';
 }
 
 export interface OwnListing extends ListingCard {

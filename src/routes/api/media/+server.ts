@@ -1,46 +1,30 @@
 import { json } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
+import { endpoint } from '$lib/server/http/api';
 import * as media from '$lib/server/media';
 import { tooBig } from '$lib/server/media/process';
+import { DomainError } from '$lib/errors';
 import { MAX_UPLOAD_BYTES } from '$lib/media/urls';
 import type { RequestHandler } from './$types';
 
-const refuse = (status: number, code: string, message: string) => json({ code, message }, { status });
-
 /**
  * One photo per request, as multipart form data with a `file` field. Answers 201 with the new
- * (pending) photo's id, size and rendition URLs, or an error as { code, message }.
+ * (pending) photo's id, size and rendition URLs, or a refusal as { code, message }.
  */
-export const POST: RequestHandler = async (event) => {
+export const POST: RequestHandler = endpoint(async (event) => {
 	const viewer = requireUser(event);
 	const declared = Number(event.request.headers.get('content-length') ?? 0);
 	// Room for the multipart envelope around the file.
-	if (declared > MAX_UPLOAD_BYTES + 64 * 1024) {
-		const e = tooBig(declared);
-		return refuse(e.status, e.code, e.message);
-	}
+	if (declared > MAX_UPLOAD_BYTES + 64 * 1024) throw tooBig(declared);
 	let form: FormData;
 	try {
 		form = await event.request.formData();
 	} catch (error) {
-		const status = (error as { status?: number }).status;
-		if (status === 413) {
-			const e = tooBig(declared);
-			return refuse(413, e.code, e.message);
-		}
-		return refuse(400, 'bad-form', 'Send the photo as multipart form data with a "file" field.');
+		if ((error as { status?: number }).status === 413) throw tooBig(declared);
+		throw new DomainError(400, 'bad-form', 'Send the photo as multipart form data with a "file" field.');
 	}
 	const file = form.get('file');
-	if (!(file instanceof File)) return refuse(400, 'no-file', 'Choose a photo to upload.');
-	if (file.size > MAX_UPLOAD_BYTES) {
-		const e = tooBig(file.size);
-		return refuse(e.status, e.code, e.message);
-	}
-	try {
-		const uploaded = await media.upload(viewer.id, new Uint8Array(await file.arrayBuffer()));
-		return json(uploaded, { status: 201 });
-	} catch (error) {
-		if (error instanceof media.MediaError) return refuse(error.status, error.code, error.message);
-		throw error;
-	}
-};
+	if (!(file instanceof File)) throw new DomainError(400, 'no-file', 'Choose a photo to upload.');
+	if (file.size > MAX_UPLOAD_BYTES) throw tooBig(file.size);
+	return json(await media.upload(viewer.id, new Uint8Array(await file.arrayBuffer())), { status: 201 });
+});

@@ -1,15 +1,19 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireUser } from '$lib/server/club/guards';
+import { formAction, parseForm } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
-import * as entries from '$lib/server/journals/entries';
+import * as tankDeletion from '$lib/server/journals/tank-deletion';
 import * as social from '$lib/server/journals/social';
 import * as timeline from '$lib/server/journals/timeline';
 import * as upkeep from '$lib/server/journals/upkeep';
 import * as water from '$lib/server/journals/water';
 import { renderMarkdown } from '$lib/server/markdown';
+import { invalid, notFound } from '$lib/errors';
+import { today } from '$lib/dates';
 import { dayNumber } from '$lib/journals/calc';
 import { buildSeries, derivedFigures, latestWarnings } from '$lib/journals/water-tests';
+import { ownTankRow } from './own-tank.server';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Tests shown in the table under the charts (the charts fetch their own data). */
@@ -25,16 +29,16 @@ export const load = (async (event) => {
 		timeline.pageOf(tank.id, Number(event.url.searchParams.get('page') ?? 1)),
 		social.standingOf(viewer, tank.id),
 		water.latestOf(tank.id),
-		isOwner ? upkeep.scheduleOfTank(tank.id, now) : Promise.resolve([])
+		isOwner ? upkeep.scheduleOfTank(tank.id, { now }) : Promise.resolve([])
 	]);
 	const units = viewer?.units ?? 'metric';
 	const latest = tests[0] ?? null;
 	return {
 		tank,
-		figures: tanks.tankFigures(tank),
+		figures: tanks.tankFigures(tank, { now }),
 		descriptionHtml: tank.description ? renderMarkdown(tank.description) : '',
 		isOwner,
-		today: now.toISOString().slice(0, 10),
+		today: today('UTC', now),
 		timeline: page,
 		standing,
 		schedule,
@@ -52,7 +56,7 @@ const retireSchema = z.object({
 		.regex(/^\d{4}-\d{2}-\d{2}$/, 'Give the day as YYYY-MM-DD.')
 		.refine((d) => {
 			try {
-				return dayNumber(d) <= dayNumber(new Date());
+				return dayNumber(d) <= dayNumber(today());
 			} catch {
 				return false;
 			}
@@ -60,95 +64,69 @@ const retireSchema = z.object({
 	retiredNote: z.string().trim().max(300, 'Keep the note to 300 characters.')
 });
 
-async function ownTank(event: Parameters<Actions[string]>[0]) {
-	const viewer = requireUser(event);
-	const id = Number(event.params.id);
-	const tank = await tanks.getOwn(viewer, id);
-	if (!tank) error(404, 'We could not find that tank.');
-	return { viewer, tank };
-}
-
-const idField = (form: FormData, name: string) => {
-	const value = String(form.get(name) ?? '');
+/** An id sent in a hidden field, or null when it is not one. */
+const idField = (data: FormData, name: string) => {
+	const value = String(data.get(name) ?? '');
 	return /^[1-9]\d{0,14}$/.test(value) ? Number(value) : null;
 };
 
-/** An admire or follow by someone who may see the tank; 404 otherwise, 400 for one's own tank. */
-async function toggle(event: Parameters<Actions[string]>[0], what: 'admire' | 'follow') {
-	const viewer = requireUser(event);
-	const form = await event.request.formData();
-	const want = form.get('want') === 'on' ? true : form.get('want') === 'off' ? false : undefined;
-	try {
-		if (what === 'admire') return { admired: await social.toggleAdmire(viewer, Number(event.params.id), want) };
-		return { following: await social.toggleFollow(viewer, Number(event.params.id), want) };
-	} catch (e) {
-		if (e instanceof tanks.TankNotFound) error(404, 'We could not find that tank.');
-		if (e instanceof social.OwnTankError)
-			return fail(400, { socialError: what === 'admire' ? 'You cannot admire your own tank.' : 'You keep this tank; there is nothing to follow.' });
-		throw e;
-	}
-}
+/** Whether the member wants it on ('on'), off ('off') or toggled (anything else). */
+const wanted = (data: FormData) => (data.get('want') === 'on' ? true : data.get('want') === 'off' ? false : undefined);
 
 export const actions = {
-	admire: (event) => toggle(event, 'admire'),
-	follow: (event) => toggle(event, 'follow'),
-	done: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const taskId = idField(await event.request.formData(), 'taskId');
-		if (!taskId) return fail(400, { doneError: 'Choose a task.' });
-		try {
+	/** Admire or follow: anyone who may see the tank; "not found" otherwise, a refusal for one's own tank. */
+	admire: formAction(async (event, data) => ({ admired: await social.toggleAdmire(requireUser(event), Number(event.params.id), wanted(data)) }), {
+		id: 'social'
+	}),
+	follow: formAction(async (event, data) => ({ following: await social.toggleFollow(requireUser(event), Number(event.params.id), wanted(data)) }), {
+		id: 'social'
+	}),
+	done: formAction(
+		async (event, data) => {
+			const { viewer } = await ownTankRow(event);
+			const taskId = idField(data, 'taskId');
+			if (!taskId) throw invalid({ taskId: 'Choose a task.' });
 			await upkeep.markDone(viewer, taskId);
-		} catch (e) {
-			if (e instanceof tanks.TankNotFound) error(404, 'We could not find that task.');
-			throw e;
-		}
-		return { doneTask: taskId, tankId: tank.id };
-	},
-	undoEvent: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const eventId = idField(await event.request.formData(), 'eventId');
-		if (!eventId) error(404, 'We could not find that event.');
-		try {
-			await upkeep.removeLoggedEvent(viewer, tank.id, eventId);
-		} catch (e) {
-			if (e instanceof tanks.TankNotFound) error(404, 'We could not find that event.');
-			throw e;
-		}
+			return { doneTask: taskId };
+		},
+		{ id: 'done' }
+	),
+	undoEvent: formAction(async (event, data) => {
+		const { viewer, tank } = await ownTankRow(event);
+		const eventId = idField(data, 'eventId');
+		if (!eventId) throw notFound('We could not find that event.');
+		await upkeep.removeLoggedEvent(viewer, tank.id, eventId);
 		return { undone: eventId };
-	},
-	deleteTest: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const testId = idField(await event.request.formData(), 'testId');
-		if (!testId) error(404, 'We could not find that test.');
-		try {
-			await water.remove(viewer, tank.id, testId);
-		} catch (e) {
-			if (e instanceof tanks.TankNotFound) error(404, 'We could not find that test.');
-			throw e;
-		}
+	}),
+	deleteTest: formAction(async (event, data) => {
+		const { viewer, tank } = await ownTankRow(event);
+		const testId = idField(data, 'testId');
+		if (!testId) throw notFound('We could not find that test.');
+		await water.remove(viewer, tank.id, testId);
 		return { testDeleted: testId };
-	},
-	retire: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const form = Object.fromEntries(await event.request.formData()) as Record<string, string>;
-		const parsed = retireSchema.safeParse({ retiredOn: form.retiredOn ?? '', retiredNote: form.retiredNote ?? '' });
-		if (!parsed.success) return fail(400, { retireError: parsed.error.issues[0]?.message ?? 'Check the day.', values: form });
-		if (tank.setUpOn && parsed.data.retiredOn < tank.setUpOn) return fail(400, { retireError: 'That is before the tank was set up.', values: form });
-		await tanks.retire(viewer, tank.id, parsed.data.retiredOn, parsed.data.retiredNote);
-		redirect(303, `/journals/${tank.id}`);
-	},
-	reopen: async (event) => {
-		const { viewer, tank } = await ownTank(event);
+	}),
+	retire: formAction(
+		async (event, data) => {
+			const { viewer, tank } = await ownTankRow(event);
+			const input = parseForm(retireSchema, data);
+			if (tank.setUpOn && input.retiredOn < tank.setUpOn) throw invalid({ retiredOn: 'That is before the tank was set up.' });
+			await tanks.retire(viewer, tank.id, input.retiredOn, input.retiredNote);
+			redirect(303, `/journals/${tank.id}`);
+		},
+		{ id: 'retire' }
+	),
+	reopen: formAction(async (event) => {
+		const { viewer, tank } = await ownTankRow(event);
 		await tanks.reopen(viewer, tank.id);
 		redirect(303, `/journals/${tank.id}`);
-	},
-	delete: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const form = await event.request.formData();
-		if (String(form.get('confirmName') ?? '').trim() !== tank.name) {
-			return fail(400, { deleteError: 'Type the tank’s name exactly to delete it.' });
-		}
-		await entries.removeTank(viewer, tank.id);
-		redirect(303, '/journals?deleted=1');
-	}
+	}),
+	delete: formAction(
+		async (event, data) => {
+			const { viewer, tank } = await ownTankRow(event);
+			if (String(data.get('confirmName') ?? '').trim() !== tank.name) throw invalid({ confirmName: 'Type the tank’s name exactly to delete it.' });
+			await tankDeletion.deleteTank(viewer, tank.id);
+			redirect(303, '/journals?deleted=1');
+		},
+		{ id: 'delete' }
+	)
 } satisfies Actions;

@@ -1,9 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
+import { formAction } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
-import { MediaError } from '$lib/server/media';
 import { emptyDraft } from '$lib/journals/tank-form';
-import { readTankForm } from '../form.server';
+import { readTankForm, tankFormAgain } from '../form.server';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -12,17 +12,13 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const viewer = requireUser(event);
-		const read = await readTankForm(event.request, viewer, null);
-		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, cover: read.cover });
-		let id: number;
-		try {
-			id = await tanks.create(viewer, read.input, read.cover);
-		} catch (error) {
-			if (error instanceof MediaError) return fail(400, { errors: { cover: error.message }, draft: null, cover: [] });
-			throw error;
-		}
-		redirect(303, `/journals/${id}`);
-	}
+	default: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const { input, cover } = readTankForm(data, viewer);
+			const id = await tanks.create(viewer, input, cover);
+			redirect(303, `/journals/${id}`);
+		},
+		{ values: (data, event) => tankFormAgain(data, event, null) }
+	)
 } satisfies Actions;

@@ -1,5 +1,5 @@
 import * as showcase from '$lib/server/journals/showcase';
-import { isShowcaseSort, isVolumeBand } from '$lib/journals/showcase';
+import { isShowcaseSort, isVolumeBand } from '$lib/journals/showcase-filters';
 import type { PageServerLoad } from './$types';
 
 // Public: anyone may browse the club's public tanks.

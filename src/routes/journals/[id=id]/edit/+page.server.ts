@@ -1,15 +1,13 @@
-import { error, fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/club/guards';
+import { redirect } from '@sveltejs/kit';
+import { formAction } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
-import { MediaError } from '$lib/server/media';
 import { draftFromTank } from '$lib/journals/tank-form';
-import { readTankForm } from '../../form.server';
+import { readTankForm, tankFormAgain } from '../../form.server';
+import { ownTank } from '../own-tank.server';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
-	const viewer = requireUser(event);
-	const tank = await tanks.getOwn(viewer, Number(event.params.id));
-	if (!tank) error(404, 'We could not find that tank.');
+	const { viewer, tank } = await ownTank(event);
 	return {
 		tank: { id: tank.id, name: tank.name },
 		draft: draftFromTank(tank, viewer.units),
@@ -19,19 +17,13 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const viewer = requireUser(event);
-		const id = Number(event.params.id);
-		if (!(await tanks.getOwn(viewer, id))) error(404, 'We could not find that tank.');
-		const read = await readTankForm(event.request, viewer, id);
-		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, cover: read.cover });
-		try {
-			await tanks.update(viewer, id, read.input, read.cover);
-		} catch (e) {
-			if (e instanceof tanks.TankNotFound) error(404, 'We could not find that tank.');
-			if (e instanceof MediaError) return fail(400, { errors: { cover: e.message }, draft: null, cover: null });
-			throw e;
-		}
-		redirect(303, `/journals/${id}?saved=1`);
-	}
+	default: formAction(
+		async (event, data) => {
+			const { viewer, tank } = await ownTank(event);
+			const { input, cover } = readTankForm(data, viewer);
+			await tanks.update(viewer, tank.id, input, cover);
+			redirect(303, `/journals/${tank.id}?saved=1`);
+		},
+		{ values: (data, event) => tankFormAgain(data, event, Number(event.params.id)) }
+	)
 } satisfies Actions;

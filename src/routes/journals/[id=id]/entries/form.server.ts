@@ -1,40 +1,31 @@
-// Reading the entry form in the new and edit actions: the draft (kept on error), the validated
-// input, and the photos from the PhotoUploader (shown again after a failed save).
-import type { Viewer } from '$lib/server/club/users';
+// Reading the journal entry form in the new and edit actions: the validated input and the photos
+// from the PhotoUploader, or a refusal with a message at each field; and, for a refusal, what the
+// form shows again (the draft as typed and the photos).
+import type { RequestEvent } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/club/guards';
 import * as media from '$lib/server/media';
-import type { TankRow } from '$lib/server/journals/schema';
-import { readPhotoFields, type PhotoField } from '$lib/media/form';
-import { entryDraftFrom, parseEntryDraft, type EntryDraft, type EntryInput } from '$lib/journals/entry-form';
+import { invalid } from '$lib/errors';
+import { today } from '$lib/dates';
+import { readPhotoFields, type PhotoField, type UploaderPhoto } from '$lib/media/form';
+import { entryDraftFrom, parseEntryDraft, type EntryDraft, type EntryInput } from '$lib/journals/journal-entry-form';
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
-import type { UploaderPhoto } from '$lib/media/form';
 
-export type EntryFormRead =
-	| { ok: true; input: EntryInput; photos: PhotoField[]; draft: EntryDraft; fields: PhotoField[] }
-	| { ok: false; errors: Record<string, string>; draft: EntryDraft; photos: UploaderPhoto[] };
-
-/** The photos the form named, as the uploader shows them again after an error. */
-export async function photosAgain(viewer: Viewer, fields: PhotoField[], entryId: number | null): Promise<UploaderPhoto[]> {
-	const ids = fields.map((f) => f.id);
-	const known = new Map([...(await media.pendingOf(viewer.id, ids)), ...(entryId ? await media.listFor('entry', entryId) : [])].map((p) => [p.id, p]));
-	return fields.flatMap((f) => {
-		const photo = known.get(f.id);
-		return photo ? [{ id: photo.id, alt: f.alt, caption: f.caption, urls: photo.urls }] : [];
-	});
+/** The entry's input and photos, or a refusal with the draft's and the photos' field errors together. */
+export function readJournalEntryForm(data: FormData, tank: { setUpOn: string | null }): { input: EntryInput; photos: PhotoField[] } {
+	const photos = readPhotoFields(data, 'photos', ENTRY_PHOTOS_MAX);
+	const parsed = parseEntryDraft(entryDraftFrom(data), { today: today(), setUpOn: tank.setUpOn, hasPhotos: photos.ok && photos.photos.length > 0 });
+	if (parsed.ok && photos.ok) return { input: parsed.input, photos: photos.photos };
+	throw invalid({ ...(parsed.ok ? {} : parsed.errors), ...(photos.ok ? {} : { photos: photos.error }) });
 }
 
-export async function readEntryForm(
-	request: Request,
-	viewer: Viewer,
-	tank: Pick<TankRow, 'setUpOn'>,
-	entryId: number | null,
-	today = new Date().toISOString().slice(0, 10)
-): Promise<EntryFormRead> {
-	const form = await request.formData();
-	const draft = entryDraftFrom(form);
-	const photos = readPhotoFields(form, 'photos', ENTRY_PHOTOS_MAX);
-	const parsed = parseEntryDraft(draft, { today, setUpOn: tank.setUpOn, hasPhotos: photos.ok && photos.photos.length > 0 });
-	const errors = parsed.ok ? {} : { ...parsed.errors };
-	if (!photos.ok) errors.photos = photos.error;
-	if (!parsed.ok || !photos.ok) return { ok: false, errors, draft, photos: await photosAgain(viewer, photos.ok ? photos.photos : [], entryId) };
-	return { ok: true, input: parsed.input, photos: photos.photos, draft, fields: photos.photos };
+/** What the form shows again after a refusal: the draft as typed and the photos (of `entryId` when editing). */
+export async function journalEntryFormAgain(
+	data: FormData,
+	event: Pick<RequestEvent, 'locals' | 'url'>,
+	entryId: number | null
+): Promise<EntryDraft & { photos: UploaderPhoto[] }> {
+	const viewer = requireUser(event);
+	const fields = readPhotoFields(data, 'photos', ENTRY_PHOTOS_MAX);
+	const photos = await media.photosAgain(viewer.id, fields.ok ? fields.photos : [], entryId ? { scope: 'entry', id: entryId } : null);
+	return { ...entryDraftFrom(data), photos };
 }

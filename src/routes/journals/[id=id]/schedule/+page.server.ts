@@ -1,20 +1,14 @@
-import { error, fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/club/guards';
-import * as tanks from '$lib/server/journals/tanks';
+import { redirect } from '@sveltejs/kit';
+import { formAction } from '$lib/server/http/forms';
 import * as upkeep from '$lib/server/journals/upkeep';
+import { invalid } from '$lib/errors';
 import { defaultSchedule, parseScheduleRows, taskRowOf, taskRowsFrom } from '$lib/journals/schedule';
 import { FILTER_PARTS, TASK_KINDS } from '$lib/journals/journal-vocabulary';
+import { ownTankRow } from '../own-tank.server';
 import type { Actions, PageServerLoad } from './$types';
 
-async function ownTank(event: { locals: App.Locals; url: URL; params: { id: string } }) {
-	const viewer = requireUser(event);
-	const tank = await tanks.findOwn(viewer, Number(event.params.id));
-	if (!tank) error(404, 'We could not find that tank.');
-	return { viewer, tank };
-}
-
 export const load = (async (event) => {
-	const { tank } = await ownTank(event);
+	const { tank } = await ownTankRow(event);
 	const tasks = await upkeep.listForTank(tank.id);
 	return {
 		tank: { id: tank.id, name: tank.name },
@@ -24,17 +18,14 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const rows = taskRowsFrom(await event.request.formData());
-		const parsed = parseScheduleRows(rows, TASK_KINDS, FILTER_PARTS);
-		if (!parsed.ok) return fail(400, { errors: parsed.errors, rows });
-		try {
+	default: formAction(
+		async (event, data) => {
+			const { viewer, tank } = await ownTankRow(event);
+			const parsed = parseScheduleRows(taskRowsFrom(data), TASK_KINDS, FILTER_PARTS);
+			if (!parsed.ok) throw invalid(parsed.errors);
 			await upkeep.saveSchedule(viewer, tank.id, parsed.tasks);
-		} catch (e) {
-			if (e instanceof upkeep.ScheduleError) return fail(400, { errors: e.errors, rows });
-			throw e;
-		}
-		redirect(303, `/journals/${tank.id}?saved=1`);
-	}
+			redirect(303, `/journals/${tank.id}?saved=1`);
+		},
+		{ values: (data) => ({ rows: taskRowsFrom(data) }) }
+	)
 } satisfies Actions;

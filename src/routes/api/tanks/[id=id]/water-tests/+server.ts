@@ -1,5 +1,7 @@
 import { json } from '@sveltejs/kit';
+import { endpoint } from '$lib/server/http/api';
 import * as water from '$lib/server/journals/water';
+import { notFound } from '$lib/errors';
 import type { RequestHandler } from './$types';
 
 /**
@@ -8,8 +10,8 @@ import type { RequestHandler } from './$types';
  * private one; everyone else gets 404, signed in or not, so a tank's existence does not leak.
  * Values are in the viewer's units, so the answer is never shared between viewers.
  */
-export const GET: RequestHandler = async (event) => {
+export const GET: RequestHandler = endpoint(async (event) => {
 	const data = await water.seriesFor(event.locals.user, Number(event.params.id));
-	if (!data) return json({ message: 'We could not find that tank.' }, { status: 404 });
+	if (!data) throw notFound('We could not find that tank.');
 	return json(data, { headers: { 'cache-control': 'private, no-cache' } });
-};
+});

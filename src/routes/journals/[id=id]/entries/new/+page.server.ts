@@ -1,44 +1,32 @@
-import { error, fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/club/guards';
-import * as tanks from '$lib/server/journals/tanks';
-import * as entries from '$lib/server/journals/entries';
-import { MediaError } from '$lib/server/media';
-import { emptyEntryDraft } from '$lib/journals/entry-form';
-import { photosAgain, readEntryForm } from '../form.server';
+import { redirect } from '@sveltejs/kit';
+import { formAction } from '$lib/server/http/forms';
+import * as journalEntries from '$lib/server/journals/journal-entries';
+import { today } from '$lib/dates';
+import { emptyEntryDraft } from '$lib/journals/journal-entry-form';
+import { ownTank } from '../../own-tank.server';
+import { journalEntryFormAgain, readJournalEntryForm } from '../form.server';
 import type { Actions, PageServerLoad } from './$types';
-
-async function ownTank(event: { locals: App.Locals; url: URL; params: { id: string } }) {
-	const viewer = requireUser(event);
-	const tank = await tanks.getOwn(viewer, Number(event.params.id));
-	if (!tank) error(404, 'We could not find that tank.');
-	return { viewer, tank };
-}
 
 export const load = (async (event) => {
 	const { tank } = await ownTank(event);
-	const today = new Date().toISOString().slice(0, 10);
+	const day = today();
 	return {
 		tank: { id: tank.id, name: tank.name, setUpOn: tank.setUpOn },
 		plants: tank.plants.filter((p) => !p.removedOn).map((p) => ({ id: p.id, name: p.name })),
 		livestock: tank.livestock.filter((a) => !a.removedOn).map((a) => ({ id: a.id, name: a.name, count: a.count })),
-		draft: emptyEntryDraft(today),
-		today
+		draft: emptyEntryDraft(day),
+		today: day
 	};
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const read = await readEntryForm(event.request, viewer, tank, null);
-		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, photos: read.photos });
-		let id: number;
-		try {
-			id = await entries.create(viewer, tank.id, read.input, read.photos);
-		} catch (e) {
-			if (e instanceof entries.EntryInputError) return fail(400, { errors: e.errors, draft: read.draft, photos: await photosAgain(viewer, read.fields, null) });
-			if (e instanceof MediaError) return fail(400, { errors: { photos: e.message }, draft: read.draft, photos: await photosAgain(viewer, read.fields, null) });
-			throw e;
-		}
-		redirect(303, `/journals/${tank.id}/entries/${id}`);
-	}
+	default: formAction(
+		async (event, data) => {
+			const { viewer, tank } = await ownTank(event);
+			const { input, photos } = readJournalEntryForm(data, tank);
+			const id = await journalEntries.create(viewer, tank.id, input, photos);
+			redirect(303, `/journals/${tank.id}/entries/${id}`);
+		},
+		{ values: (data, event) => journalEntryFormAgain(data, event, null) }
+	)
 } satisfies Actions;

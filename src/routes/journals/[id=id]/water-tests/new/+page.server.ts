@@ -1,30 +1,27 @@
-import { error, fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/club/guards';
-import * as tanks from '$lib/server/journals/tanks';
+import { redirect } from '@sveltejs/kit';
+import { formAction } from '$lib/server/http/forms';
 import * as water from '$lib/server/journals/water';
+import { invalid } from '$lib/errors';
+import { today } from '$lib/dates';
 import { emptyWaterTestDraft, parseWaterTest, waterTestDraftFrom } from '$lib/journals/water-tests';
+import { ownTankRow } from '../../own-tank.server';
 import type { Actions, PageServerLoad } from './$types';
 
-async function ownTank(event: { locals: App.Locals; url: URL; params: { id: string } }) {
-	const viewer = requireUser(event);
-	const tank = await tanks.findOwn(viewer, Number(event.params.id));
-	if (!tank) error(404, 'We could not find that tank.');
-	return { viewer, tank };
-}
-
 export const load = (async (event) => {
-	const { viewer, tank } = await ownTank(event);
-	const today = new Date().toISOString().slice(0, 10);
-	return { tank: { id: tank.id, name: tank.name, setUpOn: tank.setUpOn }, draft: emptyWaterTestDraft(today), today, units: viewer.units };
+	const { viewer, tank } = await ownTankRow(event);
+	const day = today();
+	return { tank: { id: tank.id, name: tank.name, setUpOn: tank.setUpOn }, draft: emptyWaterTestDraft(day), today: day, units: viewer.units };
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { viewer, tank } = await ownTank(event);
-		const draft = waterTestDraftFrom(await event.request.formData());
-		const parsed = parseWaterTest(draft, viewer.units, { today: new Date().toISOString().slice(0, 10), notBefore: tank.setUpOn });
-		if (!parsed.ok) return fail(400, { errors: parsed.errors, draft });
-		await water.create(viewer, tank.id, parsed.input);
-		redirect(303, `/journals/${tank.id}?tested=1#latest-heading`);
-	}
+	default: formAction(
+		async (event, data) => {
+			const { viewer, tank } = await ownTankRow(event);
+			const parsed = parseWaterTest(waterTestDraftFrom(data), viewer.units, { today: today(), notBefore: tank.setUpOn });
+			if (!parsed.ok) throw invalid(parsed.errors);
+			await water.create(viewer, tank.id, parsed.input);
+			redirect(303, `/journals/${tank.id}?tested=1#latest-heading`);
+		},
+		{ values: (data) => waterTestDraftFrom(data) }
+	)
 } satisfies Actions;

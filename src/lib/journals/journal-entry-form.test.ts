@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { emptyEntryDraft, emptyEvent, entryDraftFrom, eventDraftFrom, parseEntryDraft, type EventDraft } from './entry-form';
+import { emptyEntryDraft, emptyEvent, entryDraftFrom, eventDraftFrom, parseEntryDraft, type EventDraft } from './journal-entry-form';
 
 const today = '2026-03-20';
 const ev = (kind: string, over: Partial<EventDraft> = {}): EventDraft => ({ ...emptyEvent(kind), ...over });

@@ -1,6 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { XMLParser, XMLValidator } from 'fast-xml-parser';
-import { absoluteLinks, buildAtomFeed, escapeXml, plainSummary, type FeedInput } from './feed';
+import { absoluteLinks, buildAtomFeed, escapeXml, plainSummary, type FeedInput } from './atom';
 
 const ORIGIN = 'https://riparia.test';
 const feed = (over: Partial<FeedInput> = {}): FeedInput => ({

@@ -1,17 +1,21 @@
 // Journal entries: a dated markdown text with up to twelve photos (media scope 'entry', seen by
-// whoever may see the tank) and the events it records. Events that add or take out plants and
-// animals change the tank's lists in the same transaction. Comments on entries live here too.
+// whoever may see the tank, see ./photo-access.ts) and the events it records. Events that add or
+// take out plants and animals change the tank's lists in the same transaction. Comments on
+// entries live here too. (Contest entries are another thing: ../contests/entries.ts.)
 import { and, asc, count, desc, eq, inArray, isNull, max } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import type { DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
 import type { Viewer } from '../club/users';
+import * as members from '../club/members';
 import * as audit from '../audit';
-import { users } from '../club/schema';
-import { species } from '../species/schema';
+import * as catalogue from '../species/catalogue';
 import { renderMarkdown } from '../markdown';
-import type { EntryInput, EventInput } from '../../journals/entry-form';
+import { invalid, notFound } from '../../errors';
+import { UNNAMED_MEMBER } from '../../club/names';
+import type { EntryInput, EventInput } from '../../journals/journal-entry-form';
 import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
 import {
 	entryComments,
@@ -50,24 +54,7 @@ export interface Comment {
 	removable: boolean;
 }
 
-/** Field errors found while saving (e.g. a plant taken out that is no longer in the tank). */
-export class EntryInputError extends Error {
-	constructor(readonly errors: Record<string, string>) {
-		super('The entry has mistakes.');
-	}
-}
-
-export class EntryNotFound extends Error {
-	constructor() {
-		super('No such entry.');
-	}
-}
-
-async function lockOwnTank(tx: DbOrTx, viewer: Pick<Viewer, 'id'>, tankId: number): Promise<TankRow> {
-	const [tank] = await tx.select().from(tankTable).where(eq(tankTable.id, tankId)).for('update');
-	if (!tank || tank.ownerId !== viewer.id) throw new tanks.TankNotFound();
-	return tank;
-}
+const entryNotFound = () => notFound('We could not find that entry.');
 
 async function nextPosition(tx: DbOrTx, table: typeof tankPlants | typeof tankLivestock, tankId: number): Promise<number> {
 	const [row] = await tx
@@ -80,7 +67,7 @@ async function nextPosition(tx: DbOrTx, table: typeof tankPlants | typeof tankLi
 /** Writes one event; list events change the tank's lists first. */
 async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: string, position: number, e: EventInput, index: number): Promise<void> {
 	const fail = (field: string, message: string) => {
-		throw new EntryInputError({ [`events.${index}.${field}`]: message });
+		throw invalid({ [`events.${index}.${field}`]: message });
 	};
 	const values: typeof journalEvents.$inferInsert = {
 		tankId,
@@ -101,7 +88,7 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 		note: e.note
 	};
 	if (e.kind === 'plant-added' || e.kind === 'livestock-added') {
-		const [known] = e.speciesId ? await tx.select().from(species).where(eq(species.id, e.speciesId)) : [];
+		const known = e.speciesId ? await catalogue.get(e.speciesId, { db: tx }) : undefined;
 		values.speciesId = known?.id ?? null;
 		values.speciesName = known?.scientificName ?? e.speciesName;
 		if (e.kind === 'plant-added') {
@@ -171,25 +158,20 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 }
 
 /** Creates an entry on the viewer's tank; mails followers (at most once a day each). */
-export async function create(
-	viewer: Viewer,
-	tankId: number,
-	input: EntryInput,
-	photos: PhotoField[],
-	database: DbOrTx = appDb,
-	now = new Date()
-): Promise<number> {
-	return database.transaction(async (tx) => {
-		const tank = await lockOwnTank(tx, viewer, tankId);
+export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: EntryInput, photos: PhotoField[], context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx, now };
+		const tank = await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx
 			.insert(journalEntries)
 			.values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
 		const entryId = result.insertId;
-		await media.setPhotos(tx, viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX, now });
+		await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
 		for (const [position, e] of input.events.entries()) await writeEvent(tx, tankId, entryId, input.entryOn, position, e, position);
-		await upkeep.recompute(tx, tankId, now);
-		await tanks.touch(tx, tankId, now);
-		await social.notifyFollowers(tx, tank, { id: entryId, title: input.title, entryOn: input.entryOn }, now);
+		await upkeep.recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+		await social.notifyFollowers(tank, { id: entryId, title: input.title, entryOn: input.entryOn }, inTx);
 		return entryId;
 	});
 }
@@ -200,24 +182,25 @@ export async function create(
  * removing a list event leaves the tank's list as it is (change it on the tank's form).
  */
 export async function update(
-	viewer: Viewer,
+	viewer: Pick<Viewer, 'id'>,
 	tankId: number,
 	entryId: number,
 	input: EntryInput,
 	photos: PhotoField[],
-	database: DbOrTx = appDb,
-	now = new Date()
+	context: Context = {}
 ): Promise<void> {
-	const purge: Purge = await database.transaction(async (tx) => {
-		await lockOwnTank(tx, viewer, tankId);
+	const { db, now } = resolve(context);
+	const purge: Purge = await db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx, now };
+		await tanks.lockOwn(viewer, tankId, inTx);
 		const [entry] = await tx
 			.select()
 			.from(journalEntries)
 			.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)))
 			.for('update');
-		if (!entry) throw new EntryNotFound();
+		if (!entry) throw entryNotFound();
 		await tx.update(journalEntries).set({ entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now }).where(eq(journalEntries.id, entryId));
-		const keys = await media.setPhotos(tx, viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX, now });
+		const keys = await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
 		const existing = new Map((await tx.select().from(journalEvents).where(eq(journalEvents.entryId, entryId))).map((e) => [e.id, e]));
 		const kept = new Set<number>();
 		for (const [position, e] of input.events.entries()) {
@@ -250,62 +233,53 @@ export async function update(
 		}
 		const dropped = [...existing.keys()].filter((id) => !kept.has(id));
 		if (dropped.length) await tx.delete(journalEvents).where(inArray(journalEvents.id, dropped));
-		await upkeep.recompute(tx, tankId, now);
-		await tanks.touch(tx, tankId, now);
+		await upkeep.recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
 		return keys;
 	});
 	await media.purge(purge).catch((error: unknown) => console.error(`[entries] removing dropped photos of entry ${entryId} failed:`, error));
 }
 
 /** Deletes an entry with its events, comments and photos (objects after the commit). */
-export async function remove(viewer: Viewer, tankId: number, entryId: number, database: DbOrTx = appDb, now = new Date()): Promise<void> {
-	const purge = await database.transaction(async (tx) => {
-		await lockOwnTank(tx, viewer, tankId);
+export async function remove(viewer: Pick<Viewer, 'id'>, tankId: number, entryId: number, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const purge = await db.transaction(async (tx) => {
+		const inTx = { ...context, db: tx, now };
+		await tanks.lockOwn(viewer, tankId, inTx);
 		const [entry] = await tx
 			.select()
 			.from(journalEntries)
 			.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)))
 			.for('update');
-		if (!entry) throw new EntryNotFound();
-		const keys = await media.deleteFor(tx, 'entry', entryId);
+		if (!entry) throw entryNotFound();
+		const keys = await media.deleteFor('entry', entryId, inTx);
 		await tx.delete(journalEntries).where(eq(journalEntries.id, entryId));
-		await upkeep.recompute(tx, tankId, now);
+		await upkeep.recompute(tankId, inTx);
 		return keys;
 	});
 	await media.purge(purge);
 }
 
-/** For tanks.remove({ before }): the photos of every entry of a tank (rows go with the tank). */
-export async function removeAllOfTank(tx: DbOrTx, tankId: number): Promise<Purge> {
-	const ids = (await tx.select({ id: journalEntries.id }).from(journalEntries).where(eq(journalEntries.tankId, tankId))).map((r) => r.id);
-	const keys: Purge = [];
-	for (const id of ids) keys.push(...(await media.deleteFor(tx, 'entry', id)));
-	return keys;
-}
-
-/** Deletes a tank for good with its journal and every photo. */
-export const removeTank = (viewer: Viewer, tankId: number) => tanks.remove(viewer, tankId, { before: removeAllOfTank });
-
-async function hydrate(rows: EntryRow[], tx: DbOrTx): Promise<Entry[]> {
+async function hydrate(rows: EntryRow[], context: Context): Promise<Entry[]> {
 	if (!rows.length) return [];
+	const { db } = resolve(context);
 	const ids = rows.map((r) => r.id);
-	const [photos, events, authors, comments] = await Promise.all([
-		media.listForMany('entry', ids, tx),
-		tx.select().from(journalEvents).where(inArray(journalEvents.entryId, ids)).orderBy(asc(journalEvents.position), asc(journalEvents.id)),
-		tx
-			.select({ id: users.id, name: users.displayName })
-			.from(users)
-			.where(inArray(users.id, [...new Set(rows.map((r) => r.authorId))])),
-		tx.select({ entryId: entryComments.entryId, n: count() }).from(entryComments).where(inArray(entryComments.entryId, ids)).groupBy(entryComments.entryId)
+	const [photos, events, names, comments] = await Promise.all([
+		media.listForMany('entry', ids, context),
+		db.select().from(journalEvents).where(inArray(journalEvents.entryId, ids)).orderBy(asc(journalEvents.position), asc(journalEvents.id)),
+		members.names(
+			rows.map((r) => r.authorId),
+			context
+		),
+		db.select({ entryId: entryComments.entryId, n: count() }).from(entryComments).where(inArray(entryComments.entryId, ids)).groupBy(entryComments.entryId)
 	]);
-	const names = new Map(authors.map((a) => [a.id, a.name ?? 'A member']));
 	const counts = new Map(comments.map((c) => [c.entryId, c.n]));
 	return rows.map((r) => ({
 		...r,
 		html: renderMarkdown(r.body),
 		photos: photos.get(r.id) ?? [],
 		events: events.filter((e) => e.entryId === r.id),
-		authorName: names.get(r.authorId) ?? 'A member',
+		authorName: names.get(r.authorId) ?? UNNAMED_MEMBER,
 		comments: counts.get(r.id) ?? 0
 	}));
 }
@@ -323,58 +297,60 @@ export async function get(
 	viewer: Pick<Viewer, 'id'> | null,
 	tankId: number,
 	entryId: number,
-	tx: DbOrTx = appDb
+	context: Context = {}
 ): Promise<{ tank: TankRow; entry: Entry } | null> {
-	const tank = await tanks.findVisible(viewer, tankId, tx);
+	const tank = await tanks.findVisible(viewer, tankId, context);
 	if (!tank) return null;
-	const [row] = await tx
-		.select()
+	const [row] = await resolve(context)
+		.db.select()
 		.from(journalEntries)
 		.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)));
 	if (!row) return null;
-	const [entry] = await hydrate([row], tx);
+	const [entry] = await hydrate([row], context);
 	return { tank, entry: entry! };
 }
 
 /** Entries by id, with photos and events (the caller has checked the tank's visibility). */
-export async function many(ids: number[], tx: DbOrTx = appDb): Promise<Entry[]> {
+export async function many(ids: number[], context: Context = {}): Promise<Entry[]> {
 	if (!ids.length) return [];
-	const rows = await tx.select().from(journalEntries).where(inArray(journalEntries.id, ids));
-	return hydrate(rows, tx);
+	const rows = await resolve(context).db.select().from(journalEntries).where(inArray(journalEntries.id, ids));
+	return hydrate(rows, context);
 }
 
 /** The newest entries of a tank (for its feed). */
-export async function latestOf(tankId: number, limit: number, tx: DbOrTx = appDb): Promise<Entry[]> {
-	const rows = await tx
-		.select()
+export async function latestOf(tankId: number, limit: number, context: Context = {}): Promise<Entry[]> {
+	const rows = await resolve(context)
+		.db.select()
 		.from(journalEntries)
 		.where(eq(journalEntries.tankId, tankId))
 		.orderBy(desc(journalEntries.entryOn), desc(journalEntries.createdAt), desc(journalEntries.id))
 		.limit(limit);
-	return hydrate(rows, tx);
-}
-
-/** Media access for scope 'entry' (registered in ../media/access.ts): the tank's visibility. */
-export async function photoAudience(viewer: Viewer | null, entryId: number): Promise<'public' | 'restricted' | null> {
-	const [row] = await appDb.select({ tankId: journalEntries.tankId }).from(journalEntries).where(eq(journalEntries.id, entryId));
-	if (!row) return null;
-	return tanks.photoAudience(viewer, row.tankId);
+	return hydrate(rows, context);
 }
 
 // ——— Comments ———
 
-export async function comments(viewer: Viewer | null, tank: TankRow, entryId: number, tx: DbOrTx = appDb): Promise<Comment[]> {
-	const rows = await tx
-		.select({ comment: entryComments, authorName: users.displayName })
+/** The comments on an entry of `tank`, oldest first (the caller has checked that the viewer may see the tank). */
+export async function comments(
+	viewer: Pick<Viewer, 'id' | 'role'> | null,
+	tank: Pick<TankRow, 'ownerId'>,
+	entryId: number,
+	context: Context = {}
+): Promise<Comment[]> {
+	const rows = await resolve(context)
+		.db.select()
 		.from(entryComments)
-		.innerJoin(users, eq(users.id, entryComments.authorId))
 		.where(eq(entryComments.entryId, entryId))
 		.orderBy(asc(entryComments.createdAt), asc(entryComments.id));
-	return rows.map(({ comment, authorName }) => ({
+	const names = await members.names(
+		rows.map((c) => c.authorId),
+		context
+	);
+	return rows.map((comment) => ({
 		id: comment.id,
 		entryId: comment.entryId,
 		authorId: comment.authorId,
-		authorName: authorName ?? 'A member',
+		authorName: names.get(comment.authorId) ?? UNNAMED_MEMBER,
 		html: renderMarkdown(comment.body),
 		createdAt: comment.createdAt,
 		removable: !!viewer && (viewer.id === comment.authorId || viewer.id === tank.ownerId || viewer.role === 'admin')
@@ -382,32 +358,33 @@ export async function comments(viewer: Viewer | null, tank: TankRow, entryId: nu
 }
 
 /** A member's comment on an entry of a tank they may see. */
-export async function addComment(viewer: Viewer, tankId: number, entryId: number, body: string, database: DbOrTx = appDb): Promise<number> {
+export async function addComment(viewer: Pick<Viewer, 'id'>, tankId: number, entryId: number, body: string, context: Context = {}): Promise<number> {
 	const text = body.replace(/\r\n/g, '\n').trim();
-	if (!text) throw new EntryInputError({ comment: 'Write a comment first.' });
-	if (text.length > COMMENT_MAX) throw new EntryInputError({ comment: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
-	return database.transaction(async (tx) => {
-		const found = await get(viewer, tankId, entryId, tx);
-		if (!found) throw new EntryNotFound();
+	if (!text) throw invalid({ comment: 'Write a comment first.' });
+	if (text.length > COMMENT_MAX) throw invalid({ comment: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
+	return resolve(context).db.transaction(async (tx) => {
+		const found = await get(viewer, tankId, entryId, { ...context, db: tx });
+		if (!found) throw entryNotFound();
 		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text });
 		return result.insertId;
 	});
 }
 
-/** Removes a comment: its author, the keeper of the tank, or an admin; anyone else gets EntryNotFound. */
-export async function removeComment(viewer: Viewer, tankId: number, commentId: number, database: DbOrTx = appDb): Promise<void> {
-	await database.transaction(async (tx) => {
+/** Removes a comment: its author, the keeper of the tank, or an admin (audited when it is not the author); anyone else gets "not found". */
+export async function removeComment(viewer: Pick<Viewer, 'id' | 'role'>, tankId: number, commentId: number, context: Context = {}): Promise<void> {
+	const commentNotFound = () => notFound('We could not find that comment.');
+	await resolve(context).db.transaction(async (tx) => {
 		const [row] = await tx
 			.select({ comment: entryComments, tankId: journalEntries.tankId })
 			.from(entryComments)
 			.innerJoin(journalEntries, eq(journalEntries.id, entryComments.entryId))
 			.where(and(eq(entryComments.id, commentId), eq(journalEntries.tankId, tankId)))
 			.for('update');
-		const tank = row ? await tanks.findVisible(viewer, row.tankId, tx) : null;
-		if (!row || !tank) throw new EntryNotFound();
+		const tank = row ? await tanks.findVisible(viewer, row.tankId, { ...context, db: tx }) : null;
+		if (!row || !tank) throw commentNotFound();
 		const isAuthor = row.comment.authorId === viewer.id;
 		const isKeeper = tank.ownerId === viewer.id;
-		if (!isAuthor && !isKeeper && viewer.role !== 'admin') throw new EntryNotFound();
+		if (!isAuthor && !isKeeper && viewer.role !== 'admin') throw commentNotFound();
 		await tx.delete(entryComments).where(eq(entryComments.id, commentId));
 		if (!isAuthor) {
 			await audit.record(
@@ -417,16 +394,16 @@ export async function removeComment(viewer: Viewer, tankId: number, commentId: n
 					subject: { type: 'entry_comment', id: commentId },
 					detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper }
 				},
-				{ db: tx }
+				{ ...context, db: tx }
 			);
 		}
 	});
 }
 
 /** The newest entries in tanks the viewer follows and may still see, for the dashboard. */
-export async function recentFollowed(viewer: Viewer, limit = 6, tx: DbOrTx = appDb) {
-	const rows = await tx
-		.select({ id: journalEntries.id, title: journalEntries.title, entryOn: journalEntries.entryOn, createdAt: journalEntries.createdAt, tank: tankTable })
+export async function recentFollowed(viewer: Pick<Viewer, 'id'>, limit = 6, context: Context = {}) {
+	const rows = await resolve(context)
+		.db.select({ id: journalEntries.id, title: journalEntries.title, entryOn: journalEntries.entryOn, createdAt: journalEntries.createdAt, tank: tankTable })
 		.from(tankFollows)
 		.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
 		.innerJoin(journalEntries, eq(journalEntries.tankId, tankTable.id))

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { digestContent, weekOf } from './digest';
+import { digestContent, weekOf } from './digest-content';
 
 describe('weekOf', () => {
 	test('the Monday of the ISO 8601 week (weeks start on Monday), checked against a calendar', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { compareTimeline, mergeTimeline, rowsNeeded, type TimelineKey } from './timeline';
+import { compareTimeline, mergeTimeline, rowsNeeded, type TimelineKey } from './timeline-merge';
 
 const key = (kind: TimelineKey['kind'], id: number, on: string, at = `${on}T12:00:00Z`): TimelineKey => ({ kind, id, on, at: new Date(at) });
 const sorted = (keys: TimelineKey[]) => [...keys].sort(compareTimeline);

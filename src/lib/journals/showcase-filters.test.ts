@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { bandOf, volumeBandLabel } from './showcase';
+import { bandOf, volumeBandLabel } from './showcase-filters';
 
 describe('volume bands', () => {
 	test('edges: the lower one is inside the band, the upper one in the next', () => {

@@ -44,3 +44,26 @@ export const TEMPERAMENT_LABELS: Record<Temperament, string> = {
 	aggressive: 'Aggressive',
 	predatory: 'Eats smaller tankmates'
 };
+
+/** A species as a picker shows it (GET /api/species). */
+export interface SpeciesHit {
+	id: number;
+	kind: SpeciesKind;
+	scientificName: string;
+	commonName: string;
+	otherNames: string;
+	placement: Placement | null;
+	growthHabit: GrowthHabit | null;
+	temperament: Temperament | null;
+}
+
+/**
+ * A few words on what a species is, for pickers that list plants and animals together: a plant's
+ * way of growing ("Stem plant"), an animal's kind, and its temperament when it is not peaceful
+ * ("Fish · Eats smaller tankmates").
+ */
+export function speciesTag(hit: Pick<SpeciesHit, 'kind' | 'growthHabit' | 'temperament'>): string {
+	if (hit.kind === 'plant') return hit.growthHabit ? GROWTH_HABIT_LABELS[hit.growthHabit] : SPECIES_KIND_LABELS.plant;
+	const kind = SPECIES_KIND_LABELS[hit.kind];
+	return hit.temperament && hit.temperament !== 'peaceful' ? `${kind} · ${TEMPERAMENT_LABELS[hit.temperament]}` : kind;
+}

@@ -2,21 +2,10 @@
 // and look-ups by id. Anyone signed in may read it.
 import { and, asc, eq, inArray, like, or, sql } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
-import { ANIMAL_KINDS, type SpeciesKind } from '../../species/kinds';
+import { ANIMAL_KINDS, type SpeciesHit, type SpeciesKind } from '../../species/kinds';
 import { species, type SpeciesRow } from './schema';
 
 export type { SpeciesRow };
-
-/** What a picker shows and stores. */
-export interface SpeciesHit {
-	id: number;
-	kind: SpeciesKind;
-	scientificName: string;
-	commonName: string;
-	otherNames: string;
-	placement: SpeciesRow['placement'];
-	growthHabit: SpeciesRow['growthHabit'];
-}
 
 /** A kind, or 'animal' for every kind that is not a plant. */
 export type KindFilter = SpeciesKind | 'animal';
@@ -46,7 +35,8 @@ export async function search(query: string, options: { kind?: KindFilter; limit?
 			commonName: species.commonName,
 			otherNames: species.otherNames,
 			placement: species.placement,
-			growthHabit: species.growthHabit
+			growthHabit: species.growthHabit,
+			temperament: species.temperament
 		})
 		.from(species)
 		.where(

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { draftFromForm, emptyDraft, parseTankDraft, type TankDraft } from './tank-form';
+import { draftFromForm, emptyDraft, lightingChange, parseTankDraft, type TankDraft } from './tank-form';
 
 const today = new Date('2026-03-01T12:00:00Z');
 const draft = (overrides: Partial<TankDraft> = {}): TankDraft => ({
@@ -91,5 +91,23 @@ describe('draftFromForm', () => {
 			{ id: '', label: 'second', watts: '20', hours: '6' }
 		]);
 		expect(d.filters).toEqual([]);
+	});
+});
+
+describe('lightingChange on the edit form (compareLighting; the worked example of calc/lighting.test.ts)', () => {
+	const saved = { watts: 40, litres: 100 };
+	test('70 W typed where 40 W were saved is almost twice as strong per litre, with the usual caution', () => {
+		expect(lightingChange([{ watts: '40' }, { watts: '30' }], saved)).toBe(
+			'Compared with the saved lights (40 W): these are almost twice as strong per litre. Raise the light in steps; algae use a sudden increase first (common practice).'
+		);
+	});
+	test('less light says the saved ones were stronger; about the same says so', () => {
+		expect(lightingChange([{ watts: '20' }], saved)).toBe('Compared with the saved lights (40 W): those were about twice as strong per litre.');
+		expect(lightingChange([{ watts: '41,5' }], saved)).toBe('Compared with the saved lights (40 W): about as strong per litre.');
+	});
+	test('nothing to say when unchanged, when nothing valid is typed, or for a new tank', () => {
+		expect(lightingChange([{ watts: '40' }], saved)).toBeNull();
+		expect(lightingChange([{ watts: 'bright' }, { watts: '' }], saved)).toBeNull();
+		expect(lightingChange([{ watts: '70' }], null)).toBeNull();
 	});
 });

@@ -1,7 +1,7 @@
 // The tank profile form: what the member typed (a draft of strings, in their own units) and the
 // validated, metric TankInput the domain takes. Conversions go through ./calc so every form and
 // page agrees on units and rounding.
-import { dayNumber, fromMetric, parseLength, parseVolume, roundTo, SUBSTRATE_KINDS, unitSymbol, type UnitSystem } from './calc';
+import { compareLighting, dayNumber, fromMetric, parseLength, parseVolume, roundTo, SUBSTRATE_KINDS, unitSymbol, type UnitSystem } from './calc';
 import { PLACEMENTS, type Placement } from '../species/kinds';
 import { CO2_METHODS, FLOW_UNITS, TANK_VISIBILITIES, type Co2Method, type FlowUnit, type TankVisibility } from './tank-vocabulary';
 import type { StoredTankProfile, TankInput } from './tank-input';
@@ -368,4 +368,23 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 /** Unit labels for the form's fields, in the member's system. */
 export function formUnits(units: UnitSystem) {
 	return { length: unitSymbol('length', units), volume: unitSymbol('volume', units), glass: glassUnit(units) };
+}
+
+/**
+ * How the lights as typed on the edit form compare with the saved ones. Over the same water the
+ * comparison per litre is the ratio of watts (70 W against 40 W is "almost twice"); a sudden rise
+ * in light is what algae use first. Null while nothing comparable is typed or nothing changed.
+ */
+export function lightingChange(lights: readonly Pick<LightDraft, 'watts'>[], saved: { watts: number; litres: number } | null): string | null {
+	if (!saved || saved.watts <= 0 || saved.litres <= 0) return null;
+	const watts = lights.reduce((sum, l) => {
+		const w = Number(l.watts.trim().replace(',', '.'));
+		return Number.isFinite(w) && w > 0 ? sum + w : sum;
+	}, 0);
+	if (watts <= 0 || roundTo(watts, 1) === roundTo(saved.watts, 1)) return null;
+	const c = compareLighting({ watts, litres: saved.litres }, saved);
+	const compared = `Compared with the saved lights (${roundTo(saved.watts, 1)} W)`;
+	if (c.stronger === 'same') return `${compared}: ${c.description}.`;
+	if (c.stronger === 'b') return `${compared}: those were ${c.description}.`;
+	return `${compared}: these are ${c.description}. Raise the light in steps; algae use a sudden increase first (common practice).`;
 }

@@ -6,12 +6,19 @@ import { readTankForm, tankFormAgain } from '../../form.server';
 import { ownTank } from '../own-tank.server';
 import type { Actions, PageServerLoad } from './$types';
 
+/** The saved lights' watts over the saved water volume, for the form's comparison; null without either. */
+function savedLighting(tank: tanks.Tank) {
+	const figures = tanks.tankFigures(tank);
+	return figures.lighting && figures.volume ? { watts: figures.lighting.totalWatts, litres: figures.volume.litres } : null;
+}
+
 export const load = (async (event) => {
 	const { viewer, tank } = await ownTank(event);
 	return {
 		tank: { id: tank.id, name: tank.name },
 		draft: draftFromTank(tank, viewer.units),
 		cover: tank.cover ? [{ id: tank.cover.id, alt: tank.cover.alt, caption: tank.cover.caption, urls: tank.cover.urls }] : [],
+		savedLighting: savedLighting(tank),
 		units: viewer.units
 	};
 }) satisfies PageServerLoad;

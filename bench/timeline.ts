@@ -2,6 +2,7 @@
 // item of the journal, for a long journal (2,000 entries, events and tests each). Prints figures
 // from one run on this machine; compare the ratios, not the absolute times.
 //   npx tsx bench/timeline.ts
+import { dayOf } from '../src/lib/dates';
 import { compareTimeline, mergeTimeline, rowsNeeded, type TimelineKey } from '../src/lib/journals/timeline-merge';
 
 const PER_SOURCE = 2000;
@@ -10,7 +11,7 @@ const start = Date.UTC(2020, 0, 1);
 const source = (kind: TimelineKey['kind'], offset: number): TimelineKey[] =>
 	Array.from({ length: PER_SOURCE }, (_, i) => {
 		const at = new Date(start + (i * 3 + offset) * 3_600_000 * 11);
-		return { kind, id: i + 1, on: at.toISOString().slice(0, 10), at };
+		return { kind, id: i + 1, on: dayOf(at), at };
 	}).sort(compareTimeline);
 const sources = [source('entry', 0), source('event', 1), source('test', 2)];
 const totals = sources.map((s) => s.length);

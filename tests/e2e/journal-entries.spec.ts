@@ -2,8 +2,9 @@ import { expect, test } from '@playwright/test';
 import sharp from 'sharp';
 import { makePerson } from '../helpers/people';
 import { contextFor } from './fixtures';
+import { dayOf } from '../../src/lib/dates';
 
-const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10);
+const daysAgo = (n: number) => dayOf(new Date(Date.now() - n * 86_400_000));
 const photo = (colour: string) =>
 	sharp({ create: { width: 1200, height: 800, channels: 3, background: colour } })
 		.jpeg()

@@ -3,6 +3,7 @@
 // show (every reading, the band, the danger line) and hands the component plain numbers.
 import { scaleLinear, scaleUtc } from 'd3-scale';
 import { line } from 'd3-shape';
+import { dayOf } from '../dates';
 import type { BandStatus } from './calc';
 
 export interface ChartPoint {
@@ -109,6 +110,6 @@ export function chartGeometry(input: ChartInput, options: { box?: ChartBox; floo
 		.map((value) => ({ value, y: px(y(value)) }));
 	const yTicks = y.ticks(5).map((value) => ({ value, y: px(y(value)) }));
 	const tickCount = Math.max(2, Math.min(6, Math.floor(plot.width / 90)));
-	const xTicks = x.ticks(tickCount).map((d) => ({ x: px(x(d)), on: d.toISOString().slice(0, 10) }));
+	const xTicks = x.ticks(tickCount).map((d) => ({ x: px(x(d)), on: dayOf(d) }));
 	return { points, path, band, dangerLines, yTicks, xTicks, domain, plot };
 }

@@ -1,16 +1,6 @@
 import { describe, expect, test } from 'vitest';
 import { scheduleTask } from './calc';
-import {
-	asMaintenanceTask,
-	defaultSchedule,
-	doneEventKind,
-	lastDoneOn,
-	parseScheduleRows,
-	resets,
-	taskRowsFrom,
-	tasksResetBy,
-	type TaskRule
-} from './schedule';
+import { asMaintenanceTask, defaultSchedule, doneEventKind, lastDoneOn, parseScheduleRows, resets, taskRowsFrom, dueWithin, type TaskRule } from './schedule';
 
 const water: TaskRule = { id: 1, kind: 'water-change', filterPart: null };
 const prefilter: TaskRule = { id: 2, kind: 'filter-clean', filterPart: 'prefilter' };
@@ -38,10 +28,10 @@ describe('which event resets which task (our own rules, no source)', () => {
 		expect(resets(test_, { kind: 'water-test', on: '2026-03-01' })).toBe(true);
 		expect(resets(glass, { kind: 'upkeep', on: '2026-03-01', taskId: 4 })).toBe(true);
 	});
-	test('tasksResetBy picks every matching task of the tank', () => {
+	test('a clean of the whole filter resets every filter task; a note resets none', () => {
 		const all = [water, prefilter, anyFilter, glass, other];
-		expect(tasksResetBy(all, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'whole' }).map((t) => t.id)).toEqual([2, 3]);
-		expect(tasksResetBy(all, { kind: 'note', on: '2026-03-01' })).toEqual([]);
+		expect(all.filter((t) => resets(t, { kind: 'filter-clean', on: '2026-03-01', filterPart: 'whole' })).map((t) => t.id)).toEqual([2, 3]);
+		expect(all.filter((t) => resets(t, { kind: 'note', on: '2026-03-01' }))).toEqual([]);
 	});
 	test('"done today" logs the task’s own kind, or upkeep for tests and named tasks', () => {
 		expect(doneEventKind('water-change')).toBe('water-change');
@@ -141,5 +131,19 @@ describe('the schedule form', () => {
 			'tasks.2.intervalDays',
 			'tasks.3.intervalDays'
 		]);
+	});
+});
+
+describe('dueWithin', () => {
+	const at = (status: { kind: 'due-in'; days: number } | { kind: 'due-today' } | { kind: 'overdue'; days: number }) => ({
+		task: { id: 't', tankId: 'a', label: 'x', intervalDays: 7, lastDoneOn: null },
+		nextDueOn: '2026-03-01',
+		status,
+		statusLabel: ''
+	});
+	test('overdue and due today always; due in n days only up to the limit', () => {
+		const list = [at({ kind: 'overdue', days: 5 }), at({ kind: 'due-today' }), at({ kind: 'due-in', days: 2 }), at({ kind: 'due-in', days: 3 })];
+		expect(dueWithin(list, 2).map((s) => s.status)).toEqual([list[0]!.status, list[1]!.status, list[2]!.status]);
+		expect(dueWithin(list, 0)).toHaveLength(2);
 	});
 });

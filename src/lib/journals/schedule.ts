@@ -1,5 +1,5 @@
-// Which logged events reset which upkeep tasks, and the schedule a tank starts with. The due
-// dates themselves come from ./calc/maintenance (scheduleTask, logTask).
+// Which logged events reset which upkeep tasks, when each was last done, and the schedule a tank
+// starts with. The due dates themselves come from ./calc/maintenance (scheduleTask).
 import { SUGGESTED_INTERVALS, dayNumber, isoDay, type MaintenanceTask, type ScheduledTask } from './calc';
 import type { EventKind, FilterPart, TaskKind } from './journal-vocabulary';
 
@@ -32,7 +32,6 @@ export function resets(task: TaskRule, logged: LoggedUpkeep): boolean {
 }
 
 /** The ids of the tasks one logged event resets. */
-export const tasksResetBy = <T extends TaskRule>(tasks: readonly T[], logged: LoggedUpkeep): T[] => tasks.filter((t) => resets(t, logged));
 
 /**
  * The last day a task was done, from everything logged for the tank (entries may be edited or

@@ -21,15 +21,6 @@ export function volumeBandLabel(band: VolumeBand, units: UnitSystem): string {
 	return `${v(min).replace(/ \S+( \S+)?$/, '')}–${v(max)}`;
 }
 
-/** Which band a volume falls in: lower edge included, upper edge excluded. */
-export function bandOf(litres: number): VolumeBand {
-	for (const key of VOLUME_BAND_KEYS) {
-		const { min, max } = VOLUME_BANDS[key];
-		if (litres >= min && (max === null || litres < max)) return key;
-	}
-	return 'nano';
-}
-
 export const SHOWCASE_SORTS = { newest: 'Newest', updated: 'Recently updated', admired: 'Most admired' } as const;
 export type ShowcaseSort = keyof typeof SHOWCASE_SORTS;
 export const isShowcaseSort = (v: string): v is ShowcaseSort => Object.hasOwn(SHOWCASE_SORTS, v);

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { YOUNG_TANK_DAYS, dayNumber, daysBetween, isoDay, tankAge } from './age';
+import { YOUNG_TANK_DAYS, dayNumber, isoDay, tankAge } from './age';
 
 describe('dayNumber and isoDay', () => {
 	test('1970-01-01 is day 0 and 2000-03-01 is day 11017 (Unix epoch, counted by hand: 30 years, 7 leap days, Jan + Feb 2000)', () => {
@@ -16,8 +16,9 @@ describe('dayNumber and isoDay', () => {
 		expect(() => dayNumber(new Date('nonsense'))).toThrow(/not a valid date/);
 	});
 	test('2024 is a leap year: 1 Feb to 1 Mar is 29 days (Gregorian calendar)', () => {
-		expect(daysBetween('2024-02-01', '2024-03-01')).toBe(29);
-		expect(daysBetween('2023-02-01', '2023-03-01')).toBe(28);
+		expect(dayNumber('2024-03-01') - dayNumber('2024-02-01')).toBe(29);
+		expect(dayNumber('2023-03-01') - dayNumber('2023-02-01')).toBe(28);
+		expect(isoDay(dayNumber('2024-02-28') + 1)).toBe('2024-02-29');
 	});
 });
 

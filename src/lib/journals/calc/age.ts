@@ -1,6 +1,7 @@
 // Tank age. Several suggestions (photoperiod, ammonia watch, first fish) depend on how long a tank
 // has run; ages count whole UTC calendar days so a page shows the same age on server and client.
 
+import { dayOf } from '../../dates';
 import { CalcInputError } from './validate';
 
 const DAY_MS = 86_400_000;
@@ -30,12 +31,7 @@ export function dayNumber(day: DayInput, field = 'date'): number {
 
 /** The calendar day of a day number, as 'YYYY-MM-DD'. */
 export function isoDay(dayNo: number): string {
-	return new Date(dayNo * DAY_MS).toISOString().slice(0, 10);
-}
-
-/** Whole days from one calendar day to another (negative when `to` is earlier). */
-export function daysBetween(from: DayInput, to: DayInput): number {
-	return dayNumber(to, 'end date') - dayNumber(from, 'start date');
+	return dayOf(new Date(dayNo * DAY_MS));
 }
 
 /** Under six weeks a tank is "young" (common practice, no source). */

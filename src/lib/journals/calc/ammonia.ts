@@ -53,9 +53,7 @@ export const NH3_PER_N = MOLAR_MASS.NH3 / MOLAR_MASS.N;
 export const NH3_PER_NH4 = MOLAR_MASS.NH3 / MOLAR_MASS.NH4;
 
 export const ammoniaNToNH3 = (mgN: number) => requireNonNegative('ammonia (mg/L as N)', mgN) * NH3_PER_N;
-export const ammoniaNH3ToN = (mgNH3: number) => requireNonNegative('ammonia (mg/L as NH3)', mgNH3) / NH3_PER_N;
 export const ammoniaNH4ToNH3 = (mgNH4: number) => requireNonNegative('ammonia (mg/L as NH4)', mgNH4) * NH3_PER_NH4;
-export const ammoniaNH3ToNH4 = (mgNH3: number) => requireNonNegative('ammonia (mg/L as NH3)', mgNH3) / NH3_PER_NH4;
 
 /** A total ammonia reading on any basis, re-expressed as mg/L NH3 (the basis used internally). */
 export function totalAmmoniaAsNH3(mgPerL: number, basis: AmmoniaBasis): number {

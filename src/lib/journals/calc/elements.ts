@@ -41,7 +41,6 @@ export function molarMass(composition: Composition): number {
 /** Molar masses (g/mol) of the species the calculators use, from the table above. */
 export const MOLAR_MASS = {
 	CaO: molarMass({ Ca: 1, O: 1 }),
-	CaCO3: molarMass({ Ca: 1, C: 1, O: 3 }),
 	HCO3: molarMass({ H: 1, C: 1, O: 3 }),
 	CO2: molarMass({ C: 1, O: 2 }),
 	NH3: molarMass({ N: 1, H: 3 }),

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { type MaintenanceTask, SUGGESTED_INTERVALS, describeDueStatus, logTask, scheduleAll, scheduleTask } from './maintenance';
+import { type MaintenanceTask, SUGGESTED_INTERVALS, describeDueStatus, scheduleAll, scheduleTask } from './maintenance';
 
 const now = new Date('2024-06-15T18:30:00Z');
 const task = (over: Partial<MaintenanceTask>): MaintenanceTask => ({
@@ -37,7 +37,7 @@ describe('scheduleTask', () => {
 	});
 });
 
-describe('scheduleAll and logTask', () => {
+describe('scheduleAll', () => {
 	test('sorted across tanks by due day, then tank, then task (1 Jun + 7 d = 8 Jun, 7 days late on 15 Jun)', () => {
 		const list = scheduleAll(
 			[
@@ -51,15 +51,8 @@ describe('scheduleAll and logTask', () => {
 		expect(list.map((s) => s.task.id)).toEqual(['b', 'c', 'd', 'a']);
 		expect(list.map((s) => s.statusLabel)).toEqual(['overdue by 7 days', 'overdue by 7 days', 'due today', 'due in 9 days']);
 	});
-	test('logging resets the interval from the day done', () => {
-		const overdue = task({ lastDoneOn: '2024-06-01' });
-		const done = logTask(overdue, now);
-		expect(done.lastDoneOn).toBe('2024-06-15');
-		expect(scheduleTask(done, now).status).toEqual({ kind: 'due-in', days: 7 });
-		expect(overdue.lastDoneOn).toBe('2024-06-01');
-	});
-	test('logging an older occasion late does not move the schedule back', () => {
-		expect(logTask(task({ lastDoneOn: '2024-06-10' }), '2024-06-03').lastDoneOn).toBe('2024-06-10');
+	test('done today: the interval starts again from today', () => {
+		expect(scheduleTask(task({ lastDoneOn: '2024-06-15' }), now).status).toEqual({ kind: 'due-in', days: 7 });
 	});
 	test('suggested intervals are whole days (common practice, no source)', () => {
 		for (const s of SUGGESTED_INTERVALS) expect(Number.isInteger(s.intervalDays) && s.intervalDays > 0).toBe(true);

@@ -69,16 +69,6 @@ export function scheduleAll<T extends MaintenanceTask>(tasks: readonly T[], now:
 		);
 }
 
-/**
- * The task after it is done on `doneOn`: its interval starts again from that day. Logging an
- * older occasion after a newer one (filling in the journal late) keeps the newer day.
- */
-export function logTask<T extends MaintenanceTask>(task: T, doneOn: DayInput): T {
-	const done = dayNumber(doneOn, 'day done');
-	const previous = task.lastDoneOn === null ? null : dayNumber(task.lastDoneOn, 'last done');
-	return { ...task, lastDoneOn: isoDay(previous === null ? done : Math.max(previous, done)) };
-}
-
 /** Starting intervals a member can pick from (common practice, no source), in days. */
 export const SUGGESTED_INTERVALS: readonly { label: string; intervalDays: number }[] = [
 	{ label: 'Water change', intervalDays: 7 },

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { decimalsForMagnitude, formatNumber, roundSignificant, roundTo } from './round';
+import { decimalsForMagnitude, formatNumber, roundTo } from './round';
 
 describe('roundTo', () => {
 	test('rounds half away from zero despite binary representation (1.005 is stored as 1.00499…)', () => {
@@ -15,18 +15,6 @@ describe('roundTo', () => {
 		expect(() => roundTo(Number.NaN, 1)).toThrow(/finite/);
 		expect(() => roundTo(Infinity, 1)).toThrow(/finite/);
 		expect(() => roundTo(1, 0.5)).toThrow(/integer/);
-	});
-});
-
-describe('roundSignificant', () => {
-	test('keeps the requested significant figures', () => {
-		expect(roundSignificant(1234, 2)).toBe(1200);
-		expect(roundSignificant(0.012345, 3)).toBe(0.0123);
-		expect(roundSignificant(29.58727, 3)).toBe(29.6);
-		expect(roundSignificant(0, 3)).toBe(0);
-	});
-	test('rejects zero figures', () => {
-		expect(() => roundSignificant(5, 0)).toThrow(/positive integer/);
 	});
 });
 

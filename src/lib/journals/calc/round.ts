@@ -20,14 +20,6 @@ export function roundTo(value: number, decimals: number): number {
 	return rounded === 0 ? 0 : sign * rounded;
 }
 
-/** Rounds to `figures` significant figures (1234 → 1200 at two figures). */
-export function roundSignificant(value: number, figures: number): number {
-	requireFinite('value', value);
-	if (!Number.isInteger(figures) || figures < 1) throw new RangeError(`figures must be a positive integer (got ${figures})`);
-	if (value === 0) return 0;
-	return roundTo(value, figures - 1 - Math.floor(Math.log10(Math.abs(value))));
-}
-
 /**
  * Decimals that give about `figures` significant figures without ever cutting the integer part:
  * 112.4 → 0 ("112"), 29.58 → 1 ("29.6"), 0.0372 → 4 ("0.0372"); 1234 stays "1234", not "1230",

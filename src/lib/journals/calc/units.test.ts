@@ -17,9 +17,8 @@ import {
 	litresPerHourToUsGallonsPerHour,
 	litresToImperialGallons,
 	litresToUsGallons,
-	parseFlow,
 	parseLength,
-	parseMass,
+	parseQuantity,
 	parseTemperature,
 	parseVolume,
 	poundsToKg,
@@ -109,7 +108,7 @@ describe('parsing form input into metric', () => {
 	test('a bare number is in the member’s unit', () => {
 		expect(parseLength('24', 'us')).toEqual({ ok: true, value: 60.96 });
 		expect(parseVolume('10', 'imperial')).toEqual({ ok: true, value: 45.4609 });
-		expect(parseMass('2,5', 'metric')).toEqual({ ok: true, value: 2.5 });
+		expect(parseLength('2,5', 'metric')).toEqual({ ok: true, value: 2.5 });
 		const f = parseTemperature('77', 'us');
 		expect(f.ok && f.value).toBeCloseTo(25, 12);
 	});
@@ -118,7 +117,7 @@ describe('parsing form input into metric', () => {
 		expect(parseLength('24"', 'metric')).toEqual({ ok: true, value: 60.96 });
 		expect(parseVolume('5 US gal', 'metric')).toEqual({ ok: true, value: 18.92705892 });
 		expect(parseVolume('100 L', 'us')).toEqual({ ok: true, value: 100 });
-		expect(parseFlow('100 gph', 'us')).toEqual({ ok: true, value: 378.5411784 });
+		expect(parseQuantity('flow', '100 gph', 'us')).toEqual({ ok: true, value: 378.5411784 });
 		const c = parseTemperature('25 °C', 'us');
 		expect(c).toEqual({ ok: true, value: 25 });
 	});
@@ -130,7 +129,7 @@ describe('parsing form input into metric', () => {
 		expect(parseLength('0', 'metric', { allowZero: false }).ok).toBe(false);
 		expect(parseVolume('20 gal', 'metric').ok).toBe(false);
 		expect(parseVolume('20 gal', 'imperial')).toEqual({ ok: true, value: 90.9218 });
-		expect(parseMass('3 stone', 'imperial').ok).toBe(false);
+		expect(parseQuantity('mass', '3 stone', 'imperial').ok).toBe(false);
 		expect(parseTemperature('-500 °F', 'us').ok).toBe(false);
 		expect(parseTemperature('-2', 'metric')).toEqual({ ok: true, value: -2 });
 	});

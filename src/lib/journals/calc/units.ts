@@ -99,11 +99,6 @@ export function fromMetric(quantity: Quantity, metricValue: number, system: Unit
 	return DISPLAY_UNITS[quantity][system].fromMetric(metricValue);
 }
 
-/** A value in the member's unit converted to the stored metric value. */
-export function toMetric(quantity: Quantity, value: number, system: UnitSystem): number {
-	return DISPLAY_UNITS[quantity][system].toMetric(value);
-}
-
 export interface FormatOptions {
 	/** Significant figures (default 3). */
 	figures?: number;
@@ -200,6 +195,4 @@ export function parseQuantity(quantity: Quantity, input: string, system: UnitSys
 
 export const parseLength = (input: string, system: UnitSystem, options?: ParseOptions) => parseQuantity('length', input, system, options);
 export const parseVolume = (input: string, system: UnitSystem, options?: ParseOptions) => parseQuantity('volume', input, system, options);
-export const parseMass = (input: string, system: UnitSystem, options?: ParseOptions) => parseQuantity('mass', input, system, options);
-export const parseFlow = (input: string, system: UnitSystem, options?: ParseOptions) => parseQuantity('flow', input, system, options);
 export const parseTemperature = (input: string, system: UnitSystem) => parseQuantity('temperature', input, system);

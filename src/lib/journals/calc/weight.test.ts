@@ -1,14 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import {
-	FILLED_TANK_LOAD_CAUTION,
-	SODA_LIME_GLASS_DENSITY_G_PER_CM3,
-	filledTankWeight,
-	glassMass,
-	outerFromInner,
-	substrateMassKg,
-	waterDensity,
-	waterMassKg
-} from './weight';
+import { FILLED_TANK_LOAD_CAUTION, SODA_LIME_GLASS_DENSITY_G_PER_CM3, filledTankWeight, glassMass, substrateMassKg, waterDensity, waterMassKg } from './weight';
 
 describe('waterDensity (Tanaka et al. 2001, Metrologia 38:301–309)', () => {
 	// Values of the paper's recommended table (kg/m³, air-free water, 101.325 kPa); the digits are
@@ -60,10 +51,6 @@ describe('glassMass', () => {
 	test('a thicker bottom pane', () => {
 		// 60·30·1.0 + (2·60·35 + 2·29·35)·0.5 = 1800 + 3115 = 4915 cm³.
 		expect(glassMass({ ...outer, bottomThicknessCm: 1 }).volumeCm3).toBeCloseTo(4915, 9);
-	});
-	test('outerFromInner is the inverse of innerFromOuter', () => {
-		expect(outerFromInner({ lengthCm: 59, widthCm: 29, heightCm: 35.5 }, 0.5)).toEqual({ ...outer, bottomThicknessCm: 0.5 });
-		expect(() => outerFromInner({ lengthCm: 59, widthCm: 29, heightCm: 35.5 }, -1)).toThrow(/glass thickness/);
 	});
 });
 

@@ -1,7 +1,7 @@
 // Weight of a filled tank. Members place tanks on furniture and upper floors; the total is the
 // number they need before they fill, so every part is shown and the caution travels with it.
 
-import { type OuterDimensions, type InnerDimensions, innerFromOuter } from './volume';
+import { type OuterDimensions, innerFromOuter } from './volume';
 import { CalcInputError, requireFinite, requireNonNegative, requirePositive } from './validate';
 
 /**
@@ -61,19 +61,6 @@ export interface GlassPanes {
 	/** Volume of glass in cm³. */
 	volumeCm3: number;
 	kg: number;
-}
-
-/** Outer dimensions of a box with the given inner dimensions and glass (inverse of innerFromOuter). */
-export function outerFromInner(inner: InnerDimensions, glassThicknessCm: number, bottomThicknessCm?: number): OuterDimensions {
-	const t = requirePositive('glass thickness (cm)', glassThicknessCm);
-	const bottom = bottomThicknessCm === undefined ? t : requirePositive('bottom glass thickness (cm)', bottomThicknessCm);
-	return {
-		lengthCm: requirePositive('inner length (cm)', inner.lengthCm) + 2 * t,
-		widthCm: requirePositive('inner width (cm)', inner.widthCm) + 2 * t,
-		heightCm: requirePositive('inner height (cm)', inner.heightCm) + bottom,
-		glassThicknessCm: t,
-		bottomThicknessCm: bottom
-	};
 }
 
 /**

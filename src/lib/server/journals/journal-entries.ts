@@ -4,7 +4,7 @@
 // entries live here too. (Contest entries are another thing: ../contests/entries.ts.)
 import { and, asc, count, desc, eq, inArray, isNull, max } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
-import { resolve, type Context } from '../context';
+import { resolve, within, type Context } from '../context';
 import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
@@ -161,7 +161,7 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: EntryInput, photos: PhotoField[], context: Context = {}): Promise<number> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx, now };
+		const inTx = within({ ...context, now }, tx);
 		const tank = await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx
 			.insert(journalEntries)
@@ -191,7 +191,7 @@ export async function update(
 ): Promise<void> {
 	const { db, now } = resolve(context);
 	const purge: Purge = await db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx, now };
+		const inTx = within({ ...context, now }, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const [entry] = await tx
 			.select()
@@ -244,7 +244,7 @@ export async function update(
 export async function remove(viewer: Pick<Viewer, 'id'>, tankId: number, entryId: number, context: Context = {}): Promise<void> {
 	const { db, now } = resolve(context);
 	const purge = await db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx, now };
+		const inTx = within({ ...context, now }, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const [entry] = await tx
 			.select()
@@ -363,7 +363,7 @@ export async function addComment(viewer: Pick<Viewer, 'id'>, tankId: number, ent
 	if (!text) throw invalid({ comment: 'Write a comment first.' });
 	if (text.length > COMMENT_MAX) throw invalid({ comment: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
 	return resolve(context).db.transaction(async (tx) => {
-		const found = await get(viewer, tankId, entryId, { ...context, db: tx });
+		const found = await get(viewer, tankId, entryId, within(context, tx));
 		if (!found) throw entryNotFound();
 		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text });
 		return result.insertId;
@@ -380,7 +380,7 @@ export async function removeComment(viewer: Pick<Viewer, 'id' | 'role'>, tankId:
 			.innerJoin(journalEntries, eq(journalEntries.id, entryComments.entryId))
 			.where(and(eq(entryComments.id, commentId), eq(journalEntries.tankId, tankId)))
 			.for('update');
-		const tank = row ? await tanks.findVisible(viewer, row.tankId, { ...context, db: tx }) : null;
+		const tank = row ? await tanks.findVisible(viewer, row.tankId, within(context, tx)) : null;
 		if (!row || !tank) throw commentNotFound();
 		const isAuthor = row.comment.authorId === viewer.id;
 		const isKeeper = tank.ownerId === viewer.id;
@@ -394,7 +394,7 @@ export async function removeComment(viewer: Pick<Viewer, 'id' | 'role'>, tankId:
 					subject: { type: 'entry_comment', id: commentId },
 					detail: { entryId: row.comment.entryId, authorId: row.comment.authorId, asKeeper: isKeeper }
 				},
-				{ ...context, db: tx }
+				within(context, tx)
 			);
 		}
 	});

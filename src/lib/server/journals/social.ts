@@ -1,7 +1,7 @@
 // What other members do with a tank: admire it (one each, a toggle), follow it (mail on a new
 // entry, at most one a day per tank and follower). Both need the viewer to be able to see it.
 import { and, count, eq, isNull, lte, ne, or, sql } from 'drizzle-orm';
-import { resolve, type Context } from '../context';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as members from '../club/members';
 import { enqueue } from '../mail/outbox';
@@ -25,7 +25,7 @@ async function visibleOther(viewer: Pick<Viewer, 'id'>, tankId: number, ownTank:
 /** Admires the tank, or takes the admiration back; returns whether the viewer now admires it. */
 export async function toggleAdmire(viewer: Pick<Viewer, 'id'>, tankId: number, want?: boolean, context: Context = {}): Promise<boolean> {
 	return resolve(context).db.transaction(async (tx) => {
-		await visibleOther(viewer, tankId, 'You cannot admire your own tank.', { ...context, db: tx });
+		await visibleOther(viewer, tankId, 'You cannot admire your own tank.', within(context, tx));
 		const [existing] = await tx
 			.select()
 			.from(tankAdmires)
@@ -45,7 +45,7 @@ export async function toggleAdmire(viewer: Pick<Viewer, 'id'>, tankId: number, w
 /** Follows the tank, or stops; returns whether the viewer now follows it. */
 export async function toggleFollow(viewer: Pick<Viewer, 'id'>, tankId: number, want?: boolean, context: Context = {}): Promise<boolean> {
 	return resolve(context).db.transaction(async (tx) => {
-		await visibleOther(viewer, tankId, 'You keep this tank; there is nothing to follow.', { ...context, db: tx });
+		await visibleOther(viewer, tankId, 'You keep this tank; there is nothing to follow.', within(context, tx));
 		const [existing] = await tx
 			.select()
 			.from(tankFollows)

@@ -3,7 +3,7 @@
 // every photo of it — the cover's and every entry's. Rows go in one transaction; the photos'
 // objects are deleted from the bucket once it has committed. Retiring (./tanks.ts) keeps it all.
 import { eq } from 'drizzle-orm';
-import { resolve, type Context } from '../context';
+import { resolve, within, type Context } from '../context';
 import * as media from '../media';
 import type { Purge } from '../media';
 import type { Viewer } from '../club/users';
@@ -14,7 +14,7 @@ import { lockOwn } from './tanks';
 export async function deleteTank(viewer: Pick<Viewer, 'id'>, tankId: number, context: Context = {}): Promise<void> {
 	const { db } = resolve(context);
 	const purge: Purge = await db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx };
+		const inTx = within(context, tx);
 		await lockOwn(viewer, tankId, inTx);
 		const keys: Purge = [];
 		const entryIds = (await tx.select({ id: journalEntries.id }).from(journalEntries).where(eq(journalEntries.tankId, tankId))).map((r) => r.id);

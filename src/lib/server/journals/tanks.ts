@@ -3,7 +3,7 @@
 // which takes its journal with it, is ./tank-deletion.ts.
 import { and, asc, desc, eq, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
-import { resolve, type Context } from '../context';
+import { resolve, within, type Context } from '../context';
 import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
@@ -312,7 +312,7 @@ export async function create(viewer: Pick<Viewer, 'id'>, input: TankInput, cover
 		const id = result.insertId;
 		await writeChildren(tx, id, input);
 		// A new tank has no photos yet, so nothing can be dropped here.
-		await media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, { ...context, db: tx });
+		await media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, within(context, tx));
 		return id;
 	});
 }
@@ -327,7 +327,7 @@ export async function update(viewer: Pick<Viewer, 'id'>, id: number, input: Tank
 			.set({ ...columns(input), updatedAt: now, activityAt: now })
 			.where(eq(tanks.id, id));
 		await writeChildren(tx, id, input);
-		return media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, { ...context, db: tx });
+		return media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, within(context, tx));
 	});
 	await media.purge(purge).catch((error: unknown) => console.error(`[tanks] removing replaced photos of tank ${id} failed:`, error));
 }

@@ -2,7 +2,7 @@
 // events and tests logged), what is due across a member's tanks, and "done today".
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
-import { resolve, type Context } from '../context';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import { invalid, notFound } from '../../errors';
 import { today } from '../../dates';
@@ -60,7 +60,7 @@ export async function recompute(tankId: number, context: Context = {}): Promise<
 export async function saveSchedule(viewer: Pick<Viewer, 'id'>, tankId: number, tasks: (TaskDraft & { id?: number })[], context: Context = {}): Promise<void> {
 	if (tasks.length > SCHEDULE_MAX) throw invalid({ tasks: `Keep the schedule to ${SCHEDULE_MAX} tasks.` });
 	await resolve(context).db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx };
+		const inTx = within(context, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const existing = new Set((await listForTank(tankId, inTx)).map((t) => t.id));
 		const kept: number[] = [];
@@ -130,7 +130,7 @@ export async function scheduleOfTank(tankId: number, context: Context = {}) {
 export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<number> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx, now };
+		const inTx = within({ ...context, now }, tx);
 		const [row] = await tx
 			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId })
 			.from(maintenanceTasks)
@@ -159,7 +159,7 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 export async function removeLoggedEvent(viewer: Pick<Viewer, 'id'>, tankId: number, eventId: number, context: Context = {}): Promise<void> {
 	const eventNotFound = () => notFound('We could not find that event.');
 	await resolve(context).db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx };
+		const inTx = within(context, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.delete(journalEvents).where(and(eq(journalEvents.id, eventId), eq(journalEvents.tankId, tankId), isNull(journalEvents.entryId)));
 		if (result.affectedRows === 0) throw eventNotFound();

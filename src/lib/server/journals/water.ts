@@ -1,6 +1,6 @@
 // Water tests of a tank: logged by its keeper, read by whoever may see the tank.
 import { and, desc, eq, inArray } from 'drizzle-orm';
-import { resolve, type Context } from '../context';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import { notFound } from '../../errors';
 import { buildSeries, type Series, type WaterTestInput } from '../../journals/water-tests';
@@ -18,7 +18,7 @@ export const SERIES_LIMIT = 120;
 export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: WaterTestInput, context: Context = {}): Promise<number> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx, now };
+		const inTx = within({ ...context, now }, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.insert(waterTests).values({ ...input, tankId, createdAt: now });
 		await upkeep.recompute(tankId, inTx);
@@ -30,7 +30,7 @@ export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: 
 /** Deletes a test of the viewer's own tank. */
 export async function remove(viewer: Pick<Viewer, 'id'>, tankId: number, testId: number, context: Context = {}): Promise<void> {
 	await resolve(context).db.transaction(async (tx) => {
-		const inTx = { ...context, db: tx };
+		const inTx = within(context, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.delete(waterTests).where(and(eq(waterTests.id, testId), eq(waterTests.tankId, tankId)));
 		if (result.affectedRows === 0) throw notFound('We could not find that test.');

@@ -35,8 +35,6 @@ export function registerScope(scope: MediaScope, access: ScopeAccess): void {
 	scopes.set(scope, access);
 }
 
-export const isMediaScope = (value: string): value is MediaScope => scopes.has(value);
-
 /** For writes: a photo attached to a scope nobody registered could never be seen again. */
 export function requireScope(scope: MediaScope): void {
 	if (!scopes.has(scope))

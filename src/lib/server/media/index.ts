@@ -12,7 +12,7 @@ import { prepareImage } from './process';
 import { store as defaultStore, type ObjectStore } from './storage';
 import { requireScope, type MediaScope } from './access';
 
-export { registerScope, type MediaScope, type MediaAudience, type MediaViewer, type ScopeAccess } from './access';
+export { registerScope, type MediaScope, type MediaAudience, type ScopeAccess } from './access';
 
 /** The context of media work: the database and the clock, and the bucket (tests pass a failing one). */
 export interface MediaContext extends Context {

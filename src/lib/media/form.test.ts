@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { readPhotoFields } from './form';
+import { readPhotoFields, readWithPhotos } from './form';
 
 const form = (entries: [string, string][]) => {
 	const f = new FormData();
@@ -58,5 +58,27 @@ describe('readPhotoFields', () => {
 
 	test('no fields is no photos; other prefixes are ignored', () => {
 		expect(readPhotoFields(form([['cover[0][id]', '3']]), 'photos', 6)).toEqual({ ok: true, photos: [] });
+	});
+});
+
+describe('readWithPhotos', () => {
+	const parse = (photos: { id: number }[]) =>
+		photos.length ? { ok: true as const, input: 'fine' } : { ok: false as const, errors: { body: 'Write something or add a photo.' } };
+	test('the input and the photos when both read', () => {
+		expect(readWithPhotos(form([['cover[0][id]', '3']]), 'cover', 1, parse)).toEqual({ ok: true, input: 'fine', photos: [{ id: 3, alt: '', caption: '' }] });
+	});
+	test('each mistake at its field, the photos’ at the uploader’s name', () => {
+		expect(readWithPhotos(form([]), 'photos', 2, parse)).toEqual({ ok: false, errors: { body: 'Write something or add a photo.' } });
+		expect(
+			readWithPhotos(
+				form([
+					['cover[0][id]', '3'],
+					['cover[1][id]', '4']
+				]),
+				'cover',
+				1,
+				parse
+			)
+		).toEqual({ ok: false, errors: { body: 'Write something or add a photo.', cover: 'Add at most 1 photo.' } });
 	});
 });

@@ -45,3 +45,21 @@ export function readPhotoFields(form: FormData, name: string, max: number): Phot
 	if (photos.length > max) return { ok: false, error: `Add at most ${max} photo${max === 1 ? '' : 's'}.` };
 	return { ok: true, photos };
 }
+
+export type ParsedWithPhotos<I> = { ok: true; input: I; photos: PhotoField[] } | { ok: false; errors: Record<string, string> };
+
+/**
+ * Reads a form that has an uploader field: `parse` reads the rest (it is told the photos, as some
+ * forms accept a photo instead of text), and a mistake in either puts its message at its field.
+ */
+export function readWithPhotos<I>(
+	form: FormData,
+	name: string,
+	max: number,
+	parse: (photos: PhotoField[]) => { ok: true; input: I } | { ok: false; errors: Record<string, string> }
+): ParsedWithPhotos<I> {
+	const photos = readPhotoFields(form, name, max);
+	const parsed = parse(photos.ok ? photos.photos : []);
+	if (parsed.ok && photos.ok) return { ok: true, input: parsed.input, photos: photos.photos };
+	return { ok: false, errors: { ...(parsed.ok ? {} : parsed.errors), ...(photos.ok ? {} : { [name]: photos.error }) } };
+}

@@ -4,7 +4,7 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, count, eq, inArray, isNull, lt } from 'drizzle-orm';
 import { mediaUrls, RENDITION_SIZES, type RenditionSize } from '../../media/urls';
-import type { PhotoField, UploaderPhoto } from '../../media/form';
+import { readPhotoFields, type PhotoField, type UploaderPhoto } from '../../media/form';
 import { DomainError } from '../../errors';
 import { resolve, type Context } from '../context';
 import { media, type MediaRow, type StoredRendition } from './schema';
@@ -314,4 +314,17 @@ export async function photosAgain(
 		const photo = known.get(f.id);
 		return photo ? [{ id: photo.id, alt: f.alt, caption: f.caption, urls: photo.urls }] : [];
 	});
+}
+
+/** The photos a sent form's uploader field `name` named, as photosAgain shows them after a refusal. */
+export async function photosAgainFrom(
+	form: FormData,
+	name: string,
+	max: number,
+	ownerId: string,
+	attachedTo: { scope: MediaScope; id: number } | null,
+	context: Context = {}
+): Promise<UploaderPhoto[]> {
+	const fields = readPhotoFields(form, name, max);
+	return photosAgain(ownerId, fields.ok ? fields.photos : [], attachedTo, context);
 }

@@ -6,16 +6,17 @@ import { requireUser } from '$lib/server/club/guards';
 import * as media from '$lib/server/media';
 import { invalid } from '$lib/errors';
 import { today } from '$lib/dates';
-import { readPhotoFields, type PhotoField, type UploaderPhoto } from '$lib/media/form';
+import { readWithPhotos, type PhotoField, type UploaderPhoto } from '$lib/media/form';
 import { entryDraftFrom, parseEntryDraft, type EntryDraft, type EntryInput } from '$lib/journals/journal-entry-form';
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
 
-/** The entry's input and photos, or a refusal with the draft's and the photos' field errors together. */
+/** The entry's input and photos (an entry may be photos alone), or a refusal with every field's message. */
 export function readJournalEntryForm(data: FormData, tank: { setUpOn: string | null }): { input: EntryInput; photos: PhotoField[] } {
-	const photos = readPhotoFields(data, 'photos', ENTRY_PHOTOS_MAX);
-	const parsed = parseEntryDraft(entryDraftFrom(data), { today: today(), setUpOn: tank.setUpOn, hasPhotos: photos.ok && photos.photos.length > 0 });
-	if (parsed.ok && photos.ok) return { input: parsed.input, photos: photos.photos };
-	throw invalid({ ...(parsed.ok ? {} : parsed.errors), ...(photos.ok ? {} : { photos: photos.error }) });
+	const read = readWithPhotos(data, 'photos', ENTRY_PHOTOS_MAX, (photos) =>
+		parseEntryDraft(entryDraftFrom(data), { today: today(), setUpOn: tank.setUpOn, hasPhotos: photos.length > 0 })
+	);
+	if (!read.ok) throw invalid(read.errors);
+	return { input: read.input, photos: read.photos };
 }
 
 /** What the form shows again after a refusal: the draft as typed and the photos (of `entryId` when editing). */
@@ -24,8 +25,6 @@ export async function journalEntryFormAgain(
 	event: Pick<RequestEvent, 'locals' | 'url'>,
 	entryId: number | null
 ): Promise<EntryDraft & { photos: UploaderPhoto[] }> {
-	const viewer = requireUser(event);
-	const fields = readPhotoFields(data, 'photos', ENTRY_PHOTOS_MAX);
-	const photos = await media.photosAgain(viewer.id, fields.ok ? fields.photos : [], entryId ? { scope: 'entry', id: entryId } : null);
-	return { ...entryDraftFrom(data), photos };
+	const attachedTo = entryId ? { scope: 'entry', id: entryId } : null;
+	return { ...entryDraftFrom(data), photos: await media.photosAgainFrom(data, 'photos', ENTRY_PHOTOS_MAX, requireUser(event).id, attachedTo) };
 }

@@ -1,6 +1,10 @@
 import type { Browser, BrowserContext } from '@playwright/test';
 import type { TestPerson } from '../helpers/people';
 import { SESSION_COOKIE } from '../helpers/people';
+import { registerMediaScopes } from '../../src/lib/server/media-scopes';
+
+// Specs set up their data with domain functions: photo scopes are registered as the app's hooks do.
+registerMediaScopes();
 
 /** A browser context signed in as `person` through a real database session. */
 export async function contextFor(

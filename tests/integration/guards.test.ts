@@ -160,6 +160,7 @@ const rows: Row[] = [
 	// A judge who is not on this contest's panel, and admins (who do not judge), find nothing.
 	{ path: '/judging/:contest', expect: judgesOnly(404) },
 	{ path: '/judging/:contest/:number', expect: judgesOnly(404) },
+	{ path: '/judging/:contest/:number/photos/1/thumb', expect: judgesOnly(404) },
 	{ method: 'POST', path: '/judging/:contest/:number?/conflict', form: () => ({ reason: 'guard test', confirm: 'yes' }), expect: judgesOnly(404) },
 	{ path: '/api/judging/:contest/:number/card', api: true, expect: judgeApi(404) },
 	{ method: 'PUT', path: '/api/judging/:contest/:number/card', api: true, json: blankCard, expect: judgeApi(404) },

@@ -11,7 +11,7 @@ import type { PhotoField } from '../../media/form';
 import { checkEligibility, type EligibilityCheck, type TankFacts } from '../../contests/eligibility';
 import { entriesAccepted } from '../../contests/lifecycle';
 import { ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, type EntryFields } from '../../contests/entry-form';
-import { contestCategories, contestEntries, contestJudges, contestConflicts, contests, type ContestEntryRow } from './schema';
+import { contestCategories, contestEntries, contests, type ContestEntryRow } from './schema';
 import { ContestError, ContestNotFound } from './errors';
 import { isAdminViewer, load, ruleOf, row, windowsOf, type ContestDetail } from './contests';
 import * as audit from './audit';
@@ -228,13 +228,14 @@ export async function getOwn(viewer: Viewer, entryId: number, tx: DbOrTx = appDb
 }
 
 /**
- * Media access for scope 'contest-entry' (registered in ../media/access.ts): the entrant and
- * admins always; during judging the contest's judges who did not declare a conflict on the entry
- * (a judge's own entry is theirs as entrant); everyone once the results are published.
+ * Media access for scope 'contest-entry' (registered in ../media/access.ts) at /media/<id>: the
+ * entrant and admins always, everyone once the results are published. Judges are not on this list:
+ * while judging they see an entry's photos only at addresses of the entry's number and the photo's
+ * place (judging.entryPhoto, behind judging's access check), so they never learn a photo's id.
  */
 export async function photoAudience(viewer: Viewer | null, entryId: number): Promise<'public' | 'restricted' | null> {
 	const [found] = await appDb
-		.select({ entrantId: contestEntries.entrantId, contestId: contestEntries.contestId, state: contests.state })
+		.select({ entrantId: contestEntries.entrantId, state: contests.state })
 		.from(contestEntries)
 		.innerJoin(contests, eq(contests.id, contestEntries.contestId))
 		.where(eq(contestEntries.id, entryId))
@@ -242,16 +243,5 @@ export async function photoAudience(viewer: Viewer | null, entryId: number): Pro
 	if (!found) return null;
 	if (found.state === 'published' || found.state === 'archived') return 'public';
 	if (!viewer) return null;
-	if (viewer.id === found.entrantId || isAdminViewer(viewer)) return 'restricted';
-	if (found.state !== 'judging' || viewer.role !== 'judge') return null;
-	const [onPanel] = await appDb
-		.select({ judgeId: contestJudges.judgeId })
-		.from(contestJudges)
-		.where(and(eq(contestJudges.contestId, found.contestId), eq(contestJudges.judgeId, viewer.id)));
-	if (!onPanel) return null;
-	const [conflict] = await appDb
-		.select({ judgeId: contestConflicts.judgeId })
-		.from(contestConflicts)
-		.where(and(eq(contestConflicts.entryId, entryId), eq(contestConflicts.judgeId, viewer.id)));
-	return conflict ? null : 'restricted';
+	return viewer.id === found.entrantId || isAdminViewer(viewer) ? 'restricted' : null;
 }

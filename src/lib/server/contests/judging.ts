@@ -1,8 +1,9 @@
 // Judging: the panel, the judges' blind view of the entries, their conflicts and their cards.
 //
 // Blind judging is decided here: a judge reaches an entry only through access() below, by its
-// number, and what comes back (BlindEntry) carries no entrant, no tank name or id, no photo owner
-// and no entry id. A judge never reaches their own entry or one they declared a conflict on.
+// number, and what comes back (BlindEntry) carries no entrant, no tank name or id, no photo owner,
+// photo id or photo text, no entry id and no exact figure of the tank. A judge never reaches their
+// own entry or one they declared a conflict on.
 import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
 import { db as appDb, type DbOrTx } from '../db';
 import type { Viewer } from '../club/users';
@@ -12,14 +13,16 @@ import { absoluteUrl } from '../config';
 import { enqueue } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
 import type { RenditionSize } from '../../media/urls';
+import type { UnitSystem } from '../../club/roles';
 import { cardsReopenable, type ContestState } from '../../contests/lifecycle';
 import { checkDraftFields, emptyCardFields, normaliseFields, type CardFields, type CardSave } from '../../contests/card';
 import { validateScorecard } from '../../contests/scoring';
 import { judgingDuties } from '../../contests/readiness';
+import { aspectOf, blindFigures, type BlindFigures } from '../../contests/blind';
 import type { ServerCard } from '../../contests/autosave';
-import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type ContestEntryRow } from './schema';
+import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type CategoryRow, type ContestEntryRow } from './schema';
 import { ContestError, ContestNotFound } from './errors';
-import { assertAdmin, load, rubricOf, row, windowsOf, type ContestDetail } from './contests';
+import { assertAdmin, load, rubricOf, row, ruleOf, windowsOf, type ContestDetail } from './contests';
 import { SCOPE } from './entries';
 import * as people from './people';
 import * as audit from './audit';
@@ -71,41 +74,74 @@ export async function unassign(viewer: Viewer, contestId: number, judgeId: strin
 
 // ---- What a judge sees ---------------------------------------------------------------------
 
-/** A photo without its owner: what a judge may know of it. */
+/**
+ * A photo of an entry as a judge gets it. Entry photos are rows of their own (an upload attaches to
+ * one thing only, so no tank photo is ever an entry photo), but /media/<id> would still give the
+ * judge the photo's id, and ids are handed out in upload order: an entry photo's id sits next to
+ * the ids of the photos its entrant put on their public journal in the same sitting, and those
+ * pages name the tank. So judges get each photo at an address made of the entry's number and the
+ * photo's place, /judging/<contest>/<number>/photos/<n>/<size>, checked by access() like
+ * everything else a judge reaches (see entryPhoto below). The entrant's description and caption are
+ * left out too: they are often copied from the tank's journal, and would match it. The shape is an
+ * aspect ratio; the pixel size of a cropped photo could be matched as well.
+ */
 export interface BlindPhoto {
-	id: number;
-	alt: string;
-	caption: string;
-	width: number;
-	height: number;
+	/** 1 for the full-front view. */
+	position: number;
 	urls: Record<RenditionSize, string>;
-	renditions: Record<RenditionSize, { width: number; height: number }>;
+	/** Width ÷ height, to two decimals. */
+	aspect: number;
+	alt: string;
 }
 
-export const blindPhoto = (p: media.Photo): BlindPhoto => ({
-	id: p.id,
-	alt: p.alt,
-	caption: p.caption,
-	width: p.width,
-	height: p.height,
-	urls: p.urls,
-	renditions: {
-		thumb: { width: p.renditions.thumb.width, height: p.renditions.thumb.height },
-		medium: { width: p.renditions.medium.width, height: p.renditions.medium.height },
-		large: { width: p.renditions.large.width, height: p.renditions.large.height }
-	}
-});
+export const blindPhotoUrl = (contestId: number, number: number, position: number, size: RenditionSize) =>
+	`/judging/${contestId}/${number}/photos/${position}/${size}`;
 
-/** An entry as a judge sees it: by number, with photos, statement and the tank's figures only. */
+function blindPhotos(contestId: number, number: number, photos: media.Photo[]): BlindPhoto[] {
+	return photos.map((p, i) => {
+		const position = i + 1;
+		const url = (size: RenditionSize) => blindPhotoUrl(contestId, number, position, size);
+		return {
+			position,
+			urls: { thumb: url('thumb'), medium: url('medium'), large: url('large') },
+			aspect: aspectOf(p.width, p.height),
+			alt: `Entry ${number}, photo ${position} of ${photos.length}${position === 1 ? ': the whole tank from the front' : ''}`
+		};
+	});
+}
+
+/**
+ * An entry as a judge sees it: by number, with photos and statement, and of the tank only what
+ * judging needs in a form no tank page shows: the category's rule it met and banded figures
+ * ($lib/contests/blind). Exact figures would match the tank's page.
+ */
 export interface BlindEntry {
 	number: number;
 	categoryName: string;
 	categoryDescription: string;
+	/** Without pictures: a picture's address in the statement could name the tank. */
 	statementHtml: string;
+	/** Pictures of the statement that were left out. */
+	statementPictures: number;
 	photos: BlindPhoto[];
-	litres: number | null;
-	volumeSource: 'measured' | 'estimated' | null;
-	ageWeeks: number | null;
+	figures: BlindFigures;
+}
+
+/**
+ * What judges read of an entry besides its photos: the statement without pictures and the tank's
+ * figures as the category's rule and bands in the reader's units. Also shown to the entrant, so they
+ * see what the judges see.
+ */
+export function blindText(
+	entry: Pick<ContestEntryRow, 'statement' | 'litres' | 'ageWeeks'>,
+	category: Pick<CategoryRow, 'minLitres' | 'maxLitres' | 'minAgeWeeks'>,
+	units: UnitSystem
+): Pick<BlindEntry, 'statementHtml' | 'statementPictures' | 'figures'> {
+	return {
+		statementHtml: renderMarkdown(entry.statement, { images: false }),
+		statementPictures: (renderMarkdown(entry.statement).match(/<img\b/g) ?? []).length,
+		figures: blindFigures(entry, ruleOf(category), units)
+	};
 }
 
 export type CellState = 'empty' | 'draft' | 'submitted' | 'conflicted';
@@ -282,17 +318,22 @@ export async function scorecardPage(viewer: Viewer, contestId: number, number: n
 			number,
 			categoryName: category.name,
 			categoryDescription: category.description,
-			statementHtml: renderMarkdown(entry.statement),
-			photos: photos.map(blindPhoto),
-			litres: entry.litres,
-			volumeSource: entry.volumeSource,
-			ageWeeks: entry.ageWeeks
+			...blindText(entry, category, viewer.units),
+			photos: blindPhotos(contest.id, number, photos)
 		},
 		rubric: contest.criteria.map((c) => ({ id: String(c.id), label: c.label, guidance: c.guidance, maxPoints: c.maxPoints, weight: c.weight })),
 		previous: at > 0 ? cells[at - 1]!.number : null,
 		next: at >= 0 && at < cells.length - 1 ? cells[at + 1]!.number : null,
 		panelNotes: notes
 	};
+}
+
+/** One rendition of an entry's photo (`position` 1 is the full-front view), for a judge who may reach the entry. */
+export async function entryPhoto(viewer: Viewer, contestId: number, number: number, position: number, size: RenditionSize): Promise<media.RenditionHandle> {
+	const { entry } = await access(appDb, viewer, contestId, number);
+	const rendition = await media.renditionAt(SCOPE, entry.id, position - 1, size);
+	if (!rendition) throw new ContestNotFound('No such photo.');
+	return rendition;
 }
 
 // ---- Cards ---------------------------------------------------------------------------------

@@ -1,7 +1,7 @@
 // The media pipeline: uploads, the photos attached to things, and their removal. Features that
 // own photos (tanks, journal entries, swap listings, contest entries) call these functions inside
 // their own transactions and register a visibility check in ./access.ts.
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { and, asc, count, eq, inArray, isNull, lt } from 'drizzle-orm';
 import { db as appDb, type Database, type DbOrTx } from '../db';
 import { mediaUrls, RENDITION_SIZES, type RenditionSize } from '../../media/urls';
@@ -334,6 +334,36 @@ export async function sweepPending(options: { now?: Date; batch?: number } & Dep
 		}
 	}
 	return removed;
+}
+
+/** One rendition of one photo, ready to serve: an entity tag for it and a way to read its bytes. */
+export interface RenditionHandle {
+	etag: string;
+	open(): ReturnType<ObjectStore['get']>;
+}
+
+/** A rendition of a photo known by its row, served at /media/<id>/<size>. */
+export function renditionOfRow(row: Pick<MediaRow, 'id' | 'storageKey'>, size: RenditionSize, deps: Deps = {}): RenditionHandle {
+	return { etag: `"${row.id}-${size}"`, open: () => (deps.store ?? defaultStore()).get(objectKey(row.storageKey, size)) };
+}
+
+/**
+ * A rendition of the photo at `index` (0-based, in display order) of a thing, for a feature that
+ * serves a thing's photos under addresses of its own rather than /media/<id> (blind judging). Its
+ * entity tag is a digest of the file's key, so it names neither the photo's id nor its owner.
+ */
+export async function renditionAt(scope: MediaScope, scopeId: number, index: number, size: RenditionSize, deps: Deps = {}): Promise<RenditionHandle | null> {
+	if (!Number.isInteger(index) || index < 0) return null;
+	const [row] = await (deps.db ?? appDb)
+		.select({ storageKey: media.storageKey })
+		.from(media)
+		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
+		.orderBy(asc(media.position), asc(media.id))
+		.limit(1)
+		.offset(index);
+	if (!row) return null;
+	const digest = createHash('sha256').update(objectKey(row.storageKey, size)).digest('base64url').slice(0, 32);
+	return { etag: `"${digest}"`, open: () => (deps.store ?? defaultStore()).get(objectKey(row.storageKey, size)) };
 }
 
 export async function getRow(id: number, tx: DbOrTx = appDb): Promise<MediaRow | undefined> {

@@ -1,9 +1,9 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
 import * as entries from '$lib/server/contests/entries';
+import * as judging from '$lib/server/contests/judging';
 import { ContestError } from '$lib/server/contests/errors';
 import { feedback } from '$lib/server/contests/review';
-import { renderMarkdown } from '$lib/server/markdown';
 import { windowsOf } from '$lib/server/contests/contests';
 import { entriesAccepted } from '$lib/contests/lifecycle';
 import type { Actions, PageServerLoad } from './$types';
@@ -22,10 +22,12 @@ export const load = (async (event) => {
 			categoryName: entry.categoryName,
 			tankName: entry.tankName,
 			tankId: entry.entrantId === viewer.id ? entry.tankId : null,
-			litres: entry.litres,
-			volumeSource: entry.volumeSource,
-			ageWeeks: entry.ageWeeks,
-			statementHtml: renderMarkdown(entry.statement),
+			// What the judges read: the statement without pictures, the figures as the rule and bands.
+			judged: judging.blindText(
+				entry,
+				contest.categories.find((c) => c.id === entry.categoryId)!,
+				viewer.units
+			),
 			photos: entry.photos.map((p) => ({
 				id: p.id,
 				alt: p.alt,

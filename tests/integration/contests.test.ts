@@ -136,7 +136,7 @@ describe('blind judging', () => {
 		const served = await request(blind('large'), { cookie: judge.cookie, accept: 'image/webp' });
 		expect(served.status).toBe(200);
 		expect(served.headers.get('content-type')).toBe('image/webp');
-		expect(served.headers.get('cache-control')).toBe('private, max-age=86400');
+		expect(served.headers.get('cache-control')).toBe('private, max-age=60, must-revalidate');
 		expect(served.headers.get('etag')).not.toContain(String(stored.id));
 		const again = await request(blind('large'), { cookie: judge.cookie, headers: { 'if-none-match': served.headers.get('etag')! } });
 		expect(again.status).toBe(304);

@@ -13,7 +13,7 @@ import * as reports from '../../src/lib/server/swaps/reports';
 import * as notifications from '../../src/lib/server/swaps/notifications';
 import { SwapError } from '../../src/lib/server/swaps/errors';
 import { haversineDistance } from '../../src/lib/swaps/distance';
-import { formatDistance } from '../../src/lib/swaps/display';
+import { DISTANCE_BANDS, formatDistance, radiusReachMetres, shownMetres } from '../../src/lib/swaps/display';
 import { EMPTY_FILTER, type BoardFilter } from '../../src/lib/swaps/board';
 import type { LatLng } from '../../src/lib/club/location';
 import { request } from '../helpers/http';
@@ -46,21 +46,22 @@ function gridAround(centre: LatLng, latSteps: number, lngSteps: number): LatLng[
 }
 
 describe('swap board: nearby search', () => {
-	test('a listing just inside the radius is found and one just outside is not, by the exact haversine figure, nearest first', async () => {
+	test('a radius keeps every listing shown at that distance or nearer, by the haversine figure rounded as shown, nearest first', async () => {
 		// Over the South Atlantic, away from every other test's listings.
 		const centre = { lat: -41.37, lng: -22.61 };
-		const radius = 25_000;
-		// Of the grid points, the farthest still within 25 km and the nearest beyond it, by the
-		// haversine function checked against @turf/distance in src/lib/swaps/distance.test.ts
-		// (here about 12 m inside and 3 m outside; a 25 km circle passes enough grid points).
+		// "Within 25 km" keeps what is shown as "about 25 km" (up to 27.5 km) and nothing shown as
+		// "about 30 km". Of the grid points, the farthest still below 27.5 km and the nearest beyond
+		// it, by the haversine function checked against @turf/distance in src/lib/swaps/distance.test.ts
+		// (within a few tens of metres of the edge; the circle passes enough grid points).
+		const reach = radiusReachMetres(25);
 		const scored = gridAround(centre, 40, 50).map((p) => ({ p, d: haversineDistance(centre, p) }));
-		const inside = scored.filter((s) => s.d <= radius).sort((a, b) => b.d - a.d)[0]!;
-		const outside = scored.filter((s) => s.d > radius).sort((a, b) => a.d - b.d)[0]!;
-		expect(inside.d).toBeGreaterThan(radius - 30);
-		expect(outside.d).toBeLessThan(radius + 30);
+		const inside = scored.filter((s) => s.d < reach).sort((a, b) => b.d - a.d)[0]!;
+		const outside = scored.filter((s) => s.d >= reach).sort((a, b) => a.d - b.d)[0]!;
+		expect(inside.d).toBeGreaterThan(reach - 30);
+		expect(outside.d).toBeLessThan(reach + 30);
 		const closestTo = (metres: number) => [...scored].sort((a, b) => Math.abs(a.d - metres) - Math.abs(b.d - metres))[0]!;
 		const near = closestTo(3_000);
-		const middle = closestTo(12_000);
+		const middle = closestTo(11_000);
 
 		const viewer = await memberAt(centre, 'nearby-viewer');
 		const tag = token('nearby');
@@ -76,10 +77,10 @@ describe('swap board: nearby search', () => {
 		expect(within25.total).toBe(3);
 		const within50 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
 		expect(within50.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside, made.outside]);
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near]);
-		// Labels are coarse: "about 25 km" either side of the edge.
+		// About 11 km away is shown as "about 10 km", so it is within 10 km.
+		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near, made.middle]);
 		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => formatDistance(s.d).text));
-		expect(within50.rows.slice(2).map((r) => r.distance?.text)).toEqual(['about 25 km', 'about 25 km']);
+		expect(within50.rows.map((r) => r.distance?.text)).toEqual(['about 3 km', 'about 10 km', 'about 25 km', 'about 30 km']);
 
 		// The SQL distance is the haversine figure to well under a millimetre.
 		for (const [name, spot] of Object.entries({ inside, outside })) {
@@ -101,6 +102,28 @@ describe('swap board: nearby search', () => {
 		const page = await (await request(`/swaps?q=${tag}&radius=25`, { cookie: viewer.cookie })).text();
 		expect(page).toContain(`${tag} inside`);
 		expect(page).not.toContain(`${tag} outside`);
+	});
+
+	test('the SQL figure is the pure one, at every band edge and its neighbouring doubles', async () => {
+		const next = (x: number, delta: bigint) => new Float64Array(new BigInt64Array([new BigInt64Array(new Float64Array([x]).buffer)[0]! + delta]).buffer)[0]!;
+		const edges = DISTANCE_BANDS.flatMap((b) => (Number.isFinite(b.below) ? [b.below] : []));
+		// Where a figure changes within a band: halfway between two of its figures.
+		const halves = DISTANCE_BANDS.flatMap(({ below, step }, i) => {
+			if (step === 0) return [];
+			const first = Math.ceil((DISTANCE_BANDS[i - 1]!.below - step / 2) / step);
+			return Array.from({ length: 12 }, (_, k) => (first + k) * step + step / 2).filter((m) => m < below);
+		});
+		expect(halves.slice(0, 3)).toEqual([1_500, 2_500, 3_500]);
+		let seed = 5;
+		const random = () => (seed = (seed * 48271) % 2147483647) / 2147483647;
+		const values = [...edges, ...halves].flatMap((m) => [next(m, -1n), m, next(m, 1n)]).concat(Array.from({ length: 60 }, () => random() ** 3 * 2e7));
+		for (let i = 0; i < values.length; i += 100) {
+			const chunk = values.slice(i, i + 100);
+			// A DOUBLE literal (exponent notation), as the haversine expression gives a DOUBLE.
+			const columns = chunk.map((v, k) => sql`${board.shownSql(sql.raw(`${v.toExponential(17)}`))} AS ${sql.raw(`s${k}`)}`);
+			const [rows] = (await db.execute(sql`SELECT ${sql.join(columns, sql`, `)}`)) as unknown as [Record<string, number | string>[]];
+			expect(chunk.map((_, k) => Number(rows[0]![`s${k}`]))).toEqual(chunk.map(shownMetres));
+		}
 	});
 
 	test('across the antimeridian, and without a location the board is newest first with no distances', async () => {

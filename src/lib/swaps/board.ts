@@ -66,3 +66,24 @@ export function boardQueryString(filter: BoardFilter): string {
 }
 
 export const pageCount = (total: number) => Math.max(1, Math.ceil(total / BOARD_PAGE_SIZE));
+
+/**
+ * The radius filter, on the shown figure (metres, from $lib/swaps/display's `shownMetres`) and
+ * nothing finer: "within 5 km" keeps every listing shown as "about 5 km" or nearer, and no other.
+ */
+export const withinRadius = (shown: number, radiusKm: RadiusKm | null): boolean => radiusKm === null || shown <= radiusKm * 1000;
+
+export interface NearbyRow {
+	id: number;
+	/** The shown figure in metres (0: "under 2 km"). */
+	shown: number;
+	createdAt: Date;
+}
+
+/**
+ * The board's order for a member with a location: by shown figure, then newest first. Never by
+ * the exact distance: two listings shown alike keep the same order wherever the viewer stands.
+ */
+export function nearbyOrder(a: NearbyRow, b: NearbyRow): number {
+	return a.shown - b.shown || b.createdAt.getTime() - a.createdAt.getTime() || b.id - a.id;
+}

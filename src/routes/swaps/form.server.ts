@@ -78,6 +78,6 @@ export function draftOf(listing: ListingDetail): ListingDraft {
 		termsNote: listing.termsNote,
 		pickupAreaId: listing.pickupAreaId === null ? '' : String(listing.pickupAreaId),
 		availableUntil: dateOnly(listing.availableUntil),
-		tankId: listing.tankId === null ? '' : String(listing.tankId)
+		tankId: listing.tank ? String(listing.tank.id) : ''
 	};
 }

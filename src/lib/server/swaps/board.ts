@@ -1,16 +1,18 @@
 // The board: open listings near the viewer. The search never scans every listing in JavaScript:
 // SQL pre-filters on the bounding box of the radius (indexed state, lat, lng of the listing,
-// two longitude ranges across ±180°, every longitude near a pole), computes the exact haversine
-// distance for the rows in the box, filters and orders by it, and pages with LIMIT/OFFSET.
-// Without a location the board is newest first.
-import { and, count, desc, eq, gt, like, notExists, or, sql, type SQL } from 'drizzle-orm';
+// two longitude ranges across ±180°, every longitude near a pole), computes the haversine
+// distance once for each row in the box, turns it into the figure members are shown
+// ($lib/swaps/display) and filters and orders by that figure alone (then newest first), and pages
+// with LIMIT/OFFSET. The exact distance never leaves this query: what a member can learn by moving
+// their own point is the shown figures and nothing finer. Without a location the board is newest first.
+import { and, count, desc, eq, gt, like, notExists, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
 import { db as appDb, type DbOrTx } from '../db';
 import { clubAreas, users } from '../club/schema';
 import type { Viewer } from '../club/users';
 import { species } from '../species/schema';
 import type { LatLng } from '../../club/location';
 import { boundingBox, MEAN_EARTH_RADIUS_M } from '../../swaps/distance';
-import { formatDistance } from '../../swaps/display';
+import { DISTANCE_BANDS, labelOf, radiusReachMetres } from '../../swaps/display';
 import { BOARD_PAGE_SIZE, pageCount, type BoardFilter } from '../../swaps/board';
 import { listings, memberBlocks } from './schema';
 import { cardColumns, toCards, type ListingCard } from './listings';
@@ -58,13 +60,27 @@ export function boxSql(point: LatLng, radiusMetres: number): SQL {
 
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => '\\' + c);
 
-/** Every condition of the board for this viewer and filter (the radius only with a point). */
+/**
+ * The figure members are shown for a distance `d` in metres, as $lib/swaps/display's shownMetres
+ * computes it (the same bands, the same operations): 0 for "under 2 km", else
+ * FLOOR((d + step/2) / step) * step in the band of `d`.
+ */
+export function shownSql(d: SQL | SQL.Aliased | AnyColumn): SQL<number> {
+	const cases = DISTANCE_BANDS.map(({ below, step }) => {
+		const figure = step === 0 ? sql`0` : sql`FLOOR((${d} + ${decimal(step / 2)}) / ${decimal(step)}) * ${decimal(step)}`;
+		return Number.isFinite(below) ? sql`WHEN ${d} < ${decimal(below)} THEN ${figure}` : sql`ELSE ${figure}`;
+	});
+	return sql<number>`(CASE ${sql.join(cases, sql` `)} END)`;
+}
+
+/**
+ * Every condition of the board on the listing itself for this viewer and filter. From a point with
+ * a radius, that is the bounding box of the radius's reach (every distance still shown within the
+ * radius); the shown figure itself is compared on the derived table (see `nearby`).
+ */
 export function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng | null): SQL {
 	const conditions: (SQL | undefined)[] = [eq(listings.state, 'open'), gt(listings.availableUntil, now)];
-	if (point && filter.radiusKm !== null) {
-		const metres = filter.radiusKm * 1000;
-		conditions.push(boxSql(point, metres), sql`${distanceSql(point)} <= ${decimal(metres)}`);
-	}
+	if (point && filter.radiusKm !== null) conditions.push(boxSql(point, radiusReachMetres(filter.radiusKm)));
 	if (filter.category) conditions.push(eq(listings.category, filter.category));
 	if (filter.kind) conditions.push(eq(listings.kind, filter.kind));
 	if (filter.speciesId !== null) conditions.push(eq(listings.speciesId, filter.speciesId));
@@ -84,44 +100,91 @@ export function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now:
 	return and(...conditions)!;
 }
 
-/** The page query itself (also used by the benchmark to EXPLAIN it). */
-export function boardQuery(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng | null) {
-	const distance = point ? distanceSql(point) : sql<null>`NULL`;
-	return database
-		.select({ ...cardColumns, distance: sql<number | null>`${distance}`.as('distance') })
+/**
+ * The board from a point: its listings with their card columns and distance as a derived table
+ * (so the distance is computed once per row), their shown figure, and the radius as a condition
+ * on that figure.
+ */
+function nearby(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng) {
+	const inner = database
+		.select({ ...cardColumns, distance: sql<number>`${distanceSql(point)}`.as('distance') })
 		.from(listings)
 		.innerJoin(users, eq(users.id, listings.ownerId))
 		.leftJoin(clubAreas, eq(clubAreas.id, listings.pickupAreaId))
 		.leftJoin(species, eq(species.id, listings.speciesId))
 		.where(boardWhere(viewer, filter, now, point))
-		.orderBy(...(point ? [sql`distance`, desc(listings.id)] : [desc(listings.createdAt), desc(listings.id)]))
+		.as('nearby');
+	const shown = shownSql(inner.distance);
+	return { inner, shown, within: filter.radiusKm === null ? undefined : sql`${shown} <= ${decimal(filter.radiusKm * 1000)}` };
+}
+
+/**
+ * One page of the board from a point: by shown figure, then newest first, never by the exact
+ * distance (also used by the benchmark to EXPLAIN it).
+ */
+export function nearbyQuery(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng) {
+	const { inner, shown, within } = nearby(database, viewer, filter, now, point);
+	// The card columns of the derived table (a subquery's fields are only reached through it, one by one).
+	const columns = Object.fromEntries(Object.keys(cardColumns).map((key) => [key, inner[key as keyof typeof cardColumns]])) as Pick<
+		typeof inner,
+		keyof typeof cardColumns
+	>;
+	return database
+		.select({ ...columns, shown: sql<number>`${shown}`.mapWith(Number).as('shown') })
+		.from(inner)
+		.where(within)
+		.orderBy(sql`shown`, desc(inner.createdAt), desc(inner.id))
 		.limit(BOARD_PAGE_SIZE)
 		.offset((filter.page - 1) * BOARD_PAGE_SIZE);
 }
 
-/** One page of the board for the viewer, nearest first when they have a location. */
+/** One page of the board without a location: newest first. */
+export function newestQuery(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date) {
+	return database
+		.select(cardColumns)
+		.from(listings)
+		.innerJoin(users, eq(users.id, listings.ownerId))
+		.leftJoin(clubAreas, eq(clubAreas.id, listings.pickupAreaId))
+		.leftJoin(species, eq(species.id, listings.speciesId))
+		.where(boardWhere(viewer, filter, now, null))
+		.orderBy(desc(listings.createdAt), desc(listings.id))
+		.limit(BOARD_PAGE_SIZE)
+		.offset((filter.page - 1) * BOARD_PAGE_SIZE);
+}
+
+/** How many listings the board has for this filter, counted as the page query selects them. */
+async function total(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng | null): Promise<number> {
+	if (point) {
+		const { inner, within } = nearby(database, viewer, filter, now, point);
+		const [row] = await database.select({ n: count() }).from(inner).where(within);
+		return row?.n ?? 0;
+	}
+	const [row] = await database
+		.select({ n: count() })
+		.from(listings)
+		.leftJoin(species, eq(species.id, listings.speciesId))
+		.where(boardWhere(viewer, filter, now, null));
+	return row?.n ?? 0;
+}
+
+/** One page of the board for the viewer: nearest first by the shown figure when they have a location. */
 export async function search(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, options: { now?: Date; database?: DbOrTx } = {}): Promise<BoardPage> {
 	const database = options.database ?? appDb;
 	const now = options.now ?? new Date();
 	const point = await viewerPoint(viewer.id, database);
-	const [rows, [totalRow]] = await Promise.all([
-		boardQuery(database, viewer, filter, now, point),
-		database
-			.select({ n: count() })
-			.from(listings)
-			.leftJoin(species, eq(species.id, listings.speciesId))
-			.where(boardWhere(viewer, filter, now, point))
+	const [rows, n] = await Promise.all([
+		point ? nearbyQuery(database, viewer, filter, now, point) : newestQuery(database, viewer, filter, now),
+		total(database, viewer, filter, now, point)
 	]);
 	const cards = await toCards(rows, viewer, now, database);
-	const total = totalRow?.n ?? 0;
 	return {
 		rows: cards.map((card, i) => {
-			const metres = rows[i]!.distance;
-			return { ...card, distance: metres === null ? null : formatDistance(Number(metres)) };
+			const row = rows[i]!;
+			return { ...card, distance: 'shown' in row ? labelOf(row.shown) : null };
 		}),
-		total,
+		total: n,
 		page: filter.page,
-		pages: pageCount(total),
+		pages: pageCount(n),
 		order: point ? 'distance' : 'newest'
 	};
 }

@@ -212,8 +212,8 @@ export interface ListingDetail {
 	termsText: string;
 	pickupAreaId: number | null;
 	pickupLabel: string;
+	/** The tank it came from, only when the viewer may see that tank (its owner always may). */
 	tank: { id: number; name: string } | null;
-	tankId: number | null;
 	/** As members see it (a lapsed open listing is expired). */
 	state: ListingState;
 	availableUntil: Date;
@@ -238,6 +238,7 @@ async function detail(viewer: Viewer | null, row: ListingRow, now: Date, tx: DbO
 		media.listFor('listing', row.id, tx),
 		restricted.assessOne(row.speciesId, tx)
 	]);
+	// The journals decide who may see the tank; anyone else learns nothing of it, not even its id.
 	const tank = row.tankId !== null ? await tanks.get(viewer, row.tankId, tx) : null;
 	const pure = toPure(row);
 	return {
@@ -260,7 +261,6 @@ async function detail(viewer: Viewer | null, row: ListingRow, now: Date, tx: DbO
 		pickupAreaId: row.pickupAreaId,
 		pickupLabel: pickupLabel(areaRow[0]?.name ?? null, row.pickupNear),
 		tank: tank ? { id: tank.id, name: tank.name } : null,
-		tankId: row.tankId,
 		state: effectiveState(pure, now),
 		availableUntil: row.availableUntil,
 		createdAt: row.createdAt,

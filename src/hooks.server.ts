@@ -10,6 +10,7 @@ import { jobs } from '$lib/server/jobs';
 import { startJobs } from '$lib/server/jobs/runner';
 import { defaultTransport } from '$lib/server/mail/transport';
 import { pool } from '$lib/server/db';
+import { countQueries } from '$lib/server/db/query-count';
 import { safeRedirectPath } from '$lib/club/redirect';
 
 const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'];
@@ -92,7 +93,7 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle: Handle = sequence(onlyOurSignInForm, authHandle, resolveViewer, askForDisplayName, securityHeaders);
+export const handle: Handle = sequence(countQueries, onlyOurSignInForm, authHandle, resolveViewer, askForDisplayName, securityHeaders);
 
 /** Last resort: log the error under an id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

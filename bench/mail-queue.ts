@@ -12,7 +12,12 @@ const RECIPIENTS = 2000;
 const TOPIC = 'bench:mail-queue';
 const { db, close } = connect();
 try {
-	const people = await db.select({ email: users.email, name: users.displayName }).from(users).where(isNotNull(users.email)).orderBy(asc(users.createdAt)).limit(RECIPIENTS);
+	const people = await db
+		.select({ email: users.email, name: users.displayName })
+		.from(users)
+		.where(isNotNull(users.email))
+		.orderBy(asc(users.createdAt))
+		.limit(RECIPIENTS);
 	if (people.length < RECIPIENTS) throw new Error(`Only ${people.length} members to mail; the large club has not been seeded.`);
 	const later = new Date(Date.now() + 365 * 86_400_000);
 	const mails: QueuedMail[] = people.map((p) => ({

@@ -14,7 +14,7 @@
 //   npm run bench -- --no-cluster        skip the cluster comparison
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { cpus } from 'node:os';
+import { cpus, loadavg } from 'node:os';
 import { existsSync, mkdirSync, openSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import mysql from 'mysql2/promise';
@@ -24,7 +24,7 @@ import { bringUp, dataRoot, portsFor, root, runNodeScript, type Stack } from '..
 import { spawnManaged, waitForPort, type ManagedProcess } from '../scripts/lib/system';
 import { startCluster, type Cluster } from '../scripts/lib/cluster';
 import { drawAquarium } from '../scripts/seed/lib/images';
-import { BENCH_SEED_MARKER, SIZES } from './seed/large';
+import { BENCH_SEED_MARKER, SIZES } from './seed/sizes';
 import { findTargets, type PageKey, type Target } from './lib/targets';
 import { load, queriesFor, type LoadResult } from './lib/load';
 import { largestContentfulPaint, launch, weigh, type PageWeight } from './lib/browser';
@@ -89,7 +89,8 @@ function jsonChild<T>(script: string, env: NodeJS.ProcessEnv, args: string[] = [
 		maxBuffer: 16 * 1024 * 1024
 	});
 	const last = result.stdout.trim().split('\n').pop() ?? '';
-	if (result.status !== 0 || !last.startsWith('{')) throw new SetupError(`${script} failed (exit ${result.status}).`, result.stdout.slice(-2000) || 'See the errors above.');
+	if (result.status !== 0 || !last.startsWith('{'))
+		throw new SetupError(`${script} failed (exit ${result.status}).`, result.stdout.slice(-2000) || 'See the errors above.');
 	return JSON.parse(last) as T;
 }
 
@@ -99,12 +100,12 @@ async function largePhoto(): Promise<string> {
 	if (existsSync(file)) return file;
 	const [width, height] = [6000, 4000];
 	const drawn = await drawAquarium(24, { width, height, format: 'png' });
-	const grain = await sharp({ create: { width, height, channels: 3, background: '#000', noise: { type: 'gaussian', mean: 0, sigma: 6 } } })
+	const grain = await sharp({ create: { width, height, channels: 3, background: '#000', noise: { type: 'gaussian', mean: 0, sigma: 14 } } })
 		.png()
 		.toBuffer();
 	const jpeg = await sharp(drawn)
 		.composite([{ input: grain, blend: 'add' }])
-		.jpeg({ quality: 88 })
+		.jpeg({ quality: 90 })
 		.toBuffer();
 	writeFileSync(file, jpeg);
 	return file;
@@ -125,7 +126,11 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal
 
 async function startInstance(name: string, env: NodeJS.ProcessEnv, port: number) {
 	const log = join(HOME, `${name.replaceAll(' ', '-')}.log`);
-	const proc = spawnManaged(name, process.execPath, [join(root, 'build', 'index.js')], { cwd: root, env: { ...env, PORT: String(port) }, logFile: openSync(log, 'w') });
+	const proc = spawnManaged(name, process.execPath, [join(root, 'build', 'index.js')], {
+		cwd: root,
+		env: { ...env, PORT: String(port) },
+		logFile: openSync(log, 'w')
+	});
 	managed.push(proc);
 	if (!(await waitForPort(port, 30_000))) throw new SetupError(`The ${name} did not start on port ${port}.`, `See ${log}.`);
 	return {
@@ -160,7 +165,9 @@ try {
 	const fingerprintFile = join(HOME, 'seed-fingerprint');
 	const reuse = existsSync(fingerprintFile) && readFileSync(fingerprintFile, 'utf8').trim() === fingerprint;
 	if (!reuse) {
-		note(existsSync(fingerprintFile) ? 'The schema or the seed changed since the last bench run: seeding afresh.' : 'First bench run here: seeding the large club.');
+		note(
+			existsSync(fingerprintFile) ? 'The schema or the seed changed since the last bench run: seeding afresh.' : 'First bench run here: seeding the large club.'
+		);
 		rmSync(fingerprintFile, { force: true });
 	}
 
@@ -173,13 +180,18 @@ try {
 	// The demo club on its own, for the statements per request at demo size.
 	const demoUrl = env.DATABASE_URL!.replace(/\/riparia_bench$/, `/${DEMO_DATABASE}`);
 	const demoEnv = { ...env, DATABASE_URL: demoUrl };
-	await db.admin([...(reuse ? [] : [`DROP DATABASE IF EXISTS \`${DEMO_DATABASE}\``]), `CREATE DATABASE IF NOT EXISTS \`${DEMO_DATABASE}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`]);
+	await db.admin([
+		...(reuse ? [] : [`DROP DATABASE IF EXISTS \`${DEMO_DATABASE}\``]),
+		`CREATE DATABASE IF NOT EXISTS \`${DEMO_DATABASE}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`
+	]);
 	step('Preparing the demo-sized database…');
 	runNodeScript('scripts/migrate.ts', demoEnv, 'Migrating the demo-sized database');
 	runNodeScript('scripts/seed.ts', demoEnv, 'Seeding the demo-sized database');
 
 	const conn = await mysql.createConnection({ uri: env.DATABASE_URL! });
-	const [marker] = (await conn.query('SELECT name FROM seed_run WHERE name = ?', [`${BENCH_SEED_MARKER}:${fingerprint.slice(0, 40)}`])) as unknown as [unknown[]];
+	const [marker] = (await conn.query('SELECT name FROM seed_run WHERE name = ?', [`${BENCH_SEED_MARKER}:${fingerprint.slice(0, 40)}`])) as unknown as [
+		unknown[]
+	];
 	await conn.end();
 	let seed: { reused: boolean; totalMs: number; steps: { what: string; rows: number; ms: number }[] };
 	if (marker.length > 0) {
@@ -212,11 +224,17 @@ try {
 		const demoTarget = demoTargets.find((t) => t.key === target.key)!;
 		const small = await queriesFor(demo.url + demoTarget.path, demoTarget.cookie);
 		if (small.status !== 200) warn(`${demoTarget.path} answered ${small.status} on the demo club.`);
-		results.push({ key: target.key, label: target.label, path: target.path, queries: { demo: small.status === 200 ? small.queries.at(-1)! : null, large: large.queries.at(-1)! } });
+		results.push({
+			key: target.key,
+			label: target.label,
+			path: target.path,
+			queries: { demo: small.status === 200 ? small.queries.at(-1)! : null, large: large.queries.at(-1)! }
+		});
 	}
 	await demo.stop();
 
 	const loadOptions = { connections: 10, warmupSeconds: 2, seconds: options.seconds };
+	const loadBefore = loadavg()[0]!;
 	const measured = largeTargets.filter((t) => t.key !== 'viewer');
 	step(`Load: ${loadOptions.connections} connections, ${loadOptions.warmupSeconds} s warm-up then ${loadOptions.seconds} s per page, one instance…`);
 	for (const target of measured) {
@@ -284,11 +302,15 @@ try {
 	const lcpMedian = [...lcp].sort((a, b) => a - b)[Math.floor(lcp.length / 2)] ?? NaN;
 	const commit = gitCommit();
 	const date = new Date().toISOString().slice(0, 10);
+	const machineLoad = { before: loadBefore, after: loadavg()[0]! };
 	const lines: string[] = [];
 	const row = (cells: string[], widths: number[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join('  ');
 	const widths = [44, 7, 7, 7, 6, 6, 11, 7, 7, 8, 6];
 	lines.push(
 		`Riparia bench ${date}, commit ${commit.id}${commit.dirty ? ' (with uncommitted changes)' : ''}, Node ${process.version}, ${cpus().length} cores, loopback, ${loadOptions.connections} connections`
+	);
+	lines.push(
+		`Machine load average (1 min) ${machineLoad.before.toFixed(1)} when the load runs began, ${machineLoad.after.toFixed(1)} at the end: other work on this machine shares its cores`
 	);
 	lines.push(
 		`Large club: ${SIZES.members} members, ${SIZES.tanks} tanks, ${SIZES.entries} entries, ${SIZES.waterTests} water tests, ${SIZES.comments} comments, ${SIZES.listings} listings, ${SIZES.conversations} conversations, ${SIZES.contests}×${SIZES.entriesPerContest} contest entries, ${SIZES.photos} photos`
@@ -335,7 +357,11 @@ try {
 	for (const r of results) {
 		if (!r.one || r.key === 'baseline') continue;
 		const share = r.one.requestsPerSecond / baseRps;
-		targets.push({ what: `${r.label}: ≥ ${TARGETS.share * 100} % of the baseline's req/s`, figure: `${(share * 100).toFixed(0)} %`, ok: share >= TARGETS.share });
+		targets.push({
+			what: `${r.label}: ≥ ${TARGETS.share * 100} % of the baseline's req/s`,
+			figure: `${(share * 100).toFixed(0)} %`,
+			ok: share >= TARGETS.share
+		});
 		targets.push({ what: `${r.label}: p99 ≤ ${TARGETS.p99Ms} ms`, figure: `${r.one.p99} ms`, ok: r.one.p99 <= TARGETS.p99Ms });
 	}
 	for (const r of results) {
@@ -347,14 +373,26 @@ try {
 		});
 	}
 	const viewer = results.find((r) => r.key === 'viewer')!;
-	targets.push({ what: `resolving a signed-in viewer: ≤ ${TARGETS.viewerQueries} statement`, figure: String(viewer.queries.large), ok: viewer.queries.large <= TARGETS.viewerQueries });
+	targets.push({
+		what: `resolving a signed-in viewer: ≤ ${TARGETS.viewerQueries} statement`,
+		figure: String(viewer.queries.large),
+		ok: viewer.queries.large <= TARGETS.viewerQueries
+	});
 	for (const r of results) {
 		if (!r.weight) continue;
-		targets.push({ what: `${r.label}: ≤ ${TARGETS.jsKb} kB JS (gzip)`, figure: `${kb(r.weight.jsGzipBytes).toFixed(1)} kB`, ok: kb(r.weight.jsGzipBytes) <= TARGETS.jsKb });
+		targets.push({
+			what: `${r.label}: ≤ ${TARGETS.jsKb} kB JS (gzip)`,
+			figure: `${kb(r.weight.jsGzipBytes).toFixed(1)} kB`,
+			ok: kb(r.weight.jsGzipBytes) <= TARGETS.jsKb
+		});
 	}
 	targets.push({ what: `tank page LCP ≤ ${TARGETS.lcpMs} ms`, figure: `${lcpMedian.toFixed(0)} ms`, ok: lcpMedian <= TARGETS.lcpMs });
 	targets.push({ what: `24 MP photo renditions ≤ ${TARGETS.photoMs} ms`, figure: `${photo.msMedian.toFixed(0)} ms`, ok: photo.msMedian <= TARGETS.photoMs });
-	targets.push({ what: `24 MP photo peak RSS ≤ ${TARGETS.photoRssMb} MB`, figure: `${photo.peakRssMb.toFixed(0)} MB`, ok: photo.peakRssMb <= TARGETS.photoRssMb });
+	targets.push({
+		what: `24 MP photo peak RSS ≤ ${TARGETS.photoRssMb} MB`,
+		figure: `${photo.peakRssMb.toFixed(0)} MB`,
+		ok: photo.peakRssMb <= TARGETS.photoRssMb
+	});
 	targets.push({ what: `mail to 2,000 members queued ≤ ${TARGETS.mailMs} ms`, figure: `${mail.msMedian.toFixed(0)} ms`, ok: mail.msMedian <= TARGETS.mailMs });
 	lines.push('');
 	lines.push(`Targets (${targets.filter((t) => t.ok).length} of ${targets.length} met; printed, never asserted)`);
@@ -374,6 +412,7 @@ try {
 				dirty: commit.dirty,
 				node: process.version,
 				cpus: cpus().length,
+				machineLoad,
 				load: loadOptions,
 				sizes: SIZES,
 				seed: { ...seed, fingerprint },

@@ -14,7 +14,8 @@ export interface PageWeight {
 	stylesheets: number;
 }
 
-export const launch = () => chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--no-first-run'] });
+export const launch = () =>
+	chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--no-first-run'] });
 
 async function contextFor(browser: Browser, origin: string, cookie: string | null) {
 	const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });

@@ -63,7 +63,11 @@ export async function findTargets(databaseUrl: string): Promise<Target[]> {
 			'conversation',
 			`SELECT t.id, t.requester_id AS viewer FROM swap_thread t JOIN swap_message m ON m.thread_id = t.id GROUP BY t.id ORDER BY COUNT(*) DESC, t.id LIMIT 1`
 		);
-		const dashboard = await one(conn, 'member who follows tanks', `SELECT user_id AS id FROM tank_follow GROUP BY user_id ORDER BY COUNT(*) DESC, user_id LIMIT 1`);
+		const dashboard = await one(
+			conn,
+			'member who follows tanks',
+			`SELECT user_id AS id FROM tank_follow GROUP BY user_id ORDER BY COUNT(*) DESC, user_id LIMIT 1`
+		);
 
 		const cookies = new Map<string, string>();
 		const cookieFor = async (userId: string) => {
@@ -83,7 +87,13 @@ export async function findTargets(databaseUrl: string): Promise<Target[]> {
 			{ key: 'tank', label: 'busiest tank page', path: `/journals/${tank.id}`, cookie: member, page: true },
 			{ key: 'nearby', label: 'nearby listings API, 10 km', path: '/api/swaps/listings?radius=10', cookie: member, page: false },
 			{ key: 'results', label: 'published results, signed out', path: `/contests/${results.contest}/results/${results.category}`, cookie: null, page: true },
-			{ key: 'card', label: "judge's card API", path: `/api/judging/${card.contest}/${card.number}/card`, cookie: await cookieFor(String(card.judge)), page: false },
+			{
+				key: 'card',
+				label: "judge's card API",
+				path: `/api/judging/${card.contest}/${card.number}/card`,
+				cookie: await cookieFor(String(card.judge)),
+				page: false
+			},
 			{ key: 'conversation', label: 'longest conversation', path: `/swaps/threads/${thread.id}`, cookie: await cookieFor(String(thread.viewer)), page: true },
 			{ key: 'dashboard', label: 'signed-in dashboard', path: '/', cookie: await cookieFor(String(dashboard.id)), page: true },
 			{ key: 'viewer', label: 'resolving a signed-in viewer (/api/me)', path: '/api/me', cookie: member, page: false }

@@ -31,7 +31,15 @@ import {
 	waterTests
 } from '../../src/lib/server/journals/schema';
 import { listingEvents, listings, swapMessages, swapThreads } from '../../src/lib/server/swaps/schema';
-import { contestCards, contestCategories, contestConflicts, contestCriteria, contestEntries, contestJudges, contests } from '../../src/lib/server/contests/schema';
+import {
+	contestCards,
+	contestCategories,
+	contestConflicts,
+	contestCriteria,
+	contestEntries,
+	contestJudges,
+	contests
+} from '../../src/lib/server/contests/schema';
 import { media } from '../../src/lib/server/media/schema';
 import { objectKey } from '../../src/lib/server/media';
 import { prepareImage } from '../../src/lib/server/media/process';
@@ -41,24 +49,7 @@ import { SCORE_STEP } from '../../src/lib/contests/rubric';
 import type { CardFields } from '../../src/lib/contests/card';
 import { drawAquarium, randomFrom } from '../../scripts/seed/lib/images';
 import * as w from './words';
-
-export const BENCH_SEED_MARKER = 'bench-large';
-
-export const SIZES = {
-	members: 2000,
-	judges: 6,
-	tanks: 5000,
-	entries: 50_000,
-	busiestEntries: 500,
-	waterTests: 100_000,
-	comments: 20_000,
-	listings: 10_000,
-	conversations: 1500,
-	longConversation: 300,
-	contests: 30,
-	entriesPerContest: 100,
-	photos: 2000
-} as const;
+import { BENCH_SEED_MARKER, SIZES } from './sizes';
 
 const DAY = 86_400_000;
 const rnd = randomFrom(20_261_203);
@@ -168,7 +159,12 @@ try {
 	const busiestKeeper = members[11]!;
 
 	const plantIds = (await db.select({ id: species.id, name: species.scientificName }).from(species).where(eq(species.kind, 'plant'))).map((r) => r);
-	const animalIds = (await db.select({ id: species.id, name: species.scientificName }).from(species).where(sql`${species.kind} <> 'plant'`)).map((r) => r);
+	const animalIds = (
+		await db
+			.select({ id: species.id, name: species.scientificName })
+			.from(species)
+			.where(sql`${species.kind} <> 'plant'`)
+	).map((r) => r);
 
 	// --- Tanks and their lists ---------------------------------------------------------------
 	interface Tank {
@@ -212,7 +208,9 @@ try {
 				};
 			});
 			const ids = await insertAll(tanks, rows);
-			rows.forEach((r, i) => tankList.push({ id: ids[i]!, ownerId: r.ownerId, visibility: r.visibility, litres: r.volumeLitres, setUp: Date.parse(r.setUpOn) }));
+			rows.forEach((r, i) =>
+				tankList.push({ id: ids[i]!, ownerId: r.ownerId, visibility: r.visibility, litres: r.volumeLitres, setUp: Date.parse(r.setUpOn) })
+			);
 			await insertAll(
 				tankLights,
 				tankList.map((t) => ({ tankId: t.id, label: 'LED bar', watts: int(10, 80), hoursPerDay: pick([6, 6.5, 7, 7.5, 8]) }))
@@ -242,8 +240,22 @@ try {
 			await insertAll(
 				maintenanceTasks,
 				tankList.flatMap((t) => [
-					{ tankId: t.id, kind: 'water-change' as const, label: 'Water change', intervalDays: 7, lastDoneOn: dayOf(new Date(today - int(0, 10) * DAY)), position: 0 },
-					{ tankId: t.id, kind: 'filter-clean' as const, label: 'Clean the filter', intervalDays: 30, lastDoneOn: dayOf(new Date(today - int(0, 40) * DAY)), position: 1 }
+					{
+						tankId: t.id,
+						kind: 'water-change' as const,
+						label: 'Water change',
+						intervalDays: 7,
+						lastDoneOn: dayOf(new Date(today - int(0, 10) * DAY)),
+						position: 0
+					},
+					{
+						tankId: t.id,
+						kind: 'filter-clean' as const,
+						label: 'Clean the filter',
+						intervalDays: 30,
+						lastDoneOn: dayOf(new Date(today - int(0, 40) * DAY)),
+						position: 1
+					}
 				])
 			);
 		}
@@ -269,7 +281,14 @@ try {
 				const span = Math.max(1, Math.floor((today - t.setUp) / DAY));
 				for (let k = 0; k < n; k++) {
 					const on = t.setUp + Math.floor(((k + 0.5) / n) * span) * DAY;
-					rows.push({ tankId, authorId: t.ownerId, entryOn: dayOf(new Date(on)), title: pick(w.ENTRY_TITLES), body: markdownBody(), createdAt: new Date(on + 20 * 3_600_000) });
+					rows.push({
+						tankId,
+						authorId: t.ownerId,
+						entryOn: dayOf(new Date(on)),
+						title: pick(w.ENTRY_TITLES),
+						body: markdownBody(),
+						createdAt: new Date(on + 20 * 3_600_000)
+					});
 				}
 			}
 			const ids = await insertAll(journalEntries, rows, 1000);
@@ -374,7 +393,8 @@ try {
 					category,
 					title: pick(w.LISTING_TITLES[category]),
 					quantityAmount: int(1, 20),
-					quantityUnit: category === 'plants' ? pick(['stems', 'portions', 'pots'] as const) : category === 'livestock' ? ('individuals' as const) : ('pieces' as const),
+					quantityUnit:
+						category === 'plants' ? pick(['stems', 'portions', 'pots'] as const) : category === 'livestock' ? ('individuals' as const) : ('pieces' as const),
 					description: rnd() < 0.5 ? pick(w.SENTENCES) : null,
 					terms: pick(['free', 'free', 'swap', 'token'] as const),
 					lat: owner.lat,
@@ -438,7 +458,8 @@ try {
 		async () => {
 			for (let c = 0; c < SIZES.contests; c++) {
 				// The last contests are still running: one being judged, one open, one a draft.
-				const state = c === SIZES.contests - 1 ? 'draft' : c === SIZES.contests - 2 ? 'open' : c === SIZES.contests - 3 ? 'judging' : c < 3 ? 'archived' : 'published';
+				const state =
+					c === SIZES.contests - 1 ? 'draft' : c === SIZES.contests - 2 ? 'open' : c === SIZES.contests - 3 ? 'judging' : c < 3 ? 'archived' : 'published';
 				const age = (SIZES.contests - c) * 40;
 				const opens = state === 'open' || state === 'draft' ? today - 5 * DAY : today - age * DAY;
 				const closes = state === 'open' || state === 'draft' ? today + 20 * DAY : opens + 20 * DAY;
@@ -527,7 +548,16 @@ try {
 						};
 						const submitted = !judging || rnd() < 0.7;
 						const at = new Date(judgingOpens + int(0, 10) * DAY);
-						cards.push({ contestId, entryId, judgeId: judge.id, status: submitted ? 'submitted' : 'draft', fields, version: int(1, 6), updatedAt: at, submittedAt: submitted ? at : null });
+						cards.push({
+							contestId,
+							entryId,
+							judgeId: judge.id,
+							status: submitted ? 'submitted' : 'draft',
+							fields,
+							version: int(1, 6),
+							updatedAt: at,
+							submittedAt: submitted ? at : null
+						});
 					});
 				});
 				await insertAll(contestCards, cards, 1000);
@@ -541,7 +571,8 @@ try {
 		() => SIZES.photos,
 		async () => {
 			// A few dozen different pictures go through the real pipeline; each photo row gets its own copy of one of them.
-			const variants = await Promise.all(Array.from({ length: 24 }, async (_, i) => prepareImage(await drawAquarium(9000 + i, { width: 800, height: 500 }))));
+			const variants = [];
+			for (let i = 0; i < 24; i++) variants.push(await prepareImage(await drawAquarium(9000 + i, { width: 800, height: 500 })));
 			const busiestEntries = entryList.filter((e) => e.tankId === busiest.id).slice(-100);
 			const benchEntries = contestEntryIds.get(benchContestId) ?? [];
 			const publicTanks = tankList.filter((t) => t.visibility === 'public');
@@ -577,7 +608,11 @@ try {
 					prepared
 				};
 			});
-			await Promise.all(rows.flatMap((r) => r.prepared.renditions.map((rendition) => limit(() => bucket.put(objectKey(r.storageKey, rendition.size), rendition.data, 'image/webp')))));
+			await Promise.all(
+				rows.flatMap((r) =>
+					r.prepared.renditions.map((rendition) => limit(() => bucket.put(objectKey(r.storageKey, rendition.size), rendition.data, 'image/webp')))
+				)
+			);
 			await insertAll(
 				media,
 				rows.map(({ prepared: _, ...row }) => row)
@@ -585,7 +620,9 @@ try {
 		}
 	);
 
-	await db.execute(sql`ANALYZE TABLE tank, journal_entry, journal_event, water_test, entry_comment, listing, swap_thread, swap_message, contest_entry, contest_card, media`);
+	await db.execute(
+		sql`ANALYZE TABLE tank, journal_entry, journal_event, water_test, entry_comment, listing, swap_thread, swap_message, contest_entry, contest_card, media`
+	);
 	await db.insert(seedRuns).values({ name: `${BENCH_SEED_MARKER}:${fingerprint.slice(0, 40)}`, ranAt: new Date() });
 
 	const total = performance.now() - started;

@@ -8,7 +8,28 @@ export const REGION = { lat: 55.6, lng: 3.4, halfLat: 0.8, halfLng: 1.3 };
 
 const GIVEN_HEADS = ['Al', 'Bra', 'Cor', 'Da', 'El', 'Fen', 'Gil', 'Hal', 'Is', 'Jor', 'Ka', 'Lun', 'Mer', 'Nol', 'Or', 'Pel', 'Quin', 'Ros', 'Sel', 'Tam'];
 const GIVEN_TAILS = ['wen', 'mar', 'dis', 'lo', 'ric', 'na', 'vey', 'tha', 'mon', 'sa'];
-const FAMILY_HEADS = ['Ash', 'Brack', 'Cold', 'Dun', 'Elder', 'Fallow', 'Gorse', 'Hazel', 'Ives', 'Kettle', 'Linden', 'Marl', 'Nettle', 'Osier', 'Pebble', 'Rush', 'Sallow', 'Thorn', 'Umber', 'Wick'];
+const FAMILY_HEADS = [
+	'Ash',
+	'Brack',
+	'Cold',
+	'Dun',
+	'Elder',
+	'Fallow',
+	'Gorse',
+	'Hazel',
+	'Ives',
+	'Kettle',
+	'Linden',
+	'Marl',
+	'Nettle',
+	'Osier',
+	'Pebble',
+	'Rush',
+	'Sallow',
+	'Thorn',
+	'Umber',
+	'Wick'
+];
 const FAMILY_TAILS = ['ford', 'by', 'combe', 'holt', 'mere', 'wick', 'stead', 'ley', 'brook', 'thwaite'];
 
 export const GIVEN_NAMES = GIVEN_HEADS.flatMap((h) => GIVEN_TAILS.map((t) => h + t));
@@ -29,8 +50,42 @@ export const AREA_NAMES = [
 	'Sandling Cross'
 ];
 
-export const TANK_WORDS_A = ['Slate', 'Reed', 'Moss', 'Fern', 'Alder', 'Sedge', 'Pebble', 'Willow', 'Heron', 'Otter', 'Lichen', 'Dune', 'Ember', 'Frost', 'Amber', 'Cedar'];
-export const TANK_WORDS_B = ['hollow', 'margin', 'ford', 'shelf', 'run', 'bay', 'step', 'bank', 'weir', 'corner', 'arch', 'spring', 'light', 'root', 'pool', 'ridge'];
+export const TANK_WORDS_A = [
+	'Slate',
+	'Reed',
+	'Moss',
+	'Fern',
+	'Alder',
+	'Sedge',
+	'Pebble',
+	'Willow',
+	'Heron',
+	'Otter',
+	'Lichen',
+	'Dune',
+	'Ember',
+	'Frost',
+	'Amber',
+	'Cedar'
+];
+export const TANK_WORDS_B = [
+	'hollow',
+	'margin',
+	'ford',
+	'shelf',
+	'run',
+	'bay',
+	'step',
+	'bank',
+	'weir',
+	'corner',
+	'arch',
+	'spring',
+	'light',
+	'root',
+	'pool',
+	'ridge'
+];
 export const STYLES = ['nature', 'iwagumi', 'jungle', 'biotope', 'nano', 'dutch', ''];
 
 export const ENTRY_TITLES = [

@@ -151,7 +151,11 @@ export async function startCluster(options: ClusterOptions): Promise<Cluster> {
 		const instances = options.appPorts.map((port, i) => {
 			const name = `app instance ${i + 1}`;
 			managed.push(
-				spawnManaged(name, process.execPath, [join(root, 'build', 'index.js')], { cwd: root, env: { ...appEnv, PORT: String(port) }, logFile: log(`app-${i + 1}`) })
+				spawnManaged(name, process.execPath, [join(root, 'build', 'index.js')], {
+					cwd: root,
+					env: { ...appEnv, PORT: String(port) },
+					logFile: log(`app-${i + 1}`)
+				})
 			);
 			return { port, url: `http://127.0.0.1:${port}` };
 		});
@@ -166,7 +170,10 @@ export async function startCluster(options: ClusterOptions): Promise<Cluster> {
 		}
 		for (const instance of instances) {
 			if (!(await waitReady(instance.url, 30_000))) {
-				throw new SetupError(`The app instance on port ${instance.port} did not become ready.`, `See its output${options.quiet ? ` in ${options.home}` : ' above'}.`);
+				throw new SetupError(
+					`The app instance on port ${instance.port} did not become ready.`,
+					`See its output${options.quiet ? ` in ${options.home}` : ' above'}.`
+				);
 			}
 		}
 

@@ -42,7 +42,7 @@ import {
 } from '../../src/lib/server/contests/schema';
 import { media } from '../../src/lib/server/media/schema';
 import { objectKey } from '../../src/lib/server/media';
-import { prepareImage } from '../../src/lib/server/media/process';
+import { prepareImage, type PreparedImage } from '../../src/lib/server/media/process';
 import { bucketStore } from '../../src/lib/server/media/storage';
 import { roundToKilometre } from '../../src/lib/club/location';
 import { SCORE_STEP } from '../../src/lib/contests/rubric';
@@ -571,7 +571,7 @@ try {
 		() => SIZES.photos,
 		async () => {
 			// A few dozen different pictures go through the real pipeline; each photo row gets its own copy of one of them.
-			const variants = [];
+			const variants: PreparedImage[] = [];
 			for (let i = 0; i < 24; i++) variants.push(await prepareImage(await drawAquarium(9000 + i, { width: 800, height: 500 })));
 			const busiestEntries = entryList.filter((e) => e.tankId === busiest.id).slice(-100);
 			const benchEntries = contestEntryIds.get(benchContestId) ?? [];

@@ -66,7 +66,9 @@ events {
 }
 
 http {
-	access_log ${p('logs/access.log')};
+	# The path without its query string (sign-in links carry a token there), and which instance answered.
+	log_format riparia '$remote_addr [$time_local] "$request_method $uri" $status $body_bytes_sent $request_time upstream=$upstream_addr';
+	access_log ${p('logs/access.log')} riparia;
 	client_body_temp_path ${p('temp/client_body')};
 	proxy_temp_path ${p('temp/proxy')};
 	fastcgi_temp_path ${p('temp/fastcgi')};

@@ -4,26 +4,17 @@
 // instances on PORT + 1 and PORT + 2. Ctrl-C stops everything in order.
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { SetupError, ok, reportFailure, step } from './lib/log';
+import { SetupError, ok, orderlyShutdown, reportFailure, step } from './lib/log';
 import { bringUp, dataRoot, portsFor, type Stack } from './lib/stack';
 import { startCluster, type Cluster } from './lib/cluster';
 
 const started = Date.now();
 let stack: Stack | null = null;
 let cluster: Cluster | null = null;
-let stopping = false;
-
-async function shutdown(code: number) {
-	if (stopping) return;
-	stopping = true;
-	console.log('');
-	step('Shutting down…');
+const { shutdown, stopping } = orderlyShutdown(async () => {
 	await cluster?.stop();
 	await stack?.stop();
-	ok('Stopped cleanly.');
-	process.exit(code);
-}
-for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, () => void shutdown(0));
+});
 
 try {
 	const dotenv = join(import.meta.dirname, '..', '.env');
@@ -42,7 +33,7 @@ try {
 		portEnvName: 'PORT'
 	});
 	void cluster.exited.then((name) => {
-		if (stopping) return;
+		if (stopping()) return;
 		console.error(`\n✗ ${name} stopped unexpectedly; see its output above.`);
 		void shutdown(1);
 	});

@@ -9,18 +9,19 @@
 // one table with targets beside the figures (never asserted) and writes it as JSON to
 // bench/results/<date>-<commit>.json.
 //
-//   npm run bench                        everything (about 5 minutes; the first run seeds first)
+//   npm run bench                        everything: about 4 minutes with the seed reused; the first
+//                                        run seeds first (about 10 minutes on 2 cores from a fresh clone)
 //   npm run bench -- --seconds 5         shorter load runs (default 8, after a 2 s warm-up)
 //   npm run bench -- --no-cluster        skip the cluster comparison
 import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { cpus, loadavg } from 'node:os';
-import { existsSync, mkdirSync, openSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, openSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import mysql from 'mysql2/promise';
 import sharp from 'sharp';
 import { SetupError, note, ok, reportFailure, step, warn } from '../scripts/lib/log';
-import { bringUp, dataRoot, portsFor, root, runNodeScript, type Stack } from '../scripts/lib/stack';
+import { bringUp, dataRoot, hashTree, portsFor, root, runNodeScript, type Stack } from '../scripts/lib/stack';
 import { spawnManaged, waitForPort, type ManagedProcess } from '../scripts/lib/system';
 import { startCluster, type Cluster } from '../scripts/lib/cluster';
 import { drawAquarium } from '../scripts/seed/lib/images';
@@ -57,13 +58,6 @@ function parseArgs(argv: string[]) {
 	}
 	if (!Number.isFinite(seconds) || seconds < 1 || seconds > 120) throw new SetupError('--seconds takes a number from 1 to 120.', 'For example: --seconds 5');
 	return { seconds, cluster };
-}
-
-function hashTree(hash: ReturnType<typeof createHash>, path: string) {
-	const stats = statSync(path, { throwIfNoEntry: false });
-	if (!stats) return;
-	if (stats.isDirectory()) for (const entry of readdirSync(path).sort()) hashTree(hash, join(path, entry));
-	else hash.update(relative(root, path)).update(readFileSync(path));
 }
 
 /** The schema (migrations) and everything that writes seed data: a change to any of them seeds afresh. */

@@ -100,7 +100,8 @@ export interface Stack {
 	serve(): Promise<{ exited: Promise<number | null> }>;
 }
 
-function hashTree(hash: ReturnType<typeof createHash>, path: string) {
+/** Adds every file under `path` (names and contents, in a stable order) to `hash`. */
+export function hashTree(hash: ReturnType<typeof createHash>, path: string) {
 	const stats = statSync(path, { throwIfNoEntry: false });
 	if (!stats) return;
 	if (stats.isDirectory()) {

@@ -227,14 +227,41 @@ try {
 	}
 	await demo.stop();
 
+	// The cluster runs beside the single instance (idle while the other is measured), so each page's
+	// two figures are taken one after the other, under the same load from the rest of the machine.
+	let clusterNote = 'skipped (--no-cluster)';
+	if (options.cluster) {
+		step('Starting the cluster (nginx, two instances, two workers)…');
+		cluster = await startCluster({
+			env,
+			home: join(HOME, 'cluster'),
+			publicPort: benchPorts.app + 2,
+			appPorts: [benchPorts.app + 3, benchPorts.app + 4],
+			workers: 2,
+			origin: env.ORIGIN,
+			portEnvName: 'TEST_PORT_OFFSET',
+			quiet: true
+		});
+		clusterNote = `nginx → 2 instances, 2 workers, on ${cpus().length} cores; each page measured right after the single instance`;
+	}
+
 	const loadOptions = { connections: 10, warmupSeconds: 2, seconds: options.seconds };
 	const loadBefore = loadavg()[0]!;
 	const measured = largeTargets.filter((t) => t.key !== 'viewer');
-	step(`Load: ${loadOptions.connections} connections, ${loadOptions.warmupSeconds} s warm-up then ${loadOptions.seconds} s per page, one instance…`);
+	step(
+		`Load: ${loadOptions.connections} connections, ${loadOptions.warmupSeconds} s warm-up then ${loadOptions.seconds} s per page, one instance${cluster ? ', then the cluster' : ''}…`
+	);
 	for (const target of measured) {
-		const r = await load(single.url + target.path, target.cookie, loadOptions);
-		results.find((p) => p.key === target.key)!.one = r;
-		note(`${target.label}: ${r.requestsPerSecond.toFixed(0)} req/s, p99 ${r.p99} ms`);
+		const result = results.find((p) => p.key === target.key)!;
+		result.one = await load(single.url + target.path, target.cookie, loadOptions);
+		if (cluster) result.cluster = await load(cluster.url + target.path, target.cookie, loadOptions);
+		note(
+			`${target.label}: ${result.one.requestsPerSecond.toFixed(0)} req/s, p99 ${result.one.p99} ms${result.cluster ? `; cluster ${result.cluster.requestsPerSecond.toFixed(0)} req/s` : ''}`
+		);
+	}
+	if (cluster) {
+		await cluster.stop();
+		cluster = null;
 	}
 
 	step('Weighing each page in Chromium, and the tank page’s largest contentful paint…');
@@ -253,31 +280,8 @@ try {
 	}
 	await single.stop();
 
-	// --- The cluster: nginx in front of two instances ---------------------------------------
-	let clusterNote = 'skipped (--no-cluster)';
-	if (options.cluster) {
-		step('Starting the cluster (nginx, two instances, two workers)…');
-		cluster = await startCluster({
-			env,
-			home: join(HOME, 'cluster'),
-			publicPort: benchPorts.app + 2,
-			appPorts: [benchPorts.app + 3, benchPorts.app + 4],
-			workers: 2,
-			origin: env.ORIGIN,
-			portEnvName: 'TEST_PORT_OFFSET',
-			quiet: true
-		});
-		for (const target of measured) {
-			const r = await load(cluster.url + target.path, target.cookie, loadOptions);
-			results.find((p) => p.key === target.key)!.cluster = r;
-			note(`${target.label}: ${r.requestsPerSecond.toFixed(0)} req/s through nginx`);
-		}
-		await cluster.stop();
-		cluster = null;
-		clusterNote = `nginx → 2 instances, 2 workers, on ${cpus().length} cores`;
-	}
-
 	// --- Off the HTTP path ---------------------------------------------------------------------
+	const loadAfter = loadavg()[0]!;
 	step('Photo pipeline on a 24-megapixel JPEG (own process)…');
 	const photo = jsonChild<{ width: number; height: number; uploadBytes: number; renditions: number; msMedian: number; peakRssMb: number; rssBeforeMb: number }>(
 		'bench/photo.ts',
@@ -296,7 +300,7 @@ try {
 	const lcpMedian = [...lcp].sort((a, b) => a - b)[Math.floor(lcp.length / 2)] ?? NaN;
 	const commit = gitCommit();
 	const date = new Date().toISOString().slice(0, 10);
-	const machineLoad = { before: loadBefore, after: loadavg()[0]! };
+	const machineLoad = { before: loadBefore, after: loadAfter };
 	const lines: string[] = [];
 	const row = (cells: string[], widths: number[]) => cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]!) : c.padStart(widths[i]!))).join('  ');
 	const widths = [44, 7, 7, 7, 6, 6, 11, 7, 7, 8, 6];

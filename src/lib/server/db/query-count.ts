@@ -34,10 +34,16 @@ export function countStatements(pool: Pool): void {
 	};
 }
 
-const counting: Handle = async ({ event, resolve }) => {
+/** Runs `work` and counts the statements it sends through counted pools, apart from any other work in flight. */
+export async function measure<T>(work: () => Promise<T>): Promise<{ value: T; queries: number }> {
 	const store = { queries: 0 };
-	const response = await current.run(store, () => resolve(event));
-	response.headers.set(QUERY_COUNT_HEADER, String(store.queries));
+	const value = await current.run(store, work);
+	return { value, queries: store.queries };
+}
+
+const counting: Handle = async ({ event, resolve }) => {
+	const { value: response, queries } = await measure(() => resolve(event));
+	response.headers.set(QUERY_COUNT_HEADER, String(queries));
 	return response;
 };
 

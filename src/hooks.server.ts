@@ -10,6 +10,7 @@ import { jobs } from '$lib/server/jobs';
 import { startJobs } from '$lib/server/jobs/runner';
 import { defaultTransport } from '$lib/server/mail/transport';
 import { pool } from '$lib/server/db';
+import { countQueries } from '$lib/server/db/query-count';
 import { safeRedirectPath } from '$lib/club/redirect';
 import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
@@ -116,7 +117,7 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 };
 
 // Outermost first: every response, Auth.js's included, leaves through responseHeaders.
-export const handle: Handle = sequence(responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName);
+export const handle: Handle = sequence(countQueries, responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName);
 
 /** Last resort: log the error under an id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

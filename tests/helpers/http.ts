@@ -7,6 +7,8 @@ export interface RequestOptions {
 	json?: unknown;
 	accept?: string;
 	headers?: Record<string, string>;
+	/** Another instance of the app (same ORIGIN) to send the request to; the stack's app by default. */
+	base?: string;
 }
 
 /**
@@ -26,5 +28,5 @@ export async function request(path: string, options: RequestOptions = {}): Promi
 	}
 	const method = options.method ?? (body ? 'POST' : 'GET');
 	if (method !== 'GET') headers.origin = appUrl();
-	return fetch(appUrl() + path, { method, headers, body, redirect: 'manual' });
+	return fetch((options.base ?? appUrl()) + path, { method, headers, body, redirect: 'manual' });
 }

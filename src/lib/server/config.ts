@@ -27,7 +27,9 @@ const schema = z.object({
 	SIGNIN_LIMIT_PER_CLIENT: z.coerce.number().int().positive().default(20),
 	OUTBOX_WORKER: bool.default(true),
 	OUTBOX_POLL_MS: z.coerce.number().int().positive().default(2000),
-	CLUB_NAME: z.string().default('Riparia club')
+	CLUB_NAME: z.string().default('Riparia club'),
+	/** Set by `npm run bench`: responses carry the number of SQL statements they took. */
+	BENCH: bool.default(false)
 });
 
 export type Config = z.infer<typeof schema>;

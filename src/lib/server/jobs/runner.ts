@@ -69,10 +69,13 @@ export async function runDueJobs(jobs: Job[], options: { now?: Date; worker?: st
 	return ran;
 }
 
+/** Ticks the runner until stopped; the function it returns resolves once a round in progress has finished. */
 export function startJobs(jobs: Job[], intervalMs = 30_000) {
 	let stopped = false;
 	let timer: ReturnType<typeof setTimeout> | undefined;
-	const tick = async () => {
+	let round: Promise<void> = Promise.resolve();
+	const tick = () => (round = runRound());
+	const runRound = async () => {
 		if (stopped) return;
 		try {
 			await runDueJobs(jobs);
@@ -82,8 +85,9 @@ export function startJobs(jobs: Job[], intervalMs = 30_000) {
 		if (!stopped) timer = setTimeout(() => void tick(), intervalMs);
 	};
 	timer = setTimeout(() => void tick(), 1_000);
-	return () => {
+	return (): Promise<void> => {
 		stopped = true;
 		if (timer) clearTimeout(timer);
+		return round;
 	};
 }

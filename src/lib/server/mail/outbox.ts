@@ -149,12 +149,17 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 	return { sent, failed };
 }
 
-/** Polls the outbox until stopped. Several of these may run at once, in one process or many. */
+/**
+ * Polls the outbox until stopped. Several of these may run at once, in one process or many. The
+ * function it returns stops polling and resolves once a round in progress has finished.
+ */
 export function startWorker(options: { intervalMs?: number; onError?: (e: unknown) => void } = {}) {
 	const interval = options.intervalMs ?? config().OUTBOX_POLL_MS;
 	let stopped = false;
 	let timer: ReturnType<typeof setTimeout> | undefined;
-	const tick = async () => {
+	let round: Promise<void> = Promise.resolve();
+	const tick = () => (round = deliverRounds());
+	const deliverRounds = async () => {
 		if (stopped) return;
 		try {
 			// A full batch means more may be waiting: keep draining before the pause.
@@ -170,8 +175,9 @@ export function startWorker(options: { intervalMs?: number; onError?: (e: unknow
 		if (!stopped) timer = setTimeout(() => void tick(), interval);
 	};
 	timer = setTimeout(() => void tick(), 500);
-	return () => {
+	return (): Promise<void> => {
 		stopped = true;
 		if (timer) clearTimeout(timer);
+		return round;
 	};
 }

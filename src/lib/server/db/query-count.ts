@@ -42,7 +42,7 @@ export async function measure<T>(work: () => Promise<T>): Promise<{ value: T; qu
 }
 
 const counting: Handle = async ({ event, resolve }) => {
-	const { value: response, queries } = await measure(() => resolve(event));
+	const { value: response, queries } = await measure(async () => resolve(event));
 	response.headers.set(QUERY_COUNT_HEADER, String(queries));
 	return response;
 };

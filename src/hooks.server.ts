@@ -11,20 +11,25 @@ import { startJobs } from '$lib/server/jobs/runner';
 import { defaultTransport } from '$lib/server/mail/transport';
 import { pool } from '$lib/server/db';
 import { safeRedirectPath } from '$lib/club/redirect';
+import { log } from '$lib/server/ops/log';
+import { observeRequests, probes } from '$lib/server/ops/hooks';
+import { newRequestId } from '$lib/ops/request-id';
+import { startMetricsServer } from '$lib/server/ops/scrape';
 
 const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'];
 
 export const init: ServerInit = async () => {
 	if (building) return;
-	const stopWorker = config().OUTBOX_WORKER
-		? startWorker({ onError: (e) => console.error('[outbox] delivery round failed:', e instanceof Error ? e.message : e) })
-		: () => {};
+	const stopWorker = config().OUTBOX_WORKER ? startWorker() : () => {};
 	const stopJobs = startJobs(jobs);
+	const metricsPort = config().METRICS_PORT;
+	const metricsServer = metricsPort ? startMetricsServer(metricsPort) : null;
 	// adapter-node emits this once the HTTP server has closed; open timers and pooled
 	// connections would otherwise keep the process alive.
 	process.once('sveltekit:shutdown', () => {
 		stopWorker();
 		stopJobs();
+		metricsServer?.close();
 		defaultTransport().close();
 		void pool.end();
 	});
@@ -92,14 +97,15 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle: Handle = sequence(onlyOurSignInForm, authHandle, resolveViewer, askForDisplayName, securityHeaders);
+export const handle: Handle = sequence(observeRequests, probes, onlyOurSignInForm, authHandle, resolveViewer, askForDisplayName, securityHeaders);
 
-/** Last resort: log the error under an id, show the person only that id. */
+/** Last resort: log the error under the request's id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
-	const errorId = crypto.randomUUID().slice(0, 8);
+	// Set by observeRequests, first in the sequence; the fallback only guards against a reordering.
+	const errorId = event.locals.requestId ?? newRequestId();
 	if (status >= 500) {
-		// Query strings can carry sign-in tokens: log the path only.
-		console.error(`[error ${errorId}] ${event.request.method} ${event.url.pathname}:`, error);
+		// Query strings can carry sign-in tokens: the route id only, never the URL.
+		log.error({ reqId: errorId, method: event.request.method, route: event.route.id, err: error }, 'unexpected error');
 	}
 	return {
 		message: status === 404 ? 'We could not find that page.' : status >= 500 ? 'Something went wrong on our side.' : message,

@@ -1,0 +1,68 @@
+// Two Handle functions for hooks.server.ts, first in its sequence:
+// - observeRequests gives every request an id (locals.requestId, echoed as X-Request-Id), writes one
+//   log line per request (method, route id — never the raw path, whose query can hold a sign-in
+//   token —, status, duration, viewer) and counts it into the metrics;
+// - probes answers /healthz, /readyz and /metrics itself, before sign-in, the display-name prompt
+//   or anything else runs, so a probe needs no session and is never redirected.
+import type { Handle, RequestEvent } from '@sveltejs/kit';
+import { acceptRequestId, newRequestId, statusClass } from '../../ops/request-id';
+import { liveResponse, readyResponse } from './health';
+import { log } from './log';
+import { httpDuration, httpRequests } from './metrics';
+import { metricsResponse } from './scrape';
+
+const PROBES: Record<string, (request: Request) => Response | Promise<Response>> = {
+	'/healthz': liveResponse,
+	'/readyz': readyResponse,
+	'/metrics': metricsResponse
+};
+
+/** The route id for logs and metric labels; probes have fixed paths and no route of their own. */
+function routeOf(event: RequestEvent): string {
+	if (event.route.id) return event.route.id;
+	return Object.hasOwn(PROBES, event.url.pathname) ? event.url.pathname : '(no route)';
+}
+
+function record(event: RequestEvent, status: number, started: number) {
+	const seconds = (performance.now() - started) / 1000;
+	const route = routeOf(event);
+	const labels = { route, status_class: statusClass(status) };
+	httpRequests.inc({ ...labels, method: event.request.method });
+	httpDuration.observe(labels, seconds);
+	const line = {
+		reqId: event.locals.requestId,
+		method: event.request.method,
+		route,
+		status,
+		ms: Math.round(seconds * 10_000) / 10,
+		...(event.locals.user ? { userId: event.locals.user.id } : {})
+	};
+	// Probes come every few seconds: only their failures are worth a line at the usual level.
+	const probe = Object.hasOwn(PROBES, route) && status < 500;
+	if (status >= 500) log.error(line, 'request');
+	else if (probe) log.debug(line, 'request');
+	else log.info(line, 'request');
+}
+
+export const observeRequests: Handle = async ({ event, resolve }) => {
+	const started = performance.now();
+	const requestId = acceptRequestId(event.request.headers.get('x-request-id')) ?? newRequestId();
+	event.locals.requestId = requestId;
+	let response: Response;
+	try {
+		response = await resolve(event);
+	} catch (error) {
+		// SvelteKit turns errors into pages inside resolve; whatever still escapes is a 500.
+		record(event, 500, started);
+		throw error;
+	}
+	record(event, response.status, started);
+	response.headers.set('X-Request-Id', requestId);
+	return response;
+};
+
+export const probes: Handle = async ({ event, resolve }) => {
+	const probe =
+		event.request.method === 'GET' || (event.request.method === 'HEAD' && Object.hasOwn(PROBES, event.url.pathname)) ? PROBES[event.url.pathname] : undefined;
+	return probe ? probe(event.request) : resolve(event);
+};

@@ -36,6 +36,9 @@ export async function startInstance(options: {
 		cwd: options.root ?? checkoutRoot,
 		env: {
 			...(options.baseEnv ?? process.env),
+			// As the stack runs its app: production mode, JSON log lines the tests can read.
+			NODE_ENV: 'production',
+			LOG_FORMAT: 'json',
 			DATABASE_URL: options.databaseUrl,
 			PORT: String(port),
 			HOST: '127.0.0.1',

@@ -26,9 +26,9 @@ function routeOf(event: RequestEvent): string {
 function record(event: RequestEvent, status: number, started: number) {
 	const seconds = (performance.now() - started) / 1000;
 	const route = routeOf(event);
-	const labels = { route, status_class: statusClass(status) };
-	httpRequests.inc({ ...labels, method: event.request.method });
-	httpDuration.observe(labels, seconds);
+	const status_class = statusClass(status);
+	httpRequests.inc({ method: event.request.method, route, status_class });
+	httpDuration.observe({ route, status_class }, seconds);
 	const line = {
 		reqId: event.locals.requestId,
 		method: event.request.method,

@@ -8,79 +8,49 @@ export const registry = new Registry();
 collectDefaultMetrics({ register: registry });
 
 const registers = [registry];
+const counter = <L extends string>(name: string, help: string, labelNames: readonly L[] = []) => new Counter<L>({ name, help, labelNames, registers });
+const gauge = <L extends string>(name: string, help: string, labelNames: readonly L[] = []) => new Gauge<L>({ name, help, labelNames, registers });
+const histogram = <L extends string>(name: string, help: string, labelNames: readonly L[], buckets: number[]) =>
+	new Histogram<L>({ name, help, labelNames, buckets, registers });
 
-export const httpRequests = new Counter({
-	name: 'riparia_http_requests_total',
-	help: 'Requests answered, by route id (never the raw path) and status class.',
-	labelNames: ['method', 'route', 'status_class'] as const,
-	registers
-});
+export const httpRequests = counter('riparia_http_requests_total', 'Requests answered, by route id (never the raw path) and status class.', [
+	'method',
+	'route',
+	'status_class'
+]);
+export const httpDuration = histogram(
+	'riparia_http_request_duration_seconds',
+	'Time from receiving a request to its response headers, by route id and status class.',
+	['route', 'status_class'],
+	[0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10]
+);
 
-export const httpDuration = new Histogram({
-	name: 'riparia_http_request_duration_seconds',
-	help: 'Time from receiving a request to its response headers, by route id and status class.',
-	labelNames: ['route', 'status_class'] as const,
-	buckets: [0.005, 0.01, 0.025, 0.05, 0.1, 0.25, 0.5, 1, 2.5, 5, 10],
-	registers
-});
+export const outboxDeliveries = counter(
+	'riparia_outbox_deliveries_total',
+	'Delivery attempts by this process: sent, retry (failed, tried again later) or failed (given up).',
+	['result']
+);
+export const outboxMessages = gauge('riparia_outbox_messages', 'Messages in the outbox by state (queued, sending, sent, failed), counted at scrape time.', [
+	'state'
+]);
+export const outboxOldestQueuedAge = gauge(
+	'riparia_outbox_oldest_queued_age_seconds',
+	'Age of the oldest message not yet delivered (queued or sending); 0 when there is none.'
+);
+export const outboxWorkerLastTickAge = gauge(
+	'riparia_outbox_worker_last_tick_age_seconds',
+	'Seconds since any instance’s outbox worker last finished a round (from job_run).'
+);
 
-export const outboxDeliveries = new Counter({
-	name: 'riparia_outbox_deliveries_total',
-	help: 'Delivery attempts by this process: sent, retry (failed, tried again later) or failed (given up).',
-	labelNames: ['result'] as const,
-	registers
-});
+export const jobLastRunAge = gauge('riparia_job_last_run_age_seconds', 'Seconds since each periodic job last ran (from job_run).', ['job']);
+export const jobLastRunFailed = gauge('riparia_job_last_run_failed', '1 when the last run of the job failed, else 0.', ['job']);
 
-export const outboxMessages = new Gauge({
-	name: 'riparia_outbox_messages',
-	help: 'Messages in the outbox by state (queued, sending, sent, failed), counted at scrape time.',
-	labelNames: ['state'] as const,
-	registers
-});
+export const readyCheck = gauge('riparia_ready_check', '1 when the readiness check passes, else 0 (the same checks as /readyz).', ['check']);
+export const scrapeErrors = counter('riparia_metrics_scrape_errors_total', 'Scrapes whose database gauges could not be read (the gauges are then left out).');
 
-export const outboxOldestQueuedAge = new Gauge({
-	name: 'riparia_outbox_oldest_queued_age_seconds',
-	help: 'Age of the oldest message not yet delivered (queued or sending); 0 when there is none.',
-	registers
-});
-
-export const jobLastRunAge = new Gauge({
-	name: 'riparia_job_last_run_age_seconds',
-	help: 'Seconds since each periodic job last ran (from job_run).',
-	labelNames: ['job'] as const,
-	registers
-});
-
-export const jobLastRunFailed = new Gauge({
-	name: 'riparia_job_last_run_failed',
-	help: '1 when the last run of the job failed, else 0.',
-	labelNames: ['job'] as const,
-	registers
-});
-
-export const outboxWorkerLastTickAge = new Gauge({
-	name: 'riparia_outbox_worker_last_tick_age_seconds',
-	help: 'Seconds since any instance’s outbox worker last finished a round (from job_run).',
-	registers
-});
-
-export const readyCheck = new Gauge({
-	name: 'riparia_ready_check',
-	help: '1 when the readiness check passes, else 0 (the same checks as /readyz).',
-	labelNames: ['check'] as const,
-	registers
-});
-
-export const scrapeErrors = new Counter({
-	name: 'riparia_metrics_scrape_errors_total',
-	help: 'Scrapes whose database gauges could not be read (the gauges are then left out).',
-	registers
-});
-
-export const uploadSeconds = new Histogram({
-	name: 'riparia_upload_processing_seconds',
-	help: 'Time to check, convert and store one uploaded photo, by outcome (ok, rejected, error).',
-	labelNames: ['outcome'] as const,
-	buckets: [0.05, 0.1, 0.25, 0.5, 1, 2, 4, 8, 16, 32],
-	registers
-});
+export const uploadSeconds = histogram(
+	'riparia_upload_processing_seconds',
+	'Time to check, convert and store one uploaded photo, by outcome (ok, rejected, error).',
+	['outcome'],
+	[0.05, 0.1, 0.25, 0.5, 1, 2, 4, 8, 16, 32]
+);

@@ -68,13 +68,15 @@ try {
 	const needsStack = serve || runners.some((r) => r !== 'unit');
 	if (runners.includes('e2e') && !existsSync(CHROMIUM)) aptInstall(['chromium'], 'The browser tests');
 
-	let env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'test' };
+	// Code the tests run in-process logs warnings and errors only (LOG_LEVEL=info shows everything).
+	const quiet = { NODE_ENV: 'test', LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
+	let env: NodeJS.ProcessEnv = { ...process.env, ...quiet };
 	if (needsStack) {
 		stack = await bringUp({ mode: 'test', home: join(dataRoot, 'test'), ports: portsFor('test'), database: 'riparia_test', fresh: true });
 		step('Starting the app for the tests…');
 		await stack.serve();
 		ok(`Test stack is up at ${stack.urls.app}`);
-		env = { ...stack.env, NODE_ENV: 'test' };
+		env = { ...stack.env, ...quiet };
 		if (serve) {
 			console.log(`\n  Serving the test stack until Ctrl-C: app ${stack.urls.app}, mail ${stack.urls.mail}\n`);
 			await new Promise(() => {});

@@ -39,6 +39,7 @@ export async function startInstance(options: {
 			// As the stack runs its app: production mode, JSON log lines the tests can read.
 			NODE_ENV: 'production',
 			LOG_FORMAT: 'json',
+			LOG_LEVEL: 'info',
 			DATABASE_URL: options.databaseUrl,
 			PORT: String(port),
 			HOST: '127.0.0.1',

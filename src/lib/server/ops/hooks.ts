@@ -4,7 +4,7 @@
 //   token —, status, duration, viewer) and counts it into the metrics;
 // - probes answers /healthz, /readyz and /metrics itself, before sign-in, the display-name prompt
 //   or anything else runs, so a probe needs no session and is never redirected.
-import type { Handle, RequestEvent } from '@sveltejs/kit';
+import { isHttpError, isRedirect, type Handle, type RequestEvent } from '@sveltejs/kit';
 import { acceptRequestId, newRequestId, statusClass } from '../../ops/request-id';
 import { liveResponse, readyResponse } from './health';
 import { log } from './log';
@@ -52,14 +52,26 @@ export const observeRequests: Handle = async ({ event, resolve }) => {
 	try {
 		response = await resolve(event);
 	} catch (error) {
-		// SvelteKit turns errors into pages inside resolve; whatever still escapes is a 500.
-		record(event, 500, started);
+		// A redirect or error thrown by a later hook (the display-name prompt) is turned into a
+		// response by SvelteKit itself, past every hook: it is logged here but carries no header.
+		record(event, isRedirect(error) || isHttpError(error) ? error.status : 500, started);
 		throw error;
 	}
 	record(event, response.status, started);
-	response.headers.set('X-Request-Id', requestId);
-	return response;
+	return withRequestId(response, requestId);
 };
+
+function withRequestId(response: Response, requestId: string): Response {
+	try {
+		response.headers.set('X-Request-Id', requestId);
+		return response;
+	} catch {
+		// Response.redirect() (Auth.js's) and fetched responses have immutable headers: answer with a copy.
+		const copy = new Response(response.body, response);
+		copy.headers.set('X-Request-Id', requestId);
+		return copy;
+	}
+}
 
 export const probes: Handle = async ({ event, resolve }) => {
 	const probe =

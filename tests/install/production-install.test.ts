@@ -27,7 +27,7 @@ afterAll(async () => {
 
 /**
  * The environment of a production shell: nothing from this checkout's node_modules/.bin on the
- * PATH, no preloaded loaders (tsx), no NODE_PATH.
+ * PATH, no preloaded loaders (tsx), no NODE_PATH…
  */
 function productionEnv(extra: NodeJS.ProcessEnv = {}): NodeJS.ProcessEnv {
 	const env: NodeJS.ProcessEnv = { ...process.env, ...extra };
@@ -35,7 +35,8 @@ function productionEnv(extra: NodeJS.ProcessEnv = {}): NodeJS.ProcessEnv {
 		.split(delimiter)
 		.filter((dir) => !dir.includes('node_modules'))
 		.join(delimiter);
-	for (const name of ['NODE_OPTIONS', 'NODE_PATH', 'VITEST', 'VITEST_POOL_ID', 'VITEST_WORKER_ID', 'TEST']) delete env[name];
+	// …and the logging defaults of a server (npm test quiets its own in-process code with LOG_LEVEL).
+	for (const name of ['NODE_OPTIONS', 'NODE_PATH', 'VITEST', 'VITEST_POOL_ID', 'VITEST_WORKER_ID', 'TEST', 'LOG_LEVEL', 'LOG_FORMAT']) delete env[name];
 	env.NODE_ENV = 'production';
 	return env;
 }

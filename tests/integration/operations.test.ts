@@ -14,6 +14,10 @@ import { checkoutRoot, poll, startInstance, type AppInstance } from '../helpers/
 import { uploadFile } from '../helpers/media';
 import { makePerson } from '../helpers/people';
 import { freePort } from '../helpers/ports';
+import { scratchDatabase } from '../helpers/scratch-db';
+import { asc, eq } from 'drizzle-orm';
+import { deliverDue, enqueue, queueStats } from '../../src/lib/server/mail/outbox';
+import { outbox } from '../../src/lib/server/mail/schema';
 
 const required = (name: string) => {
 	const value = process.env[name];
@@ -150,6 +154,29 @@ describe('metrics', () => {
 		expect(body).toMatch(/^riparia_ready_check\{check="database"\} 1$/m);
 		expect(body).toMatch(/^process_cpu_seconds_total /m);
 		expect(body).not.toContain(secret);
+	});
+
+	test('the outbox gauges: messages per state and when the oldest undelivered one was queued', async () => {
+		const scratch = await scratchDatabase();
+		try {
+			expect(await queueStats(scratch.db)).toEqual({ byState: { queued: 0, sending: 0, sent: 0, failed: 0 }, oldestUndelivered: null });
+			const message = (n: number) => ({ to: `gauge-${n}@tests.riparia.test`, subject: 'Gauge', text: 'x', html: '<p>x</p>' });
+			await enqueue(scratch.db, [message(1), message(2)], new Date('2026-11-30T08:00:00Z'));
+			await enqueue(scratch.db, [message(3)], new Date('2026-11-30T09:00:00Z'));
+			const transport = { send: async () => {}, close: () => {} };
+			// One delivered (the batch takes the oldest), two still waiting.
+			expect(await deliverDue({ db: scratch.db, transport, worker: 'gauge', batchSize: 1, now: new Date('2026-11-30T09:30:00Z') })).toEqual({
+				sent: 1,
+				failed: 0
+			});
+			const stats = await queueStats(scratch.db);
+			expect(stats.byState).toEqual({ queued: 2, sending: 0, sent: 1, failed: 0 });
+			const waiting = await scratch.db.select({ at: outbox.createdAt }).from(outbox).where(eq(outbox.state, 'queued')).orderBy(asc(outbox.createdAt));
+			expect(stats.oldestUndelivered).toBeInstanceOf(Date);
+			expect(stats.oldestUndelivered).toEqual(waiting[0]!.at);
+		} finally {
+			await scratch.drop();
+		}
 	});
 
 	test('the metrics listener answers on 127.0.0.1 without a token and is bound to nothing else', async () => {

@@ -224,7 +224,7 @@ export function startWorker(options: { intervalMs?: number; onError?: (e: unknow
  */
 export async function queueStats(db: Database = appDb): Promise<{ byState: Record<OutboxState, number>; oldestUndelivered: Date | null }> {
 	const [rows] = (await db.execute(sql`
-		SELECT ${outbox.state} AS state, COUNT(*) AS n, NULL AS oldest FROM ${outbox} GROUP BY ${outbox.state}
+		SELECT ${outbox.state} AS state, COUNT(*) AS n, CAST(NULL AS DATETIME(3)) AS oldest FROM ${outbox} GROUP BY ${outbox.state}
 		UNION ALL
 		SELECT 'oldest', 0, MIN(${outbox.createdAt}) FROM ${outbox} WHERE ${outbox.state} IN ('queued', 'sending')`)) as unknown as [
 		{ state: string; n: number | string; oldest: Date | null }[]

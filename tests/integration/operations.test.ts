@@ -15,7 +15,7 @@ import { uploadFile } from '../helpers/media';
 import { makePerson } from '../helpers/people';
 import { freePort } from '../helpers/ports';
 import { scratchDatabase } from '../helpers/scratch-db';
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, sql } from 'drizzle-orm';
 import { deliverDue, enqueue, queueStats } from '../../src/lib/server/mail/outbox';
 import { outbox } from '../../src/lib/server/mail/schema';
 
@@ -159,21 +159,22 @@ describe('metrics', () => {
 	test('the outbox gauges: messages per state and when the oldest undelivered one was queued', async () => {
 		const scratch = await scratchDatabase();
 		try {
-			expect(await queueStats(scratch.db)).toEqual({ byState: { queued: 0, sending: 0, sent: 0, failed: 0 }, oldestUndelivered: null });
+			expect(await queueStats(scratch.db)).toEqual({ byState: { queued: 0, sending: 0, sent: 0, failed: 0 }, oldestUndeliveredSeconds: null });
 			const message = (n: number) => ({ to: `gauge-${n}@tests.riparia.test`, subject: 'Gauge', text: 'x', html: '<p>x</p>' });
-			await enqueue(scratch.db, [message(1), message(2)], new Date('2026-11-30T08:00:00Z'));
-			await enqueue(scratch.db, [message(3)], new Date('2026-11-30T09:00:00Z'));
+			await enqueue(scratch.db, [message(1), message(2), message(3)]);
 			const transport = { send: async () => {}, close: () => {} };
-			// One delivered (the batch takes the oldest), two still waiting.
-			expect(await deliverDue({ db: scratch.db, transport, worker: 'gauge', batchSize: 1, now: new Date('2026-11-30T09:30:00Z') })).toEqual({
-				sent: 1,
-				failed: 0
-			});
+			// One delivered (the batch takes the first), two still waiting.
+			expect(await deliverDue({ db: scratch.db, transport, worker: 'gauge', batchSize: 1 })).toEqual({ sent: 1, failed: 0 });
+			// The second has waited two hours (queued then, by the database's clock).
+			const [second] = await scratch.db.select({ id: outbox.id }).from(outbox).where(eq(outbox.state, 'queued')).orderBy(asc(outbox.id)).limit(1);
+			await scratch.db
+				.update(outbox)
+				.set({ createdAt: sql`UTC_TIMESTAMP(3) - INTERVAL 7200 SECOND` })
+				.where(eq(outbox.id, second!.id));
 			const stats = await queueStats(scratch.db);
 			expect(stats.byState).toEqual({ queued: 2, sending: 0, sent: 1, failed: 0 });
-			const waiting = await scratch.db.select({ at: outbox.createdAt }).from(outbox).where(eq(outbox.state, 'queued')).orderBy(asc(outbox.createdAt));
-			expect(stats.oldestUndelivered).toBeInstanceOf(Date);
-			expect(stats.oldestUndelivered).toEqual(waiting[0]!.at);
+			expect(stats.oldestUndeliveredSeconds).toBeGreaterThanOrEqual(7200);
+			expect(stats.oldestUndeliveredSeconds).toBeLessThan(7260);
 		} finally {
 			await scratch.drop();
 		}

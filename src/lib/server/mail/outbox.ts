@@ -219,21 +219,21 @@ export function startWorker(options: { intervalMs?: number; onError?: (e: unknow
 
 /**
  * The outbox at a glance for the metrics, in one query: messages per state (answered from the
- * (state, next_attempt_at) index) and when the oldest undelivered one was queued (reads only the
- * few undelivered rows).
+ * (state, next_attempt_at) index) and how long the oldest undelivered one has waited (reads only
+ * the few undelivered rows; measured on the database's clock, which also stamped it).
  */
-export async function queueStats(db: Database = appDb): Promise<{ byState: Record<OutboxState, number>; oldestUndelivered: Date | null }> {
+export async function queueStats(db: Database = appDb): Promise<{ byState: Record<OutboxState, number>; oldestUndeliveredSeconds: number | null }> {
 	const [rows] = (await db.execute(sql`
-		SELECT ${outbox.state} AS state, COUNT(*) AS n, CAST(NULL AS DATETIME(3)) AS oldest FROM ${outbox} GROUP BY ${outbox.state}
+		SELECT ${outbox.state} AS state, COUNT(*) AS n, NULL AS waited FROM ${outbox} GROUP BY ${outbox.state}
 		UNION ALL
-		SELECT 'oldest', 0, MIN(${outbox.createdAt}) FROM ${outbox} WHERE ${outbox.state} IN ('queued', 'sending')`)) as unknown as [
-		{ state: string; n: number | string; oldest: Date | null }[]
-	];
+		SELECT 'oldest', 0, TIMESTAMPDIFF(MICROSECOND, MIN(${outbox.createdAt}), UTC_TIMESTAMP(3)) / 1000000
+		FROM ${outbox} WHERE ${outbox.state} IN ('queued', 'sending')`)) as unknown as [{ state: string; n: number | string; waited: number | string | null }[]];
 	const byState = Object.fromEntries(OUTBOX_STATES.map((s) => [s, 0])) as Record<OutboxState, number>;
-	let oldestUndelivered: Date | null = null;
+	let oldestUndeliveredSeconds: number | null = null;
 	for (const row of rows) {
-		if (row.state === 'oldest') oldestUndelivered = row.oldest;
+		// COUNT and the division come back as strings (DECIMAL) or numbers depending on the driver's settings.
+		if (row.state === 'oldest') oldestUndeliveredSeconds = row.waited === null ? null : Math.max(0, Number(row.waited));
 		else if ((OUTBOX_STATES as readonly string[]).includes(row.state)) byState[row.state as OutboxState] = Number(row.n);
 	}
-	return { byState, oldestUndelivered };
+	return { byState, oldestUndeliveredSeconds };
 }

@@ -21,7 +21,7 @@ async function fillGauges(now = Date.now()): Promise<void> {
 				const [stats, runs] = await Promise.all([queueStats(), lastRuns()]);
 				m.outboxMessages.reset();
 				for (const [state, n] of Object.entries(stats.byState)) m.outboxMessages.set({ state }, n);
-				m.outboxOldestQueuedAge.set(stats.oldestUndelivered ? Math.max(0, (now - stats.oldestUndelivered.getTime()) / 1000) : 0);
+				m.outboxOldestQueuedAge.set(stats.oldestUndeliveredSeconds ?? 0);
 				m.jobLastRunAge.reset();
 				m.jobLastRunFailed.reset();
 				m.outboxWorkerLastTickAge.reset();

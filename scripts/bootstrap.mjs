@@ -18,8 +18,9 @@ if (!command || !Object.hasOwn(entries, command)) {
 }
 
 const [major = 0, minor = 0] = process.versions.node.split('.').map(Number);
-if (major < 20 || (major === 20 && minor < 9)) {
-	console.error(`Riparia needs Node.js 20.9 or newer; this is ${process.version}.`);
+// The build tool (vite 8) needs 20.19 or newer; package.json's engines says the same.
+if (major < 20 || (major === 20 && minor < 19)) {
+	console.error(`Riparia needs Node.js 20.19 or newer; this is ${process.version}.`);
 	process.exit(1);
 }
 

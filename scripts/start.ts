@@ -32,6 +32,7 @@ try {
 ${DEMO_SIGN_IN.map((p) => `    ${p.role.padEnd(7)} ${p.email.padEnd(32)} ${p.name}`).join('\n')}
 
   Photos are kept by the local storage fake at ${stack.urls.s3}
+  Health: ${stack.urls.app}/readyz · metrics (this machine only): ${stack.urls.metrics}
   Press Ctrl-C to stop the app, the fakes and MariaDB.
 `);
 } catch (error) {

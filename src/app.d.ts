@@ -5,6 +5,8 @@ declare global {
 		interface Locals {
 			user: Viewer | null;
 			sessionToken: string | null;
+			/** This request's id: echoed as X-Request-Id, on its log line, and shown on an error page. */
+			requestId: string;
 		}
 		interface Error {
 			message: string;

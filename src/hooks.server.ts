@@ -14,30 +14,36 @@ import { countQueries } from '$lib/server/db/query-count';
 import { safeRedirectPath } from '$lib/club/redirect';
 import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
+import { log } from '$lib/server/ops/log';
+import { observeRequests, probes } from '$lib/server/ops/hooks';
+import { newRequestId } from '$lib/ops/request-id';
+import { startMetricsServer } from '$lib/server/ops/scrape';
 
 export const init: ServerInit = async () => {
 	if (building) return;
-	const stopWorker = config().OUTBOX_WORKER
-		? startWorker({ onError: (e) => console.error('[outbox] delivery round failed:', e instanceof Error ? e.message : e) })
-		: () => {};
+	const stopWorker = config().OUTBOX_WORKER ? startWorker() : () => {};
 	const stopJobs = startJobs(jobs);
+	const metricsPort = config().METRICS_PORT;
+	const metricsServer = metricsPort ? startMetricsServer(metricsPort) : null;
 	// adapter-node emits this once the HTTP server has closed; open timers and pooled
 	// connections would otherwise keep the process alive.
+	// A round in progress finishes before the pool closes.
 	process.once('sveltekit:shutdown', () => {
-		stopWorker();
-		stopJobs();
-		defaultTransport().close();
-		void pool.end();
+		metricsServer?.close();
+		void Promise.all([stopWorker(), stopJobs()]).finally(() => {
+			defaultTransport().close();
+			void pool.end();
+		});
 	});
 };
+
+/** A redirect returned (not thrown), so the outer hooks still add their headers to it. */
+const seeOther = (location: string) => new Response(null, { status: 303, headers: { location } });
 
 /**
  * Sign-in links are requested only through /signin, where they are validated and rate-limited;
  * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
  */
-/** A redirect returned (not thrown), so the outer hooks still add their headers to it. */
-const seeOther = (location: string) => new Response(null, { status: 303, headers: { location } });
-
 const AUTH_PAGES: Record<string, string> = {
 	'/auth/signin': '/signin',
 	'/auth/signout': '/',
@@ -116,15 +122,27 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-// Outermost first: every response, Auth.js's included, leaves through responseHeaders.
-export const handle: Handle = sequence(countQueries, responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName);
+// Outermost first: requests get their id and log line, statements are counted, and every
+// response, Auth.js's included, leaves through responseHeaders.
+export const handle: Handle = sequence(
+	observeRequests,
+	countQueries,
+	responseHeaders,
+	probes,
+	checkRequests,
+	onlyOurAuthPages,
+	authHandle,
+	resolveViewer,
+	askForDisplayName
+);
 
-/** Last resort: log the error under an id, show the person only that id. */
+/** Last resort: log the error under the request's id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
-	const errorId = crypto.randomUUID().slice(0, 8);
+	// Set by observeRequests, first in the sequence; the fallback only guards against a reordering.
+	const errorId = event.locals.requestId ?? newRequestId();
 	if (status >= 500) {
-		// Query strings can carry sign-in tokens: log the path only.
-		console.error(`[error ${errorId}] ${event.request.method} ${event.url.pathname}:`, error);
+		// Query strings can carry sign-in tokens: the route id only, never the URL.
+		log.error({ reqId: errorId, method: event.request.method, route: event.route.id, err: error }, 'unexpected error');
 	}
 	return {
 		message: status === 404 ? 'We could not find that page.' : status >= 500 ? 'Something went wrong on our side.' : message,

@@ -155,7 +155,8 @@ export async function startCluster(options: ClusterOptions): Promise<Cluster> {
 			managed.push(
 				spawnManaged(name, process.execPath, [join(root, 'build', 'index.js')], {
 					cwd: root,
-					env: { ...appEnv, PORT: String(port) },
+					// Each instance's metrics listener on a port of its own, after the stack's.
+					env: { ...appEnv, PORT: String(port), METRICS_PORT: String(Number(appEnv.METRICS_PORT ?? 9464) + i + 1) },
 					logFile: log(`app-${i + 1}`)
 				})
 			);

@@ -17,6 +17,8 @@ export interface Ports {
 	smtp: number;
 	mailUi: number;
 	s3: number;
+	/** The app's metrics listener (127.0.0.1 only). */
+	metrics: number;
 }
 
 export type StackMode = 'start' | 'test' | 'bench';
@@ -69,7 +71,8 @@ export function portsFor(mode: StackMode): Ports {
 			db: envPort('DB_PORT', 3307),
 			smtp: envPort('SMTP_PORT', 2525),
 			mailUi: envPort('MAIL_UI_PORT', 8025),
-			s3: envPort('S3_PORT', 4569)
+			s3: envPort('S3_PORT', 4569),
+			metrics: envPort('METRICS_PORT', 9464)
 		};
 	}
 	// Test ports sit apart from the start ports so both can run at once; TEST_PORT_OFFSET moves them all.
@@ -87,13 +90,14 @@ export function portsFor(mode: StackMode): Ports {
 		db: 3317 + base + offset,
 		smtp: 2535 + base + offset,
 		mailUi: 8035 + base + offset,
-		s3: 4579 + base + offset
+		s3: 4579 + base + offset,
+		metrics: 9474 + base + offset
 	};
 }
 
 export interface Stack {
 	env: NodeJS.ProcessEnv;
-	urls: { app: string; mail: string; s3: string };
+	urls: { app: string; mail: string; s3: string; metrics: string };
 	db: RunningMariaDb | null;
 	stop(): Promise<void>;
 	/** Starts the built app; resolves once it listens, with a promise that settles if it exits. */
@@ -115,7 +119,9 @@ export function hashTree(hash: ReturnType<typeof createHash>, path: string) {
 /** A hash of everything the build depends on; the build is redone only when it changes. */
 function sourceHash(): string {
 	const hash = createHash('sha256');
-	for (const item of ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json']) {
+	const app = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package.json', 'package-lock.json'];
+	const databaseScripts = ['drizzle', 'scripts/migrate.ts', 'scripts/seed.ts', 'scripts/seed', 'vite.scripts.config.ts'];
+	for (const item of [...app, ...databaseScripts]) {
 		hashTree(hash, join(root, item));
 	}
 	return hash.digest('hex');
@@ -128,10 +134,13 @@ export function ensureBuild(): void {
 		note('The build is current; reusing it.');
 		return;
 	}
-	step('Building the app (vite build)…');
-	const result = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
-	if (result.status !== 0) {
-		throw new SetupError('The app did not build (see the errors above).', 'Fix the build errors, or run `npm run check` for details.');
+	step('Building the app and the database scripts (npm run build)…');
+	// The same two steps as `npm run build`, with vite's output cut down to warnings.
+	for (const config of ['vite.config.ts', 'vite.scripts.config.ts']) {
+		const result = spawnSync('npx', ['vite', 'build', '-c', config, '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+		if (result.status !== 0) {
+			throw new SetupError('The app did not build (see the errors above).', 'Fix the build errors, or run `npm run check` for details.');
+		}
 	}
 	writeFileSync(marker, current);
 	ok('Built.');
@@ -139,6 +148,18 @@ export function ensureBuild(): void {
 
 export function runNodeScript(script: string, env: NodeJS.ProcessEnv, what: string, args: string[] = []) {
 	const result = spawnSync(process.execPath, ['--import', 'tsx', join(root, script), ...args], { cwd: root, env, stdio: 'inherit' });
+	if (result.status !== 0) {
+		throw new SetupError(`${what} failed (see above).`, 'Fix the error shown above and run the command again.');
+	}
+}
+
+/** Runs a built script (build/scripts/*.js) with plain Node, as `npm run db:migrate` does in production. */
+function runBuiltScript(script: string, env: NodeJS.ProcessEnv, what: string) {
+	const result = spawnSync(process.execPath, [join(root, 'build', 'scripts', script)], {
+		cwd: root,
+		env: { ...env, LOG_FORMAT: env.LOG_FORMAT ?? 'pretty' },
+		stdio: 'inherit'
+	});
 	if (result.status !== 0) {
 		throw new SetupError(`${what} failed (see above).`, 'Fix the error shown above and run the command again.');
 	}
@@ -208,7 +229,10 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 			S3_BUCKET: bucket,
 			S3_FORCE_PATH_STYLE: useFakeStorage ? 'true' : (process.env.S3_FORCE_PATH_STYLE ?? 'true'),
 			...(useFakeStorage ? { S3_ACCESS_KEY_ID: 'S3RVER', S3_SECRET_ACCESS_KEY: 'S3RVER' } : {}),
-			MAIL_UI_URL: `http://127.0.0.1:${ports.mailUi}`
+			MAIL_UI_URL: `http://127.0.0.1:${ports.mailUi}`,
+			METRICS_PORT: String(ports.metrics),
+			// Readable lines in the terminal of `npm start`; JSON (NODE_ENV=production) in the test log.
+			...(options.mode === 'start' ? { LOG_FORMAT: process.env.LOG_FORMAT ?? 'pretty' } : {})
 		};
 		// Demo people and tanks only where the database is our own local one, unless asked for.
 		env.SEED_DEMO = process.env.SEED_DEMO ?? (externalDatabase ? '0' : '1');
@@ -217,6 +241,9 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 			env.APP_URL = appUrl;
 			// Many sign-ins come from one test client; the limit itself is covered by its own test.
 			env.SIGNIN_LIMIT_PER_CLIENT = '1000';
+			// /metrics on the app's port with a token made for this run; the tests read both from here.
+			env.METRICS_TOKEN = randomBytes(24).toString('hex');
+			env.APP_LOG = join(options.home, 'app.log');
 		}
 
 		if (useFakeMail) {
@@ -237,8 +264,11 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 			managed.push(storage);
 		}
 
+		// The database scripts run from the build, as in production, so the build comes first.
+		ensureBuild();
+
 		step('Applying database migrations…');
-		runNodeScript('scripts/migrate.ts', env, 'Applying migrations');
+		runBuiltScript('migrate.js', env, 'Applying migrations');
 
 		for (const [port, name] of [
 			...(useFakeMail ? [[ports.smtp, 'the mail fake'] as const] : []),
@@ -250,12 +280,11 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 		}
 
 		step('Seeding the demo club (only what is not there yet)…');
-		runNodeScript('scripts/seed.ts', env, 'Seeding the demo club');
-
-		ensureBuild();
+		runBuiltScript('seed.js', env, 'Seeding the demo club');
 
 		const serve = async () => {
 			await requireFreePort(ports.app, 'the app', options.mode === 'start' ? 'PORT' : 'TEST_PORT_OFFSET');
+			await requireFreePort(ports.metrics, 'the app’s metrics', options.mode === 'start' ? 'METRICS_PORT' : 'TEST_PORT_OFFSET');
 			const logFile = options.mode !== 'start' ? openSync(join(options.home, 'app.log'), 'w') : 'inherit';
 			const app = spawnManaged('the app', process.execPath, [join(root, 'build', 'index.js')], { cwd: root, env, logFile });
 			managed.push(app);
@@ -270,7 +299,12 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 
 		return {
 			env,
-			urls: { app: appUrl, mail: `http://127.0.0.1:${ports.mailUi}/`, s3: `http://127.0.0.1:${ports.s3}/` },
+			urls: {
+				app: appUrl,
+				mail: `http://127.0.0.1:${ports.mailUi}/`,
+				s3: `http://127.0.0.1:${ports.s3}/`,
+				metrics: `http://127.0.0.1:${ports.metrics}/metrics`
+			},
 			get db() {
 				return db;
 			},

@@ -161,7 +161,7 @@ export async function update(viewer: Viewer, entryId: number, input: EntryInput,
 		await tx.update(contestEntries).set(values).where(eq(contestEntries.id, entry.id));
 		return media.setPhotos(tx, viewer.id, SCOPE, entry.id, input.photos, { max: ENTRY_PHOTOS_MAX, now }).catch(wrapMedia);
 	});
-	await media.purge(purge).catch((e: unknown) => console.error(`[contests] removing replaced photos of entry ${entryId} failed:`, e));
+	await media.purgeAfterCommit(purge, { contestEntryId: entryId, what: 'replaced photos' });
 }
 
 export async function withdraw(viewer: Viewer, entryId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
@@ -177,7 +177,7 @@ export async function withdraw(viewer: Viewer, entryId: number, options: { now?:
 		await audit.record(tx, viewer.id, 'entry.withdraw', entry.contestId, { entryId: entry.id });
 		return { contestId: entry.contestId, purge: keys };
 	});
-	await media.purge(purge).catch((e: unknown) => console.error(`[contests] removing photos of withdrawn entry ${entryId} failed:`, e));
+	await media.purgeAfterCommit(purge, { contestEntryId: entryId, what: 'photos of a withdrawn entry' });
 	return contestId;
 }
 

@@ -2,6 +2,9 @@ import { hostname } from 'node:os';
 import { and, eq, isNull, lte, or, sql } from 'drizzle-orm';
 import { db as appDb, type Database } from '../db';
 import { jobRuns } from '../db/meta';
+import { component, reason } from '../ops/log';
+
+const log = component('jobs');
 
 export interface Job {
 	/** Stable name; the row in job_run is keyed by it. */
@@ -57,11 +60,14 @@ export async function runDueJobs(jobs: Job[], options: { now?: Date; worker?: st
 	for (const job of jobs) {
 		if (!(await claim(job, worker, now, db))) continue;
 		let failure: unknown = null;
+		const started = performance.now();
 		try {
-			await job.run(now);
+			const result = await job.run(now);
+			// Jobs return how many things they handled (mails queued, listings expired…).
+			log.info({ job: job.name, ms: Math.round(performance.now() - started), ...(typeof result === 'number' ? { handled: result } : {}) }, 'job ran');
 		} catch (error) {
 			failure = error;
-			console.error(`[jobs] ${job.name} failed:`, error instanceof Error ? error.message : error);
+			log.error({ job: job.name, ms: Math.round(performance.now() - started), reason: reason(error) }, 'job failed');
 		}
 		await release(job, now, failure, db);
 		ran.push(job.name);
@@ -80,7 +86,7 @@ export function startJobs(jobs: Job[], intervalMs = 30_000) {
 		try {
 			await runDueJobs(jobs);
 		} catch (error) {
-			console.error('[jobs] round failed:', error instanceof Error ? error.message : error);
+			log.error({ reason: reason(error) }, 'job round failed');
 		}
 		if (!stopped) timer = setTimeout(() => void tick(), intervalMs);
 	};
@@ -90,4 +96,21 @@ export function startJobs(jobs: Job[], intervalMs = 30_000) {
 		if (timer) clearTimeout(timer);
 		return round;
 	};
+}
+
+/**
+ * Records that a long-running worker (not a claimed job) finished a round, e.g. `outbox-worker`;
+ * its row in job_run is never claimed by the runner, only read by /readyz and the metrics.
+ */
+export async function recordHeartbeat(name: string, worker: string, at: Date, db: Database = appDb): Promise<void> {
+	await db
+		.insert(jobRuns)
+		.values({ name, lastRunAt: at, lockedBy: worker })
+		.onDuplicateKeyUpdate({ set: { lastRunAt: at, lockedBy: worker } });
+}
+
+/** Every row of job_run: when each job (and each worker's heartbeat) last ran, and whether it failed. */
+export async function lastRuns(db: Database = appDb): Promise<{ name: string; lastRunAt: Date | null; failed: boolean }[]> {
+	const rows = await db.select({ name: jobRuns.name, lastRunAt: jobRuns.lastRunAt, lastError: jobRuns.lastError }).from(jobRuns);
+	return rows.map((r) => ({ name: r.name, lastRunAt: r.lastRunAt, failed: r.lastError !== null }));
 }

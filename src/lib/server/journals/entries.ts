@@ -254,7 +254,7 @@ export async function update(
 		await tanks.touch(tx, tankId, now);
 		return keys;
 	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[entries] removing dropped photos of entry ${entryId} failed:`, error));
+	await media.purgeAfterCommit(purge, { entryId, what: 'dropped photos' });
 }
 
 /** Deletes an entry with its events, comments and photos (objects after the commit). */

@@ -317,7 +317,7 @@ export async function update(viewer: Viewer, id: number, input: TankInput, cover
 		await writeChildren(tx, id, input);
 		return media.setPhotos(tx, viewer.id, 'tank', id, cover, { max: TANK_COVER_MAX });
 	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[tanks] removing replaced photos of tank ${id} failed:`, error));
+	await media.purgeAfterCommit(purge, { tankId: id, what: 'replaced photos' });
 }
 
 /** Retires a running tank: it stays on the profile with all its history, marked as taken down. */
@@ -360,7 +360,7 @@ export async function remove(
 		await tx.delete(tanks).where(eq(tanks.id, id));
 		return [...extra, ...keys];
 	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[tanks] removing photos of deleted tank ${id} failed:`, error));
+	await media.purgeAfterCommit(purge, { tankId: id, what: 'photos of a deleted tank' });
 }
 
 /** Media access for scope 'tank' (registered in ../media/access.ts): the tank's own visibility. */

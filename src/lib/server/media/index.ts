@@ -11,6 +11,10 @@ import { media, type MediaRow, type StoredRendition } from './schema';
 import { MediaError, prepareImage } from './process';
 import { store as defaultStore, type ObjectStore } from './storage';
 import type { MediaScope } from './access';
+import { component, reason } from '../ops/log';
+import { uploadSeconds } from '../ops/metrics';
+
+const log = component('media');
 
 export { MediaError } from './process';
 export type { MediaScope } from './access';
@@ -67,6 +71,21 @@ interface Deps {
  * insert fails.
  */
 export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}): Promise<UploadResult> {
+	const started = performance.now();
+	let outcome = 'error';
+	try {
+		const result = await storeUpload(ownerId, bytes, deps);
+		outcome = 'ok';
+		return result;
+	} catch (error) {
+		if (error instanceof MediaError) outcome = 'rejected';
+		throw error;
+	} finally {
+		uploadSeconds.observe({ outcome }, (performance.now() - started) / 1000);
+	}
+}
+
+async function storeUpload(ownerId: string, bytes: Uint8Array, deps: Deps): Promise<UploadResult> {
 	const database = deps.db ?? appDb;
 	const bucket = deps.store ?? defaultStore();
 	const [pending] = await database
@@ -112,7 +131,7 @@ export async function upload(ownerId: string, bytes: Uint8Array, deps: Deps = {}
 		return { id: result.insertId, width: prepared.width, height: prepared.height, urls: mediaUrls(result.insertId) };
 	} catch (error) {
 		await bucket.remove(written).catch((cleanup: unknown) => {
-			console.error(`[media] could not remove ${written.length} objects of a failed upload under ${storageKey}:`, cleanup);
+			log.error({ objects: written.length, storageKey, reason: reason(cleanup) }, 'objects of a failed upload could not be removed');
 		});
 		throw error;
 	}
@@ -125,6 +144,14 @@ export type Purge = string[];
 export async function purge(keys: Purge, deps: Deps = {}): Promise<void> {
 	if (keys.length === 0) return;
 	await (deps.store ?? defaultStore()).remove(keys);
+}
+
+/**
+ * purge() after a member's change has committed: a failure is logged with what it was about
+ * (e.g. `{ tankId: 4, what: 'replaced photos' }`) and does not undo or fail the change.
+ */
+export async function purgeAfterCommit(keys: Purge, about: Record<string, string | number>): Promise<void> {
+	await purge(keys).catch((error: unknown) => log.error({ ...about, objects: keys.length, reason: reason(error) }, 'removing photos from the bucket failed'));
 }
 
 /** The photos of one thing, in order. */
@@ -330,7 +357,7 @@ export async function sweepPending(options: { now?: Date; batch?: number } & Dep
 			await database.delete(media).where(and(eq(media.id, row.id), isNull(media.scope)));
 			removed++;
 		} catch (error) {
-			console.error(`[media] sweeping pending upload ${row.id} failed:`, error instanceof Error ? error.message : error);
+			log.error({ mediaId: row.id, reason: reason(error) }, 'sweeping a pending upload failed');
 		}
 	}
 	return removed;

@@ -413,7 +413,7 @@ export async function update(viewer: Viewer, id: number, input: ListingInput, ph
 		}
 		return media.setPhotos(tx, viewer.id, 'listing', id, photos, { max: LISTING_PHOTOS_MAX, now });
 	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[swaps] removing replaced photos of listing ${id} failed:`, error));
+	await media.purgeAfterCommit(purge, { listingId: id, what: 'replaced photos' });
 }
 
 const member = (viewer: Pick<Viewer, 'id'>): Actor => ({ kind: 'member', userId: viewer.id });

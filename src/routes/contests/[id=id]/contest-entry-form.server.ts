@@ -1,23 +1,18 @@
-// Reading the entry form in the enter and edit actions: validated fields and the photos from the
-// PhotoUploader, or the errors with everything the member typed and uploaded, to show again.
-import { fail } from '@sveltejs/kit';
+// The contest entry form's server side, shared by the enter and edit pages: what the form offers
+// (the categories with their rules, the member's tanks with what each category says of them) and
+// what it shows again when an entry is refused (the fields as typed, the photos it named).
+import type { RequestEvent } from '@sveltejs/kit';
 import type { Viewer } from '$lib/server/club/users';
+import { requireUser } from '$lib/server/club/guards';
 import * as media from '$lib/server/media';
-import { ContestError } from '$lib/server/contests/errors';
-import { SCOPE } from '$lib/server/contests/entries';
-import type { EntryInput } from '$lib/server/contests/entries';
-import { readPhotoFields, type PhotoField } from '$lib/media/form';
-import { ENTRY_PHOTOS_FIELD, ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, entryFieldsSchema, type EntryDraft } from '$lib/contests/entry-form';
-import type { UploaderPhoto } from '$lib/media/form';
 import * as contests from '$lib/server/contests/contests';
-import * as entries from '$lib/server/contests/entries';
+import * as contestEntries from '$lib/server/contests/contest-entries';
 import { describeRule, roundLitres } from '$lib/contests/eligibility';
-
-type ContestWithCategories = Parameters<typeof entries.tankOptions>[1];
+import { contestEntryDraftOf, contestEntryPhotosOf, type EntryCategoryChoice, type EntryTankChoice } from '$lib/contests/contest-entry-form';
 
 /** What the enter and edit pages both list: the categories with their rules, and the member's tanks. */
-export async function entryChoices(viewer: Viewer, contest: ContestWithCategories) {
-	const options = await entries.tankOptions(viewer, contest);
+export async function entryChoices(viewer: Viewer, contest: contests.ContestDetail): Promise<{ categories: EntryCategoryChoice[]; tanks: EntryTankChoice[] }> {
+	const options = await contestEntries.tankOptions(viewer, contest);
 	return {
 		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
 		tanks: options.map((t) => ({
@@ -34,41 +29,11 @@ export async function entryChoices(viewer: Viewer, contest: ContestWithCategorie
 	};
 }
 
-async function photosAgain(viewer: Viewer, fields: PhotoField[], entryId: number | null): Promise<UploaderPhoto[]> {
-	const ids = fields.map((f) => f.id);
-	const known = new Map([...(await media.pendingOf(viewer.id, ids)), ...(entryId ? await media.listFor(SCOPE, entryId) : [])].map((p) => [p.id, p]));
-	return fields.flatMap((f) => {
-		const photo = known.get(f.id);
-		return photo ? [{ id: photo.id, alt: f.alt, caption: f.caption, urls: photo.urls }] : [];
-	});
-}
-
-export type EntryFormRead =
-	| { ok: true; input: EntryInput; draft: EntryDraft; fields: PhotoField[] }
-	| { ok: false; errors: Record<string, string>; draft: EntryDraft; photos: UploaderPhoto[] };
-
-export async function readEntryForm(request: Request, viewer: Viewer, entryId: number | null): Promise<EntryFormRead> {
-	const form = await request.formData();
-	const draft: EntryDraft = {
-		categoryId: String(form.get('categoryId') ?? ''),
-		tankId: String(form.get('tankId') ?? ''),
-		statement: String(form.get('statement') ?? '')
+/** What a refused entry form shows again: the fields as typed and the photos it named (of the entry being changed, if any). */
+export const entryFormAgain = (entryIdOf: (event: RequestEvent) => number | null) => async (data: FormData, event: RequestEvent) => {
+	const entryId = entryIdOf(event);
+	return {
+		...contestEntryDraftOf(data),
+		photos: await media.photosAgain(requireUser(event).id, contestEntryPhotosOf(data), entryId === null ? null : { scope: contestEntries.SCOPE, id: entryId })
 	};
-	const photos = readPhotoFields(form, ENTRY_PHOTOS_FIELD, ENTRY_PHOTOS_MAX);
-	const parsed = entryFieldsSchema.safeParse(draft);
-	const errors: Record<string, string> = {};
-	if (!parsed.success) for (const issue of parsed.error.issues) errors[String(issue.path[0])] ??= issue.message;
-	if (!photos.ok) errors.photos = photos.error;
-	else if (photos.photos.length < ENTRY_PHOTOS_MIN) errors.photos = 'Add at least one photo: the first shows the whole tank from the front.';
-	if (Object.keys(errors).length || !parsed.success || !photos.ok) {
-		return { ok: false, errors, draft, photos: await photosAgain(viewer, photos.ok ? photos.photos : [], entryId) };
-	}
-	return { ok: true, input: { ...parsed.data, photos: photos.photos }, draft, fields: photos.photos };
-}
-
-/** A refusal from the domain, as the form shows it. */
-export async function refused(error: unknown, viewer: Viewer, read: Extract<EntryFormRead, { ok: true }>, entryId: number | null) {
-	if (!(error instanceof ContestError)) throw error;
-	const errors = Object.keys(error.fields).length ? error.fields : { form: error.message };
-	return fail(error.status === 404 ? 404 : 400, { errors, draft: read.draft, photos: await photosAgain(viewer, read.fields, entryId) });
-}
+};

@@ -390,7 +390,7 @@ export async function saveCard(viewer: Viewer, contestId: number, number: number
 }
 
 /** The audit log's subject for a judge's card; its submissions and reopenings are recorded there. */
-export const cardAuditSubject = (cardId: number) => ({ type: 'contest-card', id: cardId });
+const cardAuditSubject = (cardId: number) => ({ type: 'contest-card', id: cardId });
 
 /** Moves a card to `status` as a new version, recorded in the audit log; answers the card as it now is. */
 async function setStatus(

@@ -20,7 +20,7 @@ import { adminChange, auditSubject, windowsOf, type ContestDetail } from './cont
 import { panelIds } from './panel';
 
 /** Cards each judge of the panel still owes (empty or draft), by judge id. */
-export async function openDuties(contestId: number, context: Context = {}): Promise<Map<string, number>> {
+async function openDuties(contestId: number, context: Context = {}): Promise<Map<string, number>> {
 	const { db } = resolve(context);
 	const [judges, entries, conflicts, cards] = await Promise.all([
 		panelIds(contestId, context),
@@ -46,7 +46,7 @@ export async function openDuties(contestId: number, context: Context = {}): Prom
 	return open;
 }
 
-export function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgingClosesOn'>, judgeName: string, open: number, lead: string) {
+function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgingClosesOn'>, judgeName: string, open: number, lead: string) {
 	const cards = `${open} ${open === 1 ? 'card' : 'cards'}`;
 	const { html, text } = renderMail({
 		heading: `${cards} to finish for “${contest.title}”`,

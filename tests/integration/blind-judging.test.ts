@@ -18,7 +18,7 @@ import { contestFixture, photoOf, viewerOf } from '../helpers/contests';
 import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as contestsDomain from '../../src/lib/server/contests/contests';
-import * as entries from '../../src/lib/server/contests/entries';
+import * as entries from '../../src/lib/server/contests/contest-entries';
 import { transition } from '../../src/lib/server/contests/review';
 
 /** A value found in page data or an API answer, or (`html`) a text or attribute of rendered HTML. */

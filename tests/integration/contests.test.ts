@@ -1,17 +1,18 @@
 // Contest judging through the running app and the contest functions: blind judging, conflicts,
 // autosave versions under concurrency, publication, results, announcement, export and reminders.
 import { describe, expect, test } from 'vitest';
-import { and, eq, like } from 'drizzle-orm';
+import { and, asc, eq, like } from 'drizzle-orm';
 import { parse } from 'csv-parse/sync';
 import { db } from '../../src/lib/server/db';
 import { auditLog } from '../../src/lib/server/audit/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { contestCards } from '../../src/lib/server/contests/schema';
 import * as contests from '../../src/lib/server/contests/contests';
-import * as entries from '../../src/lib/server/contests/entries';
+import * as entries from '../../src/lib/server/contests/contest-entries';
 import * as judging from '../../src/lib/server/contests/judging';
+import * as panel from '../../src/lib/server/contests/panel';
 import * as announce from '../../src/lib/server/contests/announce';
-import { ContestError } from '../../src/lib/server/contests/errors';
+import { DomainError } from '../../src/lib/errors';
 import type { Photo } from '../../src/lib/server/media';
 import { inputOf, loadData, publicResults, transition } from '../../src/lib/server/contests/review';
 import { sendDueReminders } from '../../src/lib/server/contests/reminders';
@@ -30,7 +31,7 @@ describe('judges never reach their own entries or conflicted ones', () => {
 		const judgeWhoEnters = await makePerson({ role: 'judge', label: 'judge-entrant' });
 		const other = await makePerson({ label: 'entrant' });
 		const f = await contestFixture({ judges: 2, entrants: [judgeWhoEnters, other] });
-		await judging.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
+		await panel.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
 		const own = f.entries[0]!;
 		const theirs = f.entries[1]!;
 		const cookie = judgeWhoEnters.cookie;
@@ -110,7 +111,7 @@ describe('blind judging', () => {
 	test('judges get an entry’s photos by entry number and place only, never by the photo’s id', async () => {
 		const judgeWhoEnters = await makePerson({ role: 'judge', label: 'judge-entrant' });
 		const f = await contestFixture({ judges: 2, entrants: [judgeWhoEnters, await makePerson({ label: 'entrant' })], state: 'open' });
-		await judging.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
+		await panel.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
 		const [judge, other] = f.judges as [Awaited<ReturnType<typeof makePerson>>, Awaited<ReturnType<typeof makePerson>>];
 		const own = f.entries[0]!;
 		const theirs = f.entries[1]!;
@@ -309,6 +310,18 @@ describe('autosave versions', () => {
 		const reopened = await request(api(f.contestId, number, '/reopen'), { cookie: judge.cookie, json: {}, accept: 'application/json' });
 		expect(reopened.status).toBe(200);
 		expect((await reopened.json()).status).toBe('draft');
+		// The submission and the reopening are in the card's log, by the judge; the refused late reopening is not.
+		const [card] = await db.select().from(contestCards).where(eq(contestCards.entryId, f.entries[0]!.entryId));
+		const log = await db
+			.select()
+			.from(auditLog)
+			.where(and(eq(auditLog.subjectType, 'contest-card'), eq(auditLog.subjectId, String(card!.id))))
+			.orderBy(asc(auditLog.id));
+		expect(log.map((r) => [r.action, r.actorId])).toEqual([
+			['card.submit', judge.id],
+			['card.reopen', judge.id]
+		]);
+		expect(log[0]!.detail).toMatchObject({ contestId: f.contestId, number, version: 3 });
 	});
 });
 
@@ -322,7 +335,7 @@ describe('publication', () => {
 		expect(refused.status).toBe(409);
 		expect(await refused.text()).toContain('Some cards are still missing');
 		expect((await contests.load(f.contestId))!.state).toBe('judging');
-		await expect(transition(viewerOf(f.admin), f.contestId, 'publish', { overrideReason: 'short' })).rejects.toBeInstanceOf(ContestError);
+		await expect(transition(viewerOf(f.admin), f.contestId, 'publish', { overrideReason: 'short' })).rejects.toBeInstanceOf(DomainError);
 
 		const published = await request(`/admin/contests/${f.contestId}/results?/step`, {
 			cookie: f.admin.cookie,
@@ -543,8 +556,8 @@ describe('reminders', () => {
 		const contest = (await contests.load(f.contestId))!;
 		const afterEntries = new Date(`${contest.entryClosesOn}T12:00:00Z`);
 		afterEntries.setUTCDate(afterEntries.getUTCDate() + 1);
-		await sendDueReminders(afterEntries);
-		await sendDueReminders(afterEntries);
+		await sendDueReminders({ now: afterEntries });
+		await sendDueReminders({ now: afterEntries });
 		const reminders = () =>
 			db
 				.select()
@@ -556,8 +569,8 @@ describe('reminders', () => {
 
 		await transition(viewerOf(f.admin), f.contestId, 'start-judging');
 		const nearClose = new Date(`${contest.judgingClosesOn}T08:00:00Z`);
-		await sendDueReminders(nearClose);
-		await sendDueReminders(nearClose);
+		await sendDueReminders({ now: nearClose });
+		await sendDueReminders({ now: nearClose });
 		const judgeMails = (await reminders()).filter((r) => f.judges.some((j) => j.email === r.toAddress));
 		expect(judgeMails.map((m) => m.toAddress).sort()).toEqual(f.judges.map((j) => j.email).sort());
 		expect(judgeMails[0]!.textBody).toContain('3 cards');

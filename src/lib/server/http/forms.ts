@@ -36,11 +36,14 @@ export function refused<V>(e: unknown, values: V, form?: string) {
 	return fail(e.status, payload);
 }
 
-export interface FormActionOptions<V> {
+export interface FormActionOptions<V, E extends RequestEvent = RequestEvent> {
 	/** Names the form in the payload, for pages with several. */
 	id?: string;
-	/** The values to send back; defaults to valuesOf(data). */
-	values?: (data: FormData) => V;
+	/**
+	 * The values to send back; defaults to valuesOf(data). May be async, e.g. to show the
+	 * photos a form named again (media.photosAgain); only called for a refusal.
+	 */
+	values?: (data: FormData, event: E) => V | Promise<V>;
 }
 
 /**
@@ -49,14 +52,15 @@ export interface FormActionOptions<V> {
  */
 export function formAction<E extends RequestEvent, R, V = Record<string, string>>(
 	run: (event: E, data: FormData) => Promise<R> | R,
-	options: FormActionOptions<V> = {}
+	options: FormActionOptions<V, E> = {}
 ) {
 	return async (event: E) => {
 		const data = await event.request.formData();
 		try {
 			return await run(event, data);
 		} catch (e) {
-			return refused(e, options.values ? options.values(data) : (valuesOf(data) as V), options.id);
+			if (!options.values || !isDomainError(e) || e.status === 404) return refused(e, valuesOf(data) as V, options.id);
+			return refused(e, await options.values(data, event), options.id);
 		}
 	};
 }

@@ -50,7 +50,7 @@ const mailSwapMessages: Job = {
 const contestReminders: Job = {
 	name: 'contest-reminders',
 	everyMs: 15 * 60_000,
-	run: (now) => sendDueReminders(now)
+	run: (now) => sendDueReminders({ now })
 };
 
 export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest, expireSwapListings, mailSwapMessages, contestReminders];

@@ -9,7 +9,7 @@ import type { Viewer } from '../club/users';
 import * as tanks from '../journals/tanks';
 import * as entries from '../journals/entries';
 import * as listings from '../swaps/listings';
-import * as contestEntries from '../contests/entries';
+import * as contestEntries from '../contests/contest-entries';
 import type { MediaRow } from './schema';
 
 export type MediaAudience = 'public' | 'restricted';

@@ -2,19 +2,19 @@
 // as checked for eligibility. Entries are made, changed and withdrawn only while the contest takes
 // entries; judges never reach them through here (see ./judging.ts for the blind view).
 import { and, asc, count, eq, ne } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import type { DbOrTx } from '../db';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as media from '../media';
 import type { Photo } from '../media';
 import * as tanks from '../journals/tanks';
-import type { PhotoField } from '../../media/form';
+import * as audit from '../audit';
+import { conflict, DomainError, invalid, notFound } from '../../errors';
 import { checkEligibility, type EligibilityCheck, type TankFacts } from '../../contests/eligibility';
 import { entriesAccepted } from '../../contests/lifecycle';
-import { ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, type EntryFields } from '../../contests/entry-form';
+import { ENTRY_PHOTOS_MAX, ENTRY_PHOTOS_MIN, type ContestEntryInput } from '../../contests/contest-entry-form';
 import { contestCategories, contestEntries, contests, type ContestEntryRow } from './schema';
-import { ContestError, ContestNotFound } from './errors';
-import { isAdminViewer, load, ruleOf, row, windowsOf, type ContestDetail } from './contests';
-import * as audit from './audit';
+import { auditSubject, isAdminViewer, load, lockedRow, ruleOf, windowsOf, type ContestDetail } from './contests';
 
 export const SCOPE = 'contest-entry' as const;
 
@@ -30,8 +30,9 @@ export interface TankOption {
 	enteredAs: number | null;
 }
 
-export function factsOf(tank: tanks.Tank, now = new Date()): { facts: TankFacts; ageLabel: string | null } {
-	const figures = tanks.tankFigures(tank, now);
+/** The tank's figures as eligibility reads them, on the day of `context.now`. */
+export function factsOf(tank: tanks.Tank, context: Context = {}): { facts: TankFacts; ageLabel: string | null } {
+	const figures = tanks.tankFigures(tank, resolve(context).now);
 	return {
 		facts: {
 			litres: figures.volume?.litres ?? null,
@@ -44,18 +45,19 @@ export function factsOf(tank: tanks.Tank, now = new Date()): { facts: TankFacts;
 }
 
 /** The member's tanks with their figures and what each category says about them. */
-export async function tankOptions(viewer: Viewer, contest: ContestDetail, now = new Date()): Promise<TankOption[]> {
-	const own = await tanks.listOwn(viewer);
-	const entered = await appDb
+export async function tankOptions(viewer: Viewer, contest: ContestDetail, context: Context = {}): Promise<TankOption[]> {
+	const { db } = resolve(context);
+	const own = await tanks.listOwn(viewer, {}, db);
+	const entered = await db
 		.select({ id: contestEntries.id, tankId: contestEntries.tankId })
 		.from(contestEntries)
 		.where(and(eq(contestEntries.contestId, contest.id), eq(contestEntries.entrantId, viewer.id)));
 	const enteredAs = new Map(entered.filter((e) => e.tankId !== null).map((e) => [e.tankId!, e.id]));
 	const options: TankOption[] = [];
 	for (const summary of own) {
-		const tank = await tanks.getOwn(viewer, summary.id);
+		const tank = await tanks.getOwn(viewer, summary.id, db);
 		if (!tank) continue;
-		const { facts, ageLabel } = factsOf(tank, now);
+		const { facts, ageLabel } = factsOf(tank, context);
 		options.push({
 			id: tank.id,
 			name: tank.name,
@@ -69,30 +71,22 @@ export async function tankOptions(viewer: Viewer, contest: ContestDetail, now = 
 	return options;
 }
 
-export interface EntryInput extends EntryFields {
-	photos: PhotoField[];
-}
-
 /** Checks an entry against the contest's rules inside the transaction that saves it. */
-async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryInput, entryId: number | null, now: Date) {
-	const contest = await row(contestId, tx, true);
-	if (!contest || contest.state === 'draft') throw new ContestNotFound('No such contest.');
-	if (!entriesAccepted(contest.state, windowsOf(contest), now))
-		throw new ContestError(409, 'This contest is not taking entries or changes any more.', 'closed');
+async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: ContestEntryInput, entryId: number | null, now: Date) {
+	const contest = await lockedRow(contestId, { db: tx });
+	if (!contest || contest.state === 'draft') throw notFound('No such contest.');
+	if (!entriesAccepted(contest.state, windowsOf(contest), now)) throw conflict('closed', 'This contest is not taking entries or changes any more.');
 	const [category] = await tx
 		.select()
 		.from(contestCategories)
 		.where(and(eq(contestCategories.id, input.categoryId), eq(contestCategories.contestId, contestId)));
-	if (!category)
-		throw new ContestError(400, 'Choose one of this contest’s categories.', 'bad-category', { categoryId: 'Choose one of this contest’s categories.' });
+	if (!category) throw invalid({ categoryId: 'Choose one of this contest’s categories.' }, undefined, 'bad-category');
 	const tank = await tanks.getOwn(viewer, input.tankId, tx);
-	if (!tank) throw new ContestError(400, 'Choose one of your own tanks.', 'bad-tank', { tankId: 'Choose one of your own tanks.' });
-	const { facts } = factsOf(tank, now);
+	if (!tank) throw invalid({ tankId: 'Choose one of your own tanks.' }, undefined, 'bad-tank');
+	const { facts } = factsOf(tank, { now });
 	const check = checkEligibility(ruleOf(category), facts);
 	if (!check.eligible) {
-		throw new ContestError(400, `“${tank.name}” cannot be entered in ${category.name}: ${check.reasons.join(' ')}`, 'ineligible', {
-			tankId: check.reasons.join(' ')
-		});
+		throw invalid({ tankId: check.reasons.join(' ') }, `“${tank.name}” cannot be entered in ${category.name}: ${check.reasons.join(' ')}`, 'ineligible');
 	}
 	const others = and(
 		eq(contestEntries.contestId, contestId),
@@ -101,22 +95,22 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryIn
 	);
 	const [mine] = await tx.select({ n: count() }).from(contestEntries).where(others);
 	if ((mine?.n ?? 0) >= contest.entriesPerMember) {
-		throw new ContestError(
-			409,
-			`Each member may enter ${contest.entriesPerMember} ${contest.entriesPerMember === 1 ? 'tank' : 'tanks'} in this contest.`,
-			'limit'
-		);
+		throw conflict('limit', `Each member may enter ${contest.entriesPerMember} ${contest.entriesPerMember === 1 ? 'tank' : 'tanks'} in this contest.`);
 	}
 	const [sameTank] = await tx
 		.select({ id: contestEntries.id })
 		.from(contestEntries)
 		.where(and(others, eq(contestEntries.tankId, tank.id)));
-	if (sameTank)
-		throw new ContestError(409, 'This tank is already entered in this contest.', 'tank-entered', { tankId: 'This tank is already entered in this contest.' });
+	if (sameTank) {
+		const taken = 'This tank is already entered in this contest.';
+		throw new DomainError(409, 'tank-entered', taken, { tankId: taken });
+	}
 	if (input.photos.length < ENTRY_PHOTOS_MIN || input.photos.length > ENTRY_PHOTOS_MAX) {
-		throw new ContestError(400, `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos.`, 'photos', {
-			photos: `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos; the first one shows the whole tank from the front.`
-		});
+		throw invalid(
+			{ photos: `Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos; the first one shows the whole tank from the front.` },
+			`Add ${ENTRY_PHOTOS_MIN} to ${ENTRY_PHOTOS_MAX} photos.`,
+			'photos'
+		);
 	}
 	return {
 		contest,
@@ -132,14 +126,15 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: EntryIn
 	};
 }
 
+/** A photo media refuses (not the member's, gone), at the photos field. */
 const wrapMedia = (error: unknown): never => {
-	if (error instanceof media.MediaError) throw new ContestError(error.status, error.message, 'photos', { photos: error.message });
+	if (error instanceof media.MediaError) throw new DomainError(400, 'photos', error.message, { photos: error.message });
 	throw error;
 };
 
-export async function create(viewer: Viewer, contestId: number, input: EntryInput, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
-	const now = options.now ?? new Date();
-	return (options.database ?? appDb).transaction(async (tx) => {
+export async function create(viewer: Viewer, contestId: number, input: ContestEntryInput, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
 		const { values } = await vet(tx, viewer, contestId, input, null, now);
 		const [result] = await tx.insert(contestEntries).values({ ...values, contestId, entrantId: viewer.id });
 		await media.setPhotos(tx, viewer.id, SCOPE, result.insertId, input.photos, { max: ENTRY_PHOTOS_MAX, now }).catch(wrapMedia);
@@ -149,13 +144,13 @@ export async function create(viewer: Viewer, contestId: number, input: EntryInpu
 
 async function ownEntry(tx: DbOrTx, viewer: Viewer, entryId: number): Promise<ContestEntryRow> {
 	const [entry] = await tx.select().from(contestEntries).where(eq(contestEntries.id, entryId)).limit(1);
-	if (!entry || entry.entrantId !== viewer.id) throw new ContestNotFound('No such entry.');
+	if (!entry || entry.entrantId !== viewer.id) throw notFound('No such entry.');
 	return entry;
 }
 
-export async function update(viewer: Viewer, entryId: number, input: EntryInput, options: { now?: Date; database?: DbOrTx } = {}): Promise<void> {
-	const now = options.now ?? new Date();
-	const purge = await (options.database ?? appDb).transaction(async (tx) => {
+export async function update(viewer: Viewer, entryId: number, input: ContestEntryInput, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const purge = await db.transaction(async (tx) => {
 		const entry = await ownEntry(tx, viewer, entryId);
 		const { values } = await vet(tx, viewer, entry.contestId, input, entry.id, now);
 		await tx.update(contestEntries).set(values).where(eq(contestEntries.id, entry.id));
@@ -164,17 +159,20 @@ export async function update(viewer: Viewer, entryId: number, input: EntryInput,
 	await media.purgeAfterCommit(purge, { contestEntryId: entryId, what: 'replaced photos' });
 }
 
-export async function withdraw(viewer: Viewer, entryId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<number> {
-	const now = options.now ?? new Date();
-	const { contestId, purge } = await (options.database ?? appDb).transaction(async (tx) => {
+export async function withdraw(viewer: Viewer, entryId: number, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	const { contestId, purge } = await db.transaction(async (tx) => {
 		const entry = await ownEntry(tx, viewer, entryId);
-		const contest = await row(entry.contestId, tx, true);
+		const contest = await lockedRow(entry.contestId, { db: tx });
 		if (!contest || !entriesAccepted(contest.state, windowsOf(contest), now)) {
-			throw new ContestError(409, 'Entries can no longer be withdrawn: the entry window has closed.', 'closed');
+			throw conflict('closed', 'Entries can no longer be withdrawn: the entry window has closed.');
 		}
 		const keys = await media.deleteFor(tx, SCOPE, entry.id);
 		await tx.delete(contestEntries).where(eq(contestEntries.id, entry.id));
-		await audit.record(tx, viewer.id, 'entry.withdraw', entry.contestId, { entryId: entry.id });
+		await audit.record(
+			{ actorId: viewer.id, action: 'entry.withdraw', subject: auditSubject(entry.contestId), detail: { entryId: entry.id } },
+			within(context, tx)
+		);
 		return { contestId: entry.contestId, purge: keys };
 	});
 	await media.purgeAfterCommit(purge, { contestEntryId: entryId, what: 'photos of a withdrawn entry' });
@@ -188,7 +186,8 @@ export interface OwnEntry extends ContestEntryRow {
 }
 
 /** The viewer's entries in a contest, oldest first. */
-export async function listOwn(viewer: Viewer, contestId: number, tx: DbOrTx = appDb): Promise<OwnEntry[]> {
+export async function listOwn(viewer: Viewer, contestId: number, context: Context = {}): Promise<OwnEntry[]> {
+	const { db: tx } = resolve(context);
 	const rows = await tx
 		.select({ entry: contestEntries, categoryName: contestCategories.name })
 		.from(contestEntries)
@@ -210,7 +209,8 @@ export async function listOwn(viewer: Viewer, contestId: number, tx: DbOrTx = ap
 }
 
 /** One entry for its entrant (or an admin), with its contest; null for anyone else. */
-export async function getOwn(viewer: Viewer, entryId: number, tx: DbOrTx = appDb): Promise<{ entry: OwnEntry; contest: ContestDetail } | null> {
+export async function getOwn(viewer: Viewer, entryId: number, context: Context = {}): Promise<{ entry: OwnEntry; contest: ContestDetail } | null> {
+	const { db: tx } = resolve(context);
 	const [found] = await tx
 		.select({ entry: contestEntries, categoryName: contestCategories.name })
 		.from(contestEntries)
@@ -218,7 +218,7 @@ export async function getOwn(viewer: Viewer, entryId: number, tx: DbOrTx = appDb
 		.where(eq(contestEntries.id, entryId))
 		.limit(1);
 	if (!found || (found.entry.entrantId !== viewer.id && !isAdminViewer(viewer))) return null;
-	const contest = await load(found.entry.contestId, tx);
+	const contest = await load(found.entry.contestId, context);
 	if (!contest) return null;
 	const tank = found.entry.tankId && found.entry.entrantId === viewer.id ? await tanks.getOwn(viewer, found.entry.tankId, tx) : null;
 	return {
@@ -233,8 +233,9 @@ export async function getOwn(viewer: Viewer, entryId: number, tx: DbOrTx = appDb
  * while judging they see an entry's photos only at addresses of the entry's number and the photo's
  * place (judging.entryPhoto, behind judging's access check), so they never learn a photo's id.
  */
-export async function photoAudience(viewer: Viewer | null, entryId: number): Promise<'public' | 'restricted' | null> {
-	const [found] = await appDb
+export async function photoAudience(viewer: Viewer | null, entryId: number, context: Context = {}): Promise<'public' | 'restricted' | null> {
+	const { db } = resolve(context);
+	const [found] = await db
 		.select({ entrantId: contestEntries.entrantId, state: contests.state })
 		.from(contestEntries)
 		.innerJoin(contests, eq(contests.id, contestEntries.contestId))

@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, test } from 'vitest';
-import { CardAutosave, retryDelayMs, type SaveState, type SendResult, type ServerCard } from './autosave';
+import { CardAutosave, refusalOf, retryDelayMs, type SaveState, type SendResult, type ServerCard } from './scorecard-autosave';
 import type { CardFields, CardSave } from './card';
 
 // A fake clock, storage and server, so every path of the autosave can be driven step by step.
@@ -287,4 +287,28 @@ test('a value the server refuses is not retried, but the next edit saves again',
 	await clock.advance(800);
 	expect(a.state.kind).toBe('saved');
 	expect(server.card.fields.scores.a).toBe(9);
+});
+
+describe('reading a refusal from the card endpoints', () => {
+	const card: ServerCard = { version: 3, fields: blank(), lastSaveId: 'x', updatedAt: '2026-03-01T10:00:00.000Z' };
+	test('a version conflict keeps the stored card the endpoint sent beside code, message and fields', () => {
+		expect(refusalOf(409, { code: 'version-conflict', message: 'Saved elsewhere.', fields: {}, current: card })).toEqual({
+			kind: 'refused',
+			status: 409,
+			code: 'version-conflict',
+			message: 'Saved elsewhere.',
+			current: card
+		});
+	});
+	test('a field refusal is one the next edit may fix', () => {
+		expect(refusalOf(400, { code: 'invalid', message: 'Depth: 11 is above the maximum.', fields: { scores: 'Depth: 11 is above the maximum.' } })).toEqual({
+			kind: 'refused',
+			status: 400,
+			code: 'invalid',
+			message: 'Depth: 11 is above the maximum.'
+		});
+	});
+	test('an answer that is not a refusal body (a proxy’s error page) still stops with a message', () => {
+		expect(refusalOf(502, null)).toEqual({ kind: 'refused', status: 502, code: 'error', message: 'The save was refused (502).' });
+	});
 });

@@ -1,5 +1,6 @@
 // The scorecard's autosave, without the browser: what to send when, what to do with each answer.
-// The page gives it a way to send (fetch), a timer, and localStorage; tests give it fakes.
+// The page (routes/judging/…/Scorecard.svelte) gives it a way to send (fetch), a timer, and
+// localStorage; tests give it fakes.
 //
 // - Edits are saved after a pause in typing (debounced), one request at a time; edits made while
 //   a request is out go in the next one.
@@ -21,8 +22,16 @@ export interface ServerCard {
 	updatedAt: string | null;
 }
 
+/** A card as the card endpoints (/api/judging/<contest>/<number>/card, …/submit, …/reopen) answer it. */
+export interface CardView extends ServerCard {
+	status: 'draft' | 'submitted';
+	submittedAt: string | null;
+	/** A submitted card may be reopened now. */
+	reopenable: boolean;
+}
+
 export type SendResult =
-	| { kind: 'saved'; version: number; updatedAt: string }
+	| { kind: 'saved'; version: number; updatedAt: string | null }
 	| { kind: 'network' }
 	| { kind: 'refused'; status: number; code: string; message: string; current?: ServerCard };
 
@@ -53,13 +62,28 @@ export interface AutosaveDeps {
 }
 
 export const DEBOUNCE_MS = 800;
-/** Refusals the judge can fix by editing (a score out of range), so the next edit saves again. */
-const RESUMABLE = new Set(['invalid', 'bad-request']);
+/** Refusals the judge can fix by editing (a score out of range, a body the server could not read), so the next edit saves again. */
+const RESUMABLE = new Set(['invalid']);
 export const RETRY_BASE_MS = 1_000;
 export const RETRY_MAX_MS = 30_000;
 
 /** Pause before retry number `attempt` (1, 2, …): 1 s, 2 s, 4 s … at most 30 s. */
 export const retryDelayMs = (attempt: number) => Math.min(RETRY_BASE_MS * 2 ** Math.max(0, attempt - 1), RETRY_MAX_MS);
+
+/**
+ * A card endpoint's refusal as the queue acts on it. Every JSON endpoint refuses with
+ * { code, message, fields, ...details }; a version conflict carries the stored card as `current`.
+ */
+export function refusalOf(status: number, body: unknown): Extract<SendResult, { kind: 'refused' }> {
+	const answer = (typeof body === 'object' && body !== null ? body : {}) as { code?: unknown; message?: unknown; current?: unknown };
+	return {
+		kind: 'refused',
+		status,
+		code: typeof answer.code === 'string' ? answer.code : 'error',
+		message: typeof answer.message === 'string' ? answer.message : `The save was refused (${status}).`,
+		...(typeof answer.current === 'object' && answer.current !== null ? { current: answer.current as ServerCard } : {})
+	};
+}
 
 interface Kept {
 	baseVersion: number;

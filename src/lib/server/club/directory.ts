@@ -1,0 +1,58 @@
+// What other features may know of members, read in batches (one query for any number of ids):
+// the name others see, where to mail them, their role, and whether they take club announcements.
+// Features never read the member table themselves.
+import { and, eq, inArray, isNotNull, type SQL } from 'drizzle-orm';
+import { resolve, type Context } from '../context';
+import { nameOf } from '../../club/names';
+import type { Role } from '../../club/roles';
+import { users } from './schema';
+
+export interface Member {
+	id: string;
+	/** As others see it (nameOf). */
+	name: string;
+	/** Empty when the member has no address (nothing may be sent). */
+	email: string;
+	role: Role;
+	unsubscribeToken: string;
+	announcements: boolean;
+}
+
+const columns = {
+	id: users.id,
+	displayName: users.displayName,
+	email: users.email,
+	role: users.role,
+	unsubscribeToken: users.unsubscribeToken,
+	announcements: users.announcements
+};
+
+async function select(where: SQL | undefined, context: Context): Promise<Member[]> {
+	const { db } = resolve(context);
+	const rows = await db.select(columns).from(users).where(where);
+	return rows.map(({ displayName, email, ...r }) => ({ ...r, name: nameOf(displayName), email: email ?? '' }));
+}
+
+const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
+
+/** The members with these ids, by id (ids of former members are missing). */
+export async function byIds(ids: readonly string[], context: Context = {}): Promise<Map<string, Member>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	return new Map((await select(inArray(users.id, unique), context)).map((m) => [m.id, m]));
+}
+
+/** The name each member is shown under, by id. */
+export async function names(ids: readonly string[], context: Context = {}): Promise<Map<string, string>> {
+	return new Map([...(await byIds(ids, context))].map(([id, m]) => [id, m.name]));
+}
+
+/** Members with a role and an address, by name. */
+export async function withRole(role: Role, context: Context = {}): Promise<Member[]> {
+	return (await select(and(eq(users.role, role), isNotNull(users.email)), context)).sort(byName);
+}
+
+/** Everyone with an address who takes club announcements. */
+export async function announcementReaders(context: Context = {}): Promise<Member[]> {
+	return select(and(eq(users.announcements, true), isNotNull(users.email)), context);
+}

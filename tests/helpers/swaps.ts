@@ -6,7 +6,7 @@ import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import type { Viewer } from '../../src/lib/server/club/users';
 import { species } from '../../src/lib/server/species/schema';
-import * as listings from '../../src/lib/server/swaps/listings';
+import * as edits from '../../src/lib/server/swaps/listing-edits';
 import * as restricted from '../../src/lib/server/swaps/restricted';
 import type { LatLng } from '../../src/lib/club/location';
 import type { ListingInput } from '../../src/lib/swaps/listing-form';
@@ -48,7 +48,7 @@ export function listingInput(overrides: Partial<ListingInput> = {}): ListingInpu
 	};
 }
 
-export const createListing = (owner: TestPerson, overrides: Partial<ListingInput> = {}) => listings.create(viewerOf(owner), listingInput(overrides));
+export const createListing = (owner: TestPerson, overrides: Partial<ListingInput> = {}) => edits.create(viewerOf(owner), listingInput(overrides));
 
 export const token = (label: string) => `${label}${randomBytes(4).toString('hex')}`;
 

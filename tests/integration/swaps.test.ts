@@ -5,23 +5,23 @@ import { and, eq, like, sql } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { listings as listingTable, swapMailState, swapMessages } from '../../src/lib/server/swaps/schema';
-import * as board from '../../src/lib/server/swaps/board';
-import * as listings from '../../src/lib/server/swaps/listings';
+import * as nearby from '../../src/lib/server/swaps/nearby';
+import * as transitions from '../../src/lib/server/swaps/listing-transitions';
 import * as threads from '../../src/lib/server/swaps/threads';
 import * as blocks from '../../src/lib/server/swaps/blocks';
 import * as reports from '../../src/lib/server/swaps/reports';
 import * as notifications from '../../src/lib/server/swaps/notifications';
-import { SwapError } from '../../src/lib/server/swaps/errors';
+import { DomainError } from '../../src/lib/errors';
 import { haversineDistance } from '../../src/lib/swaps/distance';
-import { DISTANCE_BANDS, formatDistance, radiusReachMetres, shownMetres } from '../../src/lib/swaps/display';
-import { EMPTY_FILTER, type BoardFilter } from '../../src/lib/swaps/board';
+import { DISTANCE_BANDS, labelOf, radiusReachMetres, shownMetres } from '../../src/lib/swaps/display';
+import { parseBoardQuery, type BoardFilter } from '../../src/lib/swaps/board-filter';
 import type { LatLng } from '../../src/lib/club/location';
 import { request } from '../helpers/http';
 import { mailsTo, waitForMail } from '../helpers/mail';
 import { makePerson } from '../helpers/people';
 import { createListing, memberAt, restrictedPlant, token, viewerOf } from '../helpers/swaps';
 
-const filter = (over: Partial<BoardFilter>): BoardFilter => ({ ...EMPTY_FILTER, ...over });
+const filter = (over: Partial<BoardFilter>): BoardFilter => ({ ...parseBoardQuery(new URLSearchParams()), ...over });
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** The mail fake's messages to an address once there are at least `n` (newest first). */
@@ -71,21 +71,21 @@ describe('swap board: nearby search', () => {
 			made[name] = await createListing(owner, { title: `${tag} ${name}` });
 		}
 
-		const within25 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 25 }));
+		const within25 = await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 25 }));
 		expect(within25.order).toBe('distance');
 		expect(within25.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside]);
 		expect(within25.total).toBe(3);
-		const within50 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
+		const within50 = await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
 		expect(within50.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside, made.outside]);
 		// About 11 km away is shown as "about 10 km", so it is within 10 km.
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near, made.middle]);
-		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => formatDistance(s.d).text));
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near, made.middle]);
+		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => labelOf(shownMetres(s.d)).text));
 		expect(within50.rows.map((r) => r.distance?.text)).toEqual(['about 3 km', 'about 10 km', 'about 25 km', 'about 30 km']);
 
 		// The SQL distance is the haversine figure to well under a millimetre.
 		for (const [name, spot] of Object.entries({ inside, outside })) {
 			const [row] = await db
-				.select({ d: board.distanceSql(centre) })
+				.select({ d: nearby.distanceSql(centre) })
 				.from(listingTable)
 				.where(eq(listingTable.id, made[name]!));
 			expect(Math.abs(Number(row!.d) - spot.d)).toBeLessThan(1e-4);
@@ -120,7 +120,7 @@ describe('swap board: nearby search', () => {
 		for (let i = 0; i < values.length; i += 100) {
 			const chunk = values.slice(i, i + 100);
 			// A DOUBLE literal (exponent notation), as the haversine expression gives a DOUBLE.
-			const columns = chunk.map((v, k) => sql`${board.shownSql(sql.raw(`${v.toExponential(17)}`))} AS ${sql.raw(`s${k}`)}`);
+			const columns = chunk.map((v, k) => sql`${nearby.shownSql(sql.raw(`${v.toExponential(17)}`))} AS ${sql.raw(`s${k}`)}`);
 			const [rows] = (await db.execute(sql`SELECT ${sql.join(columns, sql`, `)}`)) as unknown as [Record<string, number | string>[]];
 			expect(chunk.map((_, k) => Number(rows[0]![`s${k}`]))).toEqual(chunk.map(shownMetres));
 		}
@@ -135,12 +135,12 @@ describe('swap board: nearby search', () => {
 		const id = await createListing(owner, { title: `${tag} across` });
 		// 0.04° of longitude at 44° S: about 3.2 km, straight across ±180°.
 		expect(haversineDistance(west, east)).toBeLessThan(5_000);
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 5 }))).rows.map((r) => r.id)).toEqual([id]);
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 2 }))).rows).toEqual([]);
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 5 }))).rows.map((r) => r.id)).toEqual([id]);
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 2 }))).rows).toEqual([]);
 
 		const nowhere = await memberAt(null, 'no-location');
 		const second = await createListing(owner, { title: `${tag} later` });
-		const newest = await board.search(viewerOf(nowhere), filter({ q: tag, radiusKm: 2 }));
+		const newest = await nearby.search(viewerOf(nowhere), filter({ q: tag, radiusKm: 2 }));
 		expect(newest.order).toBe('newest');
 		expect(newest.rows.map((r) => r.id)).toEqual([second, id]);
 		expect(newest.rows[0]!.distance).toBeNull();
@@ -257,7 +257,7 @@ describe('swap restricted species', () => {
 			const thread = await (await request(`/swaps/threads/${threadId}`, { cookie: person.cookie })).text();
 			expect(thread).toContain(warning);
 		}
-		const card = (await board.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radiusKm: 2 }))).rows.find((r) => r.id === id);
+		const card = (await nearby.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radiusKm: 2 }))).rows.find((r) => r.id === id);
 		expect(card?.restriction).toBe('cautioned');
 	});
 });
@@ -279,17 +279,17 @@ describe('swap blocks', () => {
 		expect(await message.text()).toContain('This member is not taking requests or messages from you.');
 		const ask = await request(`/swaps/${second}?/request`, { cookie: pest.cookie, form: { body: 'And this one?' } });
 		expect(ask.status).toBe(403);
-		await expect(threads.post(viewerOf(pest), threadId, 'again')).rejects.toBeInstanceOf(SwapError);
+		await expect(threads.post(viewerOf(pest), threadId, 'again')).rejects.toBeInstanceOf(DomainError);
 		await expect(threads.request(viewerOf(pest), second, 'again')).rejects.toMatchObject({ status: 403, code: 'blocked' });
 		// Writing is closed both ways, and the blocker cannot accept them either.
 		await expect(threads.post(viewerOf(owner), threadId, 'hello?')).rejects.toMatchObject({ code: 'you-blocked' });
-		await expect(listings.accept(viewerOf(owner), threadId)).rejects.toMatchObject({ status: 403 });
+		await expect(transitions.accept(viewerOf(owner), threadId)).rejects.toMatchObject({ status: 403 });
 		const messages = await db.select().from(swapMessages).where(eq(swapMessages.threadId, threadId));
 		expect(messages).toHaveLength(1);
 
-		const ownerBoard = await board.search(viewerOf(owner), filter({ q: 'pest listing', radiusKm: 5 }));
+		const ownerBoard = await nearby.search(viewerOf(owner), filter({ q: 'pest listing', radiusKm: 5 }));
 		expect(ownerBoard.rows.map((r) => r.id)).not.toContain(pestListing);
-		const otherBoard = await board.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radiusKm: 5 }));
+		const otherBoard = await nearby.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radiusKm: 5 }));
 		expect(otherBoard.rows.map((r) => r.id)).toContain(pestListing);
 
 		await blocks.unblock(viewerOf(owner), pest.id);
@@ -329,7 +329,7 @@ describe('swap requests: accepting one', () => {
 			expect((await request(`/swaps/threads/${otherThreads[i]}?/send`, { cookie: o.cookie, form: { body: 'still there?' } })).status).toBe(409);
 		}
 		// A second acceptance is refused by the state machine.
-		await expect(listings.accept(viewerOf(owner), otherThreads[0]!)).rejects.toMatchObject({ status: 409, code: 'already-reserved' });
+		await expect(transitions.accept(viewerOf(owner), otherThreads[0]!)).rejects.toMatchObject({ status: 409, code: 'already-reserved' });
 	});
 });
 
@@ -351,7 +351,7 @@ describe('swap message mail', () => {
 
 		// The periodic job an hour later mails the one still unread.
 		const later = new Date(Date.now() + 61 * 60_000);
-		expect(await notifications.sendDue(later)).toBeGreaterThanOrEqual(1);
+		expect(await notifications.sendDue({ now: later })).toBeGreaterThanOrEqual(1);
 		const [second] = await mailsOnceThere(owner.email, 2);
 		expect(second!.subject).toBe('New message about “Batched stems”');
 		expect(second!.text).toContain('Second message, right after');
@@ -360,7 +360,7 @@ describe('swap message mail', () => {
 		// Read on the site before its hour is up: no mail at all.
 		await threads.post(viewerOf(asker), threadId, 'Third message');
 		expect((await request(`/api/swaps/threads/${threadId}/messages`, { cookie: owner.cookie, accept: 'application/json' })).status).toBe(200);
-		await notifications.sendDue(new Date(Date.now() + 125 * 60_000));
+		await notifications.sendDue({ now: new Date(Date.now() + 125 * 60_000) });
 		await sleep(3_000);
 		expect(await mailsTo(owner.email)).toHaveLength(2);
 		expect(await threads.unreadCount(owner.id)).toBe(0);
@@ -383,11 +383,11 @@ describe('swap message mail', () => {
 		await threads.request(viewerOf(asker), c, 'Four');
 
 		const queuedFor = async (address: string) => (await db.select().from(outbox).where(eq(outbox.toAddress, address))).length;
-		await notifications.sendDue(new Date(now.getTime() + 20 * 60_000));
+		await notifications.sendDue({ now: new Date(now.getTime() + 20 * 60_000) });
 		expect(await queuedFor(owner.email)).toBe(0);
-		await notifications.sendDue(new Date(now.getTime() + 31 * 60_000));
+		await notifications.sendDue({ now: new Date(now.getTime() + 31 * 60_000) });
 		expect(await queuedFor(owner.email)).toBe(1);
-		await notifications.sendDue(new Date(now.getTime() + 41 * 60_000));
+		await notifications.sendDue({ now: new Date(now.getTime() + 41 * 60_000) });
 		expect(await queuedFor(owner.email)).toBe(1);
 		const summary = await waitForMail(owner.email, { subject: /3 new swap messages/ });
 		expect(summary.text).toContain('“Summary one”: 1 from');

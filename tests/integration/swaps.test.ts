@@ -1,5 +1,6 @@
 // The swap board through the running app and its domain functions: the nearby search, who may
-// read a conversation, restricted species, blocks, accepting a request, and batched mail.
+// read a conversation, restricted species, blocks, accepting a request, batched mail, what the
+// admins do (audited) and the owner's nudge about a reservation past its date.
 import { describe, expect, test } from 'vitest';
 import { and, eq, like, sql } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
@@ -11,6 +12,11 @@ import * as threads from '../../src/lib/server/swaps/threads';
 import * as blocks from '../../src/lib/server/swaps/blocks';
 import * as reports from '../../src/lib/server/swaps/reports';
 import * as notifications from '../../src/lib/server/swaps/notifications';
+import * as moderation from '../../src/lib/server/swaps/moderation';
+import * as restricted from '../../src/lib/server/swaps/restricted';
+import * as cards from '../../src/lib/server/swaps/listing-cards';
+import * as audit from '../../src/lib/server/audit';
+import { DAY_MS } from '../../src/lib/swaps/listing';
 import { DomainError } from '../../src/lib/errors';
 import { haversineDistance } from '../../src/lib/swaps/distance';
 import { DISTANCE_BANDS, labelOf, radiusReachMetres, shownMetres } from '../../src/lib/swaps/display';
@@ -397,5 +403,104 @@ describe('swap message mail', () => {
 		expect(await mailsTo(quiet.email)).toHaveLength(0);
 		const pending = await db.select().from(outbox).where(like(outbox.toAddress, quiet.email));
 		expect(pending).toHaveLength(0);
+	});
+});
+
+describe('swap reservations past their date', () => {
+	test('the owner is asked to settle one, on the listing and on My swaps; the other member and everyone else are not', async () => {
+		const owner = await memberAt({ lat: -28.4, lng: -3.3 }, 'overdue-owner');
+		const asker = await memberAt({ lat: -28.41, lng: -3.3 }, 'overdue-asker');
+		const other = await memberAt({ lat: -28.42, lng: -3.3 }, 'overdue-other');
+		const day = (n: number) => new Date(Date.now() + n * DAY_MS);
+		// Posted ten days ago until two days later; the request was accepted the day after posting.
+		const id = await createListing(owner, { title: 'Overdue stems', availableUntil: day(-8) }, { now: day(-10) });
+		const threadId = await threads.request(viewerOf(asker), id, 'Me please', { now: day(-9.5) });
+		await transitions.accept(viewerOf(owner), threadId, { now: day(-9) });
+		const fresh = await createListing(owner, { title: 'Fresh stems' });
+
+		const own = await cards.listOwn(viewerOf(owner));
+		expect(own.find((l) => l.id === id)).toMatchObject({ state: 'reserved', overdue: true });
+		expect(own.find((l) => l.id === fresh)).toMatchObject({ state: 'open', overdue: false });
+		const mine = await (await request('/swaps/mine', { cookie: owner.cookie })).text();
+		expect(mine.match(/data-testid="reservation-overdue"/g)).toHaveLength(1);
+		expect(await (await request(`/swaps/${id}`, { cookie: owner.cookie })).text()).toContain('data-testid="reservation-overdue"');
+		for (const person of [asker, other]) expect(await (await request(`/swaps/${id}`, { cookie: person.cookie })).text()).not.toContain('reservation-overdue');
+		expect(await (await request(`/swaps/${fresh}`, { cookie: owner.cookie })).text()).not.toContain('reservation-overdue');
+	});
+});
+
+describe('swap moderation and the restricted list: admins only, and audited', () => {
+	test('withdrawing a reported listing records the admin, the reason and the reports it closed', async () => {
+		const owner = await memberAt({ lat: -26.2, lng: -1.1 }, 'moderated-owner');
+		const reporter = await memberAt({ lat: -26.21, lng: -1.1 }, 'moderated-reporter');
+		const admin = await makePerson({ role: 'admin', label: 'moderating-admin' });
+		const id = await createListing(owner, { title: 'Doubtful regulator' });
+		const reportId = await reports.reportListing(viewerOf(reporter), id, 'It says it leaks gas.');
+		expect(await reports.openCount(viewerOf(admin))).toBeGreaterThanOrEqual(1);
+		await expect(reports.openCount(viewerOf(reporter))).rejects.toMatchObject({ status: 404 });
+		await expect(moderation.withdraw(viewerOf(reporter), id, 'I do not like it')).rejects.toMatchObject({ status: 403 });
+
+		const page = await (await request('/admin/reports', { cookie: admin.cookie })).text();
+		expect(page).toContain('data-testid="open-report-count"');
+		const tooShort = await request('/admin/reports?/decide', {
+			cookie: admin.cookie,
+			form: { decision: 'withdraw', reportId: String(reportId), reason: 'no' }
+		});
+		expect(tooShort.status).toBe(400);
+		expect(await tooShort.text()).toContain('Give the owner a reason (at least a few words).');
+		const done = await request('/admin/reports?/decide', {
+			cookie: admin.cookie,
+			form: { decision: 'withdraw', reportId: String(reportId), reason: 'A leaking gas part is not for the board.' }
+		});
+		expect(done.status).toBe(200);
+
+		const [withdrawn] = await db.select().from(listingTable).where(eq(listingTable.id, id));
+		expect(withdrawn!.state).toBe('withdrawn');
+		expect(await audit.trail({ type: 'listing', id })).toMatchObject([
+			{ action: 'listing.withdraw', actorId: admin.id, detail: { reason: 'A leaking gas part is not for the board.', from: 'open' } }
+		]);
+		expect(await audit.trail({ type: 'swap_report', id: reportId })).toMatchObject([{ action: 'report.withdraw-listing', actorId: admin.id }]);
+		await waitForMail(owner.email, { subject: /withdrawn by the club's admins/ });
+	});
+
+	test('restricted species entries: a member may not change them; an admin’s add, change and removal are audited', async () => {
+		const member = await makePerson({ label: 'restricted-member' });
+		const admin = await makePerson({ role: 'admin', label: 'restricted-admin' });
+		const plant = await restrictedPlant('cautioned');
+		const input = {
+			speciesId: plant.speciesId,
+			jurisdiction: `Other land ${token('j')}`,
+			level: 'banned' as const,
+			source: 'Other land weed order',
+			note: '',
+			checkedOn: '2026-11-30',
+			checkBasis: 'source' as const
+		};
+		await expect(restricted.add(viewerOf(member), input)).rejects.toMatchObject({ status: 403 });
+		await expect(restricted.setClubJurisdictions(viewerOf(member), [])).rejects.toMatchObject({ status: 403 });
+		const entryId = await restricted.add(viewerOf(admin), input);
+		expect((await restricted.list()).find((e) => e.id === entryId)).toMatchObject({ scientificName: plant.name, level: 'banned' });
+		await expect(restricted.add(viewerOf(admin), input)).rejects.toMatchObject({ status: 409, code: 'duplicate', fields: { speciesName: expect.any(String) } });
+
+		// The page's form for one entry: a check in the future is refused next to that entry.
+		const future = await request('/admin/restricted?/update', {
+			cookie: admin.cookie,
+			form: { id: String(entryId), level: 'cautioned', source: 'Other land weed order', note: '', checkedOn: '2999-01-01', checkBasis: 'source' }
+		});
+		expect(future.status).toBe(400);
+		expect(await future.text()).toContain('A check cannot be in the future.');
+		await restricted.update(viewerOf(admin), entryId, {
+			level: 'cautioned',
+			source: input.source,
+			note: 'Watch it.',
+			checkedOn: '2026-12-01',
+			checkBasis: 'memory'
+		});
+		await restricted.remove(viewerOf(admin), entryId);
+		expect((await audit.trail({ type: 'restricted_species', id: entryId })).map((e) => [e.action, e.actorId])).toEqual([
+			['restricted.add', admin.id],
+			['restricted.update', admin.id],
+			['restricted.remove', admin.id]
+		]);
 	});
 });

@@ -15,16 +15,23 @@ import { desc, sql } from 'drizzle-orm';
 import { connect } from '../src/lib/server/db';
 import { users } from '../src/lib/server/club/schema';
 import { listings } from '../src/lib/server/swaps/schema';
-import { distanceSql, nearbyQuery, shownSql } from '../src/lib/server/swaps/board';
+import { boardWhere, distanceSql, nearbyQuery, shownSql } from '../src/lib/server/swaps/nearby';
 import { applyMigrations } from '../scripts/migrate';
 import { dataRoot, portsFor } from '../scripts/lib/stack';
 import { haversineDistance } from '../src/lib/swaps/distance';
 import { roundToKilometre, type LatLng } from '../src/lib/club/location';
-import { EMPTY_FILTER, nearbyOrder, withinRadius } from '../src/lib/swaps/board';
+import { parseBoardQuery, type RadiusKm } from '../src/lib/swaps/board-filter';
 import { shownMetres } from '../src/lib/swaps/display';
 import { DAY_MS } from '../src/lib/swaps/listing';
 
 const LISTINGS = 10_000;
+
+// The board's rule from a point, written out for the JavaScript full scan below: a radius keeps
+// what is shown at that figure or nearer, and the order is by shown figure, then newest first,
+// never by the exact distance (the nearby query does the same in SQL).
+const withinRadius = (shown: number, radiusKm: RadiusKm | null): boolean => radiusKm === null || shown <= radiusKm * 1000;
+const nearbyOrder = (a: { id: number; shown: number; createdAt: Date }, b: { id: number; shown: number; createdAt: Date }) =>
+	a.shown - b.shown || b.createdAt.getTime() - a.createdAt.getTime() || b.id - a.id;
 const RUNS = 40;
 
 const secrets = JSON.parse(readFileSync(join(dataRoot, 'secrets.json'), 'utf8')) as { dbPassword: string };
@@ -82,9 +89,10 @@ try {
 	await handle.pool.query('ANALYZE TABLE listing');
 
 	const viewer = { id: viewerId };
-	const filter = { ...EMPTY_FILTER, radiusKm: 10 as const };
+	const filter = { ...parseBoardQuery(new URLSearchParams()), radiusKm: 10 as const };
+	const where = await boardWhere(viewer, filter, centre, { db, now });
 
-	const nearby = () => nearbyQuery(db, viewer, filter, now, centre);
+	const nearby = () => nearbyQuery(where, centre, filter, { db, now });
 	// The same page with the box pre-filter gone and the indexes ignored: every open listing's distance.
 	const shown = shownSql(distanceSql(centre));
 	const fullScanSql = () =>

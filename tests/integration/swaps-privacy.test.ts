@@ -5,13 +5,13 @@ import { describe, expect, test } from 'vitest';
 import { unflatten } from 'devalue';
 import * as users from '../../src/lib/server/club/users';
 import * as tanks from '../../src/lib/server/journals/tanks';
-import * as board from '../../src/lib/server/swaps/board';
-import * as listings from '../../src/lib/server/swaps/listings';
+import * as nearby from '../../src/lib/server/swaps/nearby';
+import * as detail from '../../src/lib/server/swaps/listing-detail';
 import * as threads from '../../src/lib/server/swaps/threads';
-import { EMPTY_FILTER, type RadiusKm } from '../../src/lib/swaps/board';
+import { parseBoardQuery, type RadiusKm } from '../../src/lib/swaps/board-filter';
 import { roundToKilometre, type LatLng } from '../../src/lib/club/location';
 import { haversineDistance } from '../../src/lib/swaps/distance';
-import { formatDistance } from '../../src/lib/swaps/display';
+import { labelOf, shownMetres } from '../../src/lib/swaps/display';
 import { request } from '../helpers/http';
 import { tankInput } from '../helpers/tanks';
 import { createListing, memberAt, token, viewerOf } from '../helpers/swaps';
@@ -65,8 +65,8 @@ describe('swap listings: the tank a listing came from', () => {
 		expect(html).not.toContain(`/journals/${hiddenTank}`);
 		expect(html).not.toContain(hiddenName);
 		// The domain itself hands out nothing more.
-		const detail = await listings.get(viewerOf(other), hidden);
-		expect(tankRefs(detail)).toEqual([]);
+		const shown = await detail.get(viewerOf(other), hidden);
+		expect(tankRefs(shown)).toEqual([]);
 
 		// The owner sees their own tank; a club-wide tank is shown to any member.
 		expect((await pageData(`/swaps/${hidden}`, owner)).nodes.at(-1)!.listing).toMatchObject({ tank: { id: hiddenTank, name: hiddenName } });
@@ -144,7 +144,7 @@ describe('swap board: what moving one’s own point reveals', () => {
 			const labels = new Map<number, string>();
 			const shownKm = new Map<number, number>();
 			for (const radiusKm of radii) {
-				const page = await board.search(viewerOf(walker), { ...EMPTY_FILTER, q: tag, radiusKm });
+				const page = await nearby.search(viewerOf(walker), { ...parseBoardQuery(new URLSearchParams()), q: tag, radiusKm });
 				expect(page.order).toBe('distance');
 				results.set(
 					radiusKm,
@@ -203,11 +203,11 @@ describe('swap board: what moving one’s own point reveals', () => {
 		// points with the haversine function): the "edge" listing shown "about 2 km" both within
 		// and beyond an exact 2 km, and the two far ones both "about 6 km" with either one nearer.
 		const stored = walk.map((s) => roundToKilometre({ lat: -56.56 + s.step * 0.0009, lng }));
-		const edgeExact = stored.map((p) => haversineDistance(p, victims.edge!)).filter((d) => formatDistance(d).text === 'about 2 km');
+		const edgeExact = stored.map((p) => haversineDistance(p, victims.edge!)).filter((d) => labelOf(shownMetres(d)).text === 'about 2 km');
 		expect(edgeExact.some((d) => d <= 2_000) && edgeExact.some((d) => d > 2_000)).toBe(true);
 		const farBoth = stored
 			.map((p) => [haversineDistance(p, victims.farNorth!), haversineDistance(p, victims.farSouth!)] as const)
-			.filter(([n, s]) => formatDistance(n).text === 'about 6 km' && formatDistance(s).text === 'about 6 km');
+			.filter(([n, s]) => labelOf(shownMetres(n)).text === 'about 6 km' && labelOf(shownMetres(s)).text === 'about 6 km');
 		expect(farBoth.some(([n, s]) => n < s) && farBoth.some(([n, s]) => s < n)).toBe(true);
 		expect(
 			walk.every((s) => s.results.get(2)!.includes(made.edge!) === (s.labels.get(made.edge!) === 'about 2 km' || s.labels.get(made.edge!) === 'under 2 km'))

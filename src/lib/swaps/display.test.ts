@@ -1,11 +1,16 @@
 import { describe, expect, test } from 'vitest';
 import { roundToKilometre } from '$lib/club/location';
 import { haversineDistance } from './distance';
-import { RADIUS_CHOICES_KM } from './board';
-import { DISTANCE_BANDS, formatDistance, labelOf, NEARBY_LIMIT_M, radiusReachMetres, shownMetres } from './display';
+import { RADIUS_CHOICES_KM } from './board-filter';
+import { DISTANCE_BANDS, labelOf, radiusReachMetres, shownMetres } from './display';
 
 // The rounding steps are our choice (no source); these tests pin them and check that what is shown
 // never claims more precision than the stored, rounded points carry.
+
+/** The label for an exact distance: its shown figure, in words. */
+const formatDistance = (metres: number) => labelOf(shownMetres(metres));
+/** Below this, the rounding of the stored points is as large as the distance itself. */
+const NEARBY_LIMIT_M = DISTANCE_BANDS[0]!.below;
 
 /** The step a shown figure was rounded to at most (its own band's step). */
 const stepOf = (metres: number) => DISTANCE_BANDS.find((b) => metres < b.below)!.step;

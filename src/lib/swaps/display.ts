@@ -33,14 +33,11 @@ export const DISTANCE_BANDS: readonly { below: number; step: number }[] = [
 	{ below: Number.POSITIVE_INFINITY, step: 100_000 }
 ];
 
-/** Below this, the rounding of the stored points is as large as the distance itself. */
-export const NEARBY_LIMIT_M = DISTANCE_BANDS[0]!.below;
-
 const bandOf = (metres: number) => DISTANCE_BANDS.find((b) => metres < b.below)!;
 
 /**
  * The figure shown for a distance, in metres: 0 for "under 2 km", else the rounded distance.
- * Written as the board's SQL computes it (server/swaps/board.ts, `shownSql`): floor((d + s/2) / s) · s.
+ * Written as the board's SQL computes it (server/swaps/nearby.ts, `shownSql`): floor((d + s/2) / s) · s.
  */
 export function shownMetres(metres: number): number {
 	if (!(metres >= 0)) throw new RangeError('A distance is zero or more metres.');
@@ -56,10 +53,6 @@ export function labelOf(shown: number): DistanceLabel {
 	if (shown === 0) return { text: 'under 2 km', km: null };
 	const km = shown / 1000;
 	return { text: `about ${grouping.format(km)} km`, km };
-}
-
-export function formatDistance(metres: number): DistanceLabel {
-	return labelOf(shownMetres(metres));
 }
 
 /**

@@ -1,11 +1,12 @@
-// What other features may know of members, read in batches (one query for any number of ids):
-// the name others see, where to mail them, their role, and whether they take club announcements.
-// Features never read the member table themselves.
+// What other features may know of members and club areas, read in batches (one query for any
+// number of ids, so a page of cards costs the same as one card): the name others see, where to
+// mail them, their role, whether they take club announcements, and areas' names. Features never
+// read the member or area tables themselves.
 import { and, eq, inArray, isNotNull, type SQL } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
 import { nameOf } from '../../club/names';
 import type { Role } from '../../club/roles';
-import { users } from './schema';
+import { clubAreas, users } from './schema';
 
 export interface Member {
 	id: string;
@@ -36,14 +37,14 @@ async function select(where: SQL | undefined, context: Context): Promise<Member[
 const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
 
 /** The members with these ids, by id (ids of former members are missing). */
-export async function byIds(ids: readonly string[], context: Context = {}): Promise<Map<string, Member>> {
+export async function byIds(ids: Iterable<string>, context: Context = {}): Promise<Map<string, Member>> {
 	const unique = [...new Set(ids)];
 	if (unique.length === 0) return new Map();
 	return new Map((await select(inArray(users.id, unique), context)).map((m) => [m.id, m]));
 }
 
 /** The name each member is shown under, by id. */
-export async function names(ids: readonly string[], context: Context = {}): Promise<Map<string, string>> {
+export async function names(ids: Iterable<string>, context: Context = {}): Promise<Map<string, string>> {
 	return new Map([...(await byIds(ids, context))].map(([id, m]) => [id, m.name]));
 }
 
@@ -55,4 +56,13 @@ export async function withRole(role: Role, context: Context = {}): Promise<Membe
 /** Everyone with an address who takes club announcements. */
 export async function announcementReaders(context: Context = {}): Promise<Member[]> {
 	return select(and(eq(users.announcements, true), isNotNull(users.email)), context);
+}
+
+/** Club areas' names, by id. An id of no area (e.g. one removed since) is not in the map. */
+export async function areaNames(ids: Iterable<number>, context: Context = {}): Promise<Map<number, string>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	const { db } = resolve(context);
+	const rows = await db.select({ id: clubAreas.id, name: clubAreas.name }).from(clubAreas).where(inArray(clubAreas.id, unique));
+	return new Map(rows.map((r) => [r.id, r.name]));
 }

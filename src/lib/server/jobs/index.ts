@@ -5,7 +5,7 @@ import { db } from '../db';
 import { signInRequests } from '../club/schema';
 import { sweepPending } from '../media';
 import { sendWeeklyDigests } from '../journals/digest';
-import { expireDue } from '../swaps/listings';
+import { expireDue } from '../swaps/expiry';
 import { sendDue } from '../swaps/notifications';
 import { sendDueReminders } from '../contests/reminders';
 import type { Job } from './runner';
@@ -36,14 +36,14 @@ const weeklyJournalDigest: Job = {
 const expireSwapListings: Job = {
 	name: 'expire-swap-listings',
 	everyMs: 5 * 60_000,
-	run: (now) => expireDue(now)
+	run: (now) => expireDue({ now })
 };
 
 /** Swap messages that waited for their conversation's hour, or for an hourly summary. */
 const mailSwapMessages: Job = {
 	name: 'mail-swap-messages',
 	everyMs: 2 * 60_000,
-	run: (now) => sendDue(now)
+	run: (now) => sendDue({ now })
 };
 
 /** Contest windows whose date passed without the state moving, and judges with open cards. */

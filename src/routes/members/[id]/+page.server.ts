@@ -1,10 +1,10 @@
 import { error, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
 import * as members from '$lib/server/swaps/members';
-import * as listings from '$lib/server/swaps/listings';
+import * as listings from '$lib/server/swaps/listing-cards';
 import * as blocks from '$lib/server/swaps/blocks';
 import * as tanks from '$lib/server/journals/tanks';
-import { SwapError } from '$lib/server/swaps/errors';
+import { isDomainError } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 // Member ids are the sign-in system's UUIDs.
@@ -36,7 +36,7 @@ export const actions = {
 		try {
 			await blocks.block(viewer, id);
 		} catch (e) {
-			if (e instanceof SwapError) error(e.status === 400 ? 400 : 404, e.message);
+			if (isDomainError(e)) error(e.status === 400 ? 400 : 404, e.message);
 			throw e;
 		}
 		redirect(303, `/members/${id}`);

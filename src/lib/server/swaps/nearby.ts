@@ -1,35 +1,30 @@
-// The board: open listings near the viewer. The search never scans every listing in JavaScript:
-// SQL pre-filters on the bounding box of the radius (indexed state, lat, lng of the listing,
-// two longitude ranges across ±180°, every longitude near a pole), computes the haversine
-// distance once for each row in the box, turns it into the figure members are shown
+// The nearby search: open listings near the viewer, for the board. The search never scans every
+// listing in JavaScript: SQL pre-filters on the bounding box of the radius (indexed state, lat,
+// lng of the listing, two longitude ranges across ±180°, every longitude near a pole), computes
+// the haversine distance once for each row in the box, turns it into the figure members are shown
 // ($lib/swaps/display) and filters and orders by that figure alone (then newest first), and pages
 // with LIMIT/OFFSET. The exact distance never leaves this query: what a member can learn by moving
-// their own point is the shown figures and nothing finer. Without a location the board is newest first.
-import { and, count, desc, eq, gt, like, notExists, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
-import { clubAreas, users } from '../club/schema';
+// their own point is the shown figures and nothing finer. Without a location the board is newest
+// first. The query reads the listing table alone; the names on the cards come afterwards, a batch
+// per page (listing-cards.ts).
+import { and, count, desc, eq, gt, inArray, like, notExists, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
+import { db as appDb } from '../db';
+import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
-import { species } from '../species/schema';
+import * as users from '../club/users';
+import * as matching from '../species/matching';
 import type { LatLng } from '../../club/location';
 import { boundingBox, MEAN_EARTH_RADIUS_M } from '../../swaps/distance';
 import { DISTANCE_BANDS, labelOf, radiusReachMetres } from '../../swaps/display';
-import { BOARD_PAGE_SIZE, pageCount, type BoardFilter } from '../../swaps/board';
+import { BOARD_PAGE_SIZE, pageCount, type BoardFilter } from '../../swaps/board-filter';
+import type { BoardPage } from '../../swaps/listing-card';
 import { listings, memberBlocks } from './schema';
-import { cardColumns, toCards, type ListingCard } from './listings';
-
-export interface BoardPage {
-	rows: ListingCard[];
-	total: number;
-	page: number;
-	pages: number;
-	/** 'distance' when the viewer has a location, else 'newest'. */
-	order: 'distance' | 'newest';
-}
+import { cardColumns, toCards } from './listing-cards';
 
 /** The viewer's stored (rounded) point, or null when they have not set one. */
-export async function viewerPoint(viewerId: string, database: DbOrTx = appDb): Promise<LatLng | null> {
-	const [row] = await database.select({ lat: users.homeLat, lng: users.homeLng }).from(users).where(eq(users.id, viewerId));
-	return row && row.lat !== null && row.lng !== null ? { lat: row.lat, lng: row.lng } : null;
+async function viewerPoint(viewerId: string, context: Context): Promise<LatLng | null> {
+	const row = await users.getById(viewerId, context.db);
+	return row && row.homeLat !== null && row.homeLng !== null ? { lat: row.homeLat, lng: row.homeLng } : null;
 }
 
 /** A number as an exact SQL decimal literal, so comparisons with the DECIMAL columns can use their index. */
@@ -76,9 +71,12 @@ export function shownSql(d: SQL | SQL.Aliased | AnyColumn): SQL<number> {
 /**
  * Every condition of the board on the listing itself for this viewer and filter. From a point with
  * a radius, that is the bounding box of the radius's reach (every distance still shown within the
- * radius); the shown figure itself is compared on the derived table (see `nearby`).
+ * radius); the shown figure itself is compared on the derived table (see `nearbyQuery`). Words
+ * searched for match the title, the species name on the listing, or the catalogue's common name
+ * of its species (looked up first, in the catalogue).
  */
-export function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng | null): SQL {
+export async function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, point: LatLng | null, context: Context = {}): Promise<SQL> {
+	const { now } = resolve(context);
 	const conditions: (SQL | undefined)[] = [eq(listings.state, 'open'), gt(listings.availableUntil, now)];
 	if (point && filter.radiusKm !== null) conditions.push(boxSql(point, radiusReachMetres(filter.radiusKm)));
 	if (filter.category) conditions.push(eq(listings.category, filter.category));
@@ -86,7 +84,10 @@ export function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now:
 	if (filter.speciesId !== null) conditions.push(eq(listings.speciesId, filter.speciesId));
 	if (filter.q) {
 		const pattern = `%${escapeLike(filter.q)}%`;
-		conditions.push(or(like(listings.title, pattern), like(listings.speciesName, pattern), like(species.commonName, pattern)));
+		const commonNamed = await matching.idsWithCommonName(filter.q, context);
+		conditions.push(
+			or(like(listings.title, pattern), like(listings.speciesName, pattern), commonNamed.length ? inArray(listings.speciesId, commonNamed) : undefined)
+		);
 	}
 	// Listings of members the viewer has blocked are hidden from them.
 	conditions.push(
@@ -105,31 +106,30 @@ export function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now:
  * (so the distance is computed once per row), their shown figure, and the radius as a condition
  * on that figure.
  */
-function nearby(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng) {
-	const inner = database
+function fromPoint(where: SQL, point: LatLng, radiusKm: BoardFilter['radiusKm'], context: Context) {
+	const { db } = resolve(context);
+	const inner = db
 		.select({ ...cardColumns, distance: sql<number>`${distanceSql(point)}`.as('distance') })
 		.from(listings)
-		.innerJoin(users, eq(users.id, listings.ownerId))
-		.leftJoin(clubAreas, eq(clubAreas.id, listings.pickupAreaId))
-		.leftJoin(species, eq(species.id, listings.speciesId))
-		.where(boardWhere(viewer, filter, now, point))
+		.where(where)
 		.as('nearby');
 	const shown = shownSql(inner.distance);
-	return { inner, shown, within: filter.radiusKm === null ? undefined : sql`${shown} <= ${decimal(filter.radiusKm * 1000)}` };
+	return { inner, shown, within: radiusKm === null ? undefined : sql`${shown} <= ${decimal(radiusKm * 1000)}` };
 }
 
 /**
- * One page of the board from a point: by shown figure, then newest first, never by the exact
- * distance (also used by the benchmark to EXPLAIN it).
+ * One page of the board from a point, for the conditions of `boardWhere`: by shown figure, then
+ * newest first, never by the exact distance (also used by the benchmark to EXPLAIN it).
  */
-export function nearbyQuery(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng) {
-	const { inner, shown, within } = nearby(database, viewer, filter, now, point);
+export function nearbyQuery(where: SQL, point: LatLng, filter: Pick<BoardFilter, 'radiusKm' | 'page'>, context: Context = {}) {
+	const { db } = resolve(context);
+	const { inner, shown, within } = fromPoint(where, point, filter.radiusKm, context);
 	// The card columns of the derived table (a subquery's fields are only reached through it, one by one).
 	const columns = Object.fromEntries(Object.keys(cardColumns).map((key) => [key, inner[key as keyof typeof cardColumns]])) as Pick<
 		typeof inner,
 		keyof typeof cardColumns
 	>;
-	return database
+	return db
 		.select({ ...columns, shown: sql<number>`${shown}`.mapWith(Number).as('shown') })
 		.from(inner)
 		.where(within)
@@ -139,44 +139,40 @@ export function nearbyQuery(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter
 }
 
 /** One page of the board without a location: newest first. */
-export function newestQuery(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date) {
-	return database
+function newestQuery(where: SQL, page: number, context: Context) {
+	const { db } = resolve(context);
+	return db
 		.select(cardColumns)
 		.from(listings)
-		.innerJoin(users, eq(users.id, listings.ownerId))
-		.leftJoin(clubAreas, eq(clubAreas.id, listings.pickupAreaId))
-		.leftJoin(species, eq(species.id, listings.speciesId))
-		.where(boardWhere(viewer, filter, now, null))
+		.where(where)
 		.orderBy(desc(listings.createdAt), desc(listings.id))
 		.limit(BOARD_PAGE_SIZE)
-		.offset((filter.page - 1) * BOARD_PAGE_SIZE);
+		.offset((page - 1) * BOARD_PAGE_SIZE);
 }
 
-/** How many listings the board has for this filter, counted as the page query selects them. */
-async function total(database: DbOrTx, viewer: Pick<Viewer, 'id'>, filter: BoardFilter, now: Date, point: LatLng | null): Promise<number> {
+/** How many listings the board has for these conditions, counted as the page query selects them. */
+async function total(where: SQL, point: LatLng | null, radiusKm: BoardFilter['radiusKm'], context: Context): Promise<number> {
+	const { db } = resolve(context);
 	if (point) {
-		const { inner, within } = nearby(database, viewer, filter, now, point);
-		const [row] = await database.select({ n: count() }).from(inner).where(within);
+		const { inner, within } = fromPoint(where, point, radiusKm, context);
+		const [row] = await db.select({ n: count() }).from(inner).where(within);
 		return row?.n ?? 0;
 	}
-	const [row] = await database
-		.select({ n: count() })
-		.from(listings)
-		.leftJoin(species, eq(species.id, listings.speciesId))
-		.where(boardWhere(viewer, filter, now, null));
+	const [row] = await db.select({ n: count() }).from(listings).where(where);
 	return row?.n ?? 0;
 }
 
 /** One page of the board for the viewer: nearest first by the shown figure when they have a location. */
-export async function search(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, options: { now?: Date; database?: DbOrTx } = {}): Promise<BoardPage> {
-	const database = options.database ?? appDb;
-	const now = options.now ?? new Date();
-	const point = await viewerPoint(viewer.id, database);
+export async function search(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, context: Context = {}): Promise<BoardPage> {
+	const { db, now } = resolve(context);
+	const at = { ...context, db, now };
+	const point = await viewerPoint(viewer.id, at);
+	const where = await boardWhere(viewer, filter, point, at);
 	const [rows, n] = await Promise.all([
-		point ? nearbyQuery(database, viewer, filter, now, point) : newestQuery(database, viewer, filter, now),
-		total(database, viewer, filter, now, point)
+		point ? nearbyQuery(where, point, filter, at) : newestQuery(where, filter.page, at),
+		total(where, point, filter.radiusKm, at)
 	]);
-	const cards = await toCards(rows, viewer, now, database);
+	const cards = await toCards(rows, viewer, at);
 	return {
 		rows: cards.map((card, i) => {
 			const row = rows[i]!;

@@ -1,6 +1,7 @@
-// The board's filters, read from and written to the query string: the page's form submits them
-// with GET (it works without JavaScript), the page's script sends the same to /api/swaps/listings
-// and keeps the address bar in step, so a filtered board can be bookmarked and shared.
+// The board's filters: what the nearby search (server/swaps/nearby.ts) is asked for, read from and
+// written to the query string. The page's form submits them with GET (it works without
+// JavaScript), the page's script sends the same to /api/swaps/listings and keeps the address bar
+// in step, so a filtered board can be bookmarked and shared.
 import { LISTING_CATEGORIES, LISTING_KINDS, type ListingCategory, type ListingKind } from './listing';
 
 export const RADIUS_CHOICES_KM = [2, 5, 10, 25, 50] as const;
@@ -21,8 +22,6 @@ export interface BoardFilter {
 	radiusKm: RadiusKm | null;
 	page: number;
 }
-
-export const EMPTY_FILTER: BoardFilter = { q: '', category: null, kind: null, speciesId: null, speciesName: '', radiusKm: null, page: 1 };
 
 const oneOf = <T extends string>(list: readonly T[], value: string | null): T | null =>
 	value !== null && (list as readonly string[]).includes(value) ? (value as T) : null;
@@ -66,24 +65,3 @@ export function boardQueryString(filter: BoardFilter): string {
 }
 
 export const pageCount = (total: number) => Math.max(1, Math.ceil(total / BOARD_PAGE_SIZE));
-
-/**
- * The radius filter, on the shown figure (metres, from $lib/swaps/display's `shownMetres`) and
- * nothing finer: "within 5 km" keeps every listing shown as "about 5 km" or nearer, and no other.
- */
-export const withinRadius = (shown: number, radiusKm: RadiusKm | null): boolean => radiusKm === null || shown <= radiusKm * 1000;
-
-export interface NearbyRow {
-	id: number;
-	/** The shown figure in metres (0: "under 2 km"). */
-	shown: number;
-	createdAt: Date;
-}
-
-/**
- * The board's order for a member with a location: by shown figure, then newest first. Never by
- * the exact distance: two listings shown alike keep the same order wherever the viewer stands.
- */
-export function nearbyOrder(a: NearbyRow, b: NearbyRow): number {
-	return a.shown - b.shown || b.createdAt.getTime() - a.createdAt.getTime() || b.id - a.id;
-}

@@ -45,7 +45,7 @@ try {
 		});
 		console.log(`  seeded ${step.name} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
 	}
-	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, db);
+	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, { db });
 } catch (error) {
 	console.error('Seeding failed:', error);
 	process.exitCode = 1;

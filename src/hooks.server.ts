@@ -2,6 +2,7 @@ import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { authHandle } from '$lib/server/auth';
+import { guardSections } from '$lib/server/club/guards';
 import * as sessions from '$lib/server/club/sessions';
 import * as users from '$lib/server/club/users';
 import { config } from '$lib/server/config';
@@ -30,10 +31,6 @@ export const init: ServerInit = async () => {
 	});
 };
 
-/**
- * Sign-in links are requested only through /signin, where they are validated and rate-limited;
- * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
- */
 /** A redirect returned (not thrown), so the outer hooks still add their headers to it. */
 const seeOther = (location: string) => new Response(null, { status: 303, headers: { location } });
 
@@ -43,6 +40,11 @@ const AUTH_PAGES: Record<string, string> = {
 	'/auth/error': '/signin/problem',
 	'/auth/verify-request': '/signin/check-email'
 };
+
+/**
+ * Sign-in links are requested only through /signin, where they are validated and rate-limited;
+ * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
+ */
 const onlyOurAuthPages: Handle = async ({ event, resolve }) => {
 	const path = event.url.pathname.replace(/\/+$/, '');
 	if (event.request.method === 'POST' && path.startsWith('/auth/signin')) {
@@ -70,7 +72,7 @@ const resolveViewer: Handle = async ({ event, resolve }) => {
 	if (event.url.pathname.startsWith('/auth/')) return resolve(event);
 	const cookieName = SESSION_COOKIES.find((name) => event.cookies.get(name));
 	const token = cookieName ? event.cookies.get(cookieName)! : null;
-	const session = token ? await sessions.resolve(token) : undefined;
+	const session = token ? await sessions.find(token) : undefined;
 	if (!token || !cookieName || !session) return resolve(event);
 
 	event.locals.user = users.toViewer(session.user);
@@ -115,8 +117,9 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-// Outermost first: every response, Auth.js's included, leaves through responseHeaders.
-export const handle: Handle = sequence(responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName);
+// Outermost first: every response, Auth.js's included, leaves through responseHeaders. The
+// sections (/admin, /judging) are guarded once the viewer is known; every route checks again.
+export const handle: Handle = sequence(responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName, guardSections);
 
 /** Last resort: log the error under an id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

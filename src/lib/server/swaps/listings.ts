@@ -298,7 +298,7 @@ export async function getOwn(viewer: Viewer, id: number, options: Options = {}):
  */
 async function placeFor(tx: DbOrTx, ownerId: string, pickupAreaId: number | null) {
 	const [owner] = await tx.select({ homeLat: users.homeLat, homeLng: users.homeLng, homeAreaId: users.homeAreaId }).from(users).where(eq(users.id, ownerId));
-	const all = await areas.list(tx);
+	const all = await areas.list({ db: tx });
 	const home = owner && owner.homeLat !== null && owner.homeLng !== null ? { lat: owner.homeLat, lng: owner.homeLng } : null;
 	let area = pickupAreaId !== null ? all.find((a) => a.id === pickupAreaId) : undefined;
 	if (pickupAreaId !== null && !area) throw new SwapError(400, 'no-area', 'That area no longer exists; choose another.', 'pickupAreaId');

@@ -25,7 +25,7 @@ export async function areaLabelOf(
 	user: { homeAreaId: number | null; homeLat: number | null; homeLng: number | null },
 	database: DbOrTx = appDb
 ): Promise<string | null> {
-	const all = await areas.list(database);
+	const all = await areas.list({ db: database });
 	const own = user.homeAreaId !== null ? all.find((a) => a.id === user.homeAreaId) : undefined;
 	if (own) return own.name;
 	if (user.homeLat === null || user.homeLng === null) return null;

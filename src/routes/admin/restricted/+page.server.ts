@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
 import * as restricted from '$lib/server/swaps/restricted';
 import { SwapError } from '$lib/server/swaps/errors';
-import { fieldErrors } from '$lib/club/profile';
+import { fieldErrorsOf } from '$lib/errors';
 import { CHECK_BASES, RESTRICTION_LEVELS } from '$lib/swaps/restrictions';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -54,7 +54,7 @@ export const actions = {
 		const admin = requireRole(event, 'admin');
 		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
 		const parsed = addSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { addErrors: fieldErrors(parsed.error.issues), values });
+		if (!parsed.success) return fail(400, { addErrors: fieldErrorsOf(parsed.error), values });
 		try {
 			await restricted.add(admin, parsed.data);
 		} catch (e) {

@@ -5,6 +5,8 @@ import * as listings from '$lib/server/swaps/listings';
 import * as blocks from '$lib/server/swaps/blocks';
 import * as tanks from '$lib/server/journals/tanks';
 import { SwapError } from '$lib/server/swaps/errors';
+import { formAction } from '$lib/server/http/forms';
+import { DomainError } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 // Member ids are the sign-in system's UUIDs.
@@ -30,21 +32,22 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	block: async (event) => {
+	block: formAction(async (event) => {
 		const viewer = requireUser(event);
 		const id = memberId(event.params.id);
 		try {
 			await blocks.block(viewer, id);
 		} catch (e) {
-			if (e instanceof SwapError) error(e.status === 400 ? 400 : 404, e.message);
+			// The swap board's refusals are their own class until they are DomainErrors.
+			if (e instanceof SwapError) throw new DomainError(e.status === 400 ? 400 : 404, e.code, e.message);
 			throw e;
 		}
 		redirect(303, `/members/${id}`);
-	},
-	unblock: async (event) => {
+	}),
+	unblock: formAction(async (event) => {
 		const viewer = requireUser(event);
 		const id = memberId(event.params.id);
 		await blocks.unblock(viewer, id);
 		redirect(303, `/members/${id}`);
-	}
+	})
 } satisfies Actions;

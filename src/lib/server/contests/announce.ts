@@ -133,7 +133,7 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
 			}))
 		];
-		await enqueue(tx, mails, now);
+		await enqueue(mails, { db: tx, now });
 		if (locked.announcedRevision !== p.revision) {
 			await tx.update(contests).set({ announcedRevision: p.revision }).where(eq(contests.id, contestId));
 			await audit.record(tx, viewer.id, 'results.announce', contestId, {

@@ -540,7 +540,7 @@ export async function remindJudges(
 				}
 			];
 		});
-		await enqueue(tx, mails, now);
+		await enqueue(mails, { db: tx, now });
 		if (mails.length) await audit.record(tx, viewer.id, 'panel.remind', contestId, { judges: targets.map(([id]) => who.get(id)?.displayName ?? id) });
 		return mails.length;
 	});

@@ -64,6 +64,6 @@ export async function sendDueReminders(now: Date, tx: DbOrTx = appDb): Promise<n
 			}
 		}
 	}
-	await enqueue(tx, mails, now);
+	await enqueue(mails, { db: tx, now });
 	return mails.length;
 }

@@ -1,7 +1,12 @@
+// Runs the periodic jobs (jobs/index.ts lists them): each is claimed by one conditional UPDATE
+// on job_run, so with several app instances ticking at once exactly one runs it.
 import { hostname } from 'node:os';
 import { and, eq, isNull, lte, or, sql } from 'drizzle-orm';
-import { db as appDb, type Database } from '../db';
+import { resolve, type Context } from '../context';
 import { jobRuns } from '../db/meta';
+
+/** What a job's run is given: the moment of this round, and the database the runner was given (if any). */
+export type JobContext = Context & { now: Date };
 
 export interface Job {
 	/** Stable name; the row in job_run is keyed by it. */
@@ -10,14 +15,15 @@ export interface Job {
 	everyMs: number;
 	/** How long one run may hold the job before another instance may take it over. */
 	leaseMs?: number;
-	run(now: Date): Promise<unknown>;
+	run(context: JobContext): Promise<unknown>;
 }
 
 /**
  * Claims a job for one run if it is due and nobody holds it. The claim is one conditional UPDATE,
  * so of several instances ticking at once exactly one wins.
  */
-export async function claim(job: Job, worker: string, now: Date, db: Database = appDb): Promise<boolean> {
+export async function claim(job: Job, worker: string, context: Context = {}): Promise<boolean> {
+	const { db, now } = resolve(context);
 	await db
 		.insert(jobRuns)
 		.values({ name: job.name })
@@ -36,7 +42,8 @@ export async function claim(job: Job, worker: string, now: Date, db: Database = 
 	return result.affectedRows === 1;
 }
 
-async function release(job: Job, now: Date, error: unknown, db: Database) {
+async function release(job: Job, error: unknown, context: Context) {
+	const { db, now } = resolve(context);
 	await db
 		.update(jobRuns)
 		.set({
@@ -49,21 +56,21 @@ async function release(job: Job, now: Date, error: unknown, db: Database) {
 }
 
 /** Runs every due job once; returns the names of the jobs this call ran. */
-export async function runDueJobs(jobs: Job[], options: { now?: Date; worker?: string; db?: Database } = {}): Promise<string[]> {
-	const now = options.now ?? new Date();
+export async function runDueJobs(jobs: Job[], options: { worker?: string } = {}, context: Context = {}): Promise<string[]> {
 	const worker = options.worker ?? `${hostname()}:${process.pid}`;
-	const db = options.db ?? appDb;
+	// One moment for the whole round: every claim, run and release of it agrees on "now".
+	const round: JobContext = { ...context, now: resolve(context).now };
 	const ran: string[] = [];
 	for (const job of jobs) {
-		if (!(await claim(job, worker, now, db))) continue;
+		if (!(await claim(job, worker, round))) continue;
 		let failure: unknown = null;
 		try {
-			await job.run(now);
+			await job.run(round);
 		} catch (error) {
 			failure = error;
 			console.error(`[jobs] ${job.name} failed:`, error instanceof Error ? error.message : error);
 		}
-		await release(job, now, failure, db);
+		await release(job, failure, round);
 		ran.push(job.name);
 	}
 	return ran;

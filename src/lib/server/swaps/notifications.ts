@@ -42,14 +42,14 @@ export async function afterPost(
 		const [listing] = await tx.select({ title: listings.title }).from(listings).where(eq(listings.id, thread.listingId));
 		const sender = displayName(await person(tx, message.senderId));
 		await enqueue(
-			tx,
 			threadMail(recipient.email, {
 				threadId: thread.id,
 				recipientId: message.recipientId,
 				title: listing?.title ?? 'your swap',
 				otherName: sender,
 				messages: [{ senderName: sender, body: message.body }]
-			})
+			}),
+			{ db: tx }
 		);
 		await tx
 			.update(swapThreads)
@@ -63,7 +63,7 @@ export async function afterPost(
 export async function queueNotice(tx: DbOrTx, userId: string, build: (email: string) => QueuedMail): Promise<void> {
 	const recipient = await person(tx, userId);
 	if (!recipient?.email || recipient.notifyMessages === 'off') return;
-	await enqueue(tx, build(recipient.email));
+	await enqueue(build(recipient.email), { db: tx });
 }
 
 /**
@@ -152,14 +152,14 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 				if (p.kind === 'thread') {
 					const t = byId.get(p.threadId)!;
 					await enqueue(
-						tx,
 						threadMail(recipient.email!, {
 							threadId: t.id,
 							recipientId,
 							title: titles.get(t.listingId) ?? 'your swap',
 							otherName: otherOf(t),
 							messages: included.map((r) => ({ senderName: r.senderId ? (senders.get(r.senderId) ?? 'A member') : 'Riparia', body: r.body }))
-						})
+						}),
+						{ db: tx }
 					);
 					await tx
 						.update(swapThreads)
@@ -171,7 +171,7 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 						const count = included.filter((r) => r.threadId === id).length;
 						return count ? [{ threadId: id, title: titles.get(t.listingId) ?? 'your swap', otherName: otherOf(t), count }] : [];
 					});
-					await enqueue(tx, summaryMail(recipient.email!, { recipientId, threads: summary }));
+					await enqueue(summaryMail(recipient.email!, { recipientId, threads: summary }), { db: tx });
 					await tx
 						.insert(swapMailState)
 						.values({ userId: recipientId, summaryMailedAt: now })

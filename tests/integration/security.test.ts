@@ -305,9 +305,22 @@ describe('bodies that cannot be read get a 400, never a 500', () => {
 
 	test('an oversized text body', async () => {
 		const member = await makePerson();
-		const response = await request('/journals/new', { cookie: member.cookie, form: { name: 'x'.repeat(700_000) } });
+		// On a connection of its own: the app answers without reading the body and resets the
+		// connection, which must not be one a later test's fetch is handed from the shared pool.
+		const body = new URLSearchParams({ name: 'x'.repeat(700_000) }).toString();
+		const response = await raw('/journals/new', {
+			method: 'POST',
+			headers: {
+				host: new URL(appUrl()).host,
+				cookie: member.cookie,
+				origin: origin(),
+				'content-type': 'application/x-www-form-urlencoded',
+				'content-length': String(Buffer.byteLength(body))
+			},
+			body
+		});
 		expect(response.status).toBe(400);
-		expect(await response.text()).toMatch(/more text than/i);
+		expect(response.body).toMatch(/more text than/i);
 	});
 });
 

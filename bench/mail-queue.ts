@@ -32,7 +32,7 @@ try {
 	const samples: number[] = [];
 	for (let i = 0; i < 3; i++) {
 		const started = performance.now();
-		await db.transaction((tx) => enqueue(tx, mails));
+		await db.transaction((tx) => enqueue(mails, { db: tx }));
 		samples.push(performance.now() - started);
 		await db.delete(outbox).where(eq(outbox.topic, TOPIC));
 	}

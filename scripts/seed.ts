@@ -49,7 +49,7 @@ try {
 		});
 		log.info({ step: step.name, seconds: Number(((Date.now() - started) / 1000).toFixed(1)) }, `seeded ${step.name}`);
 	}
-	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, db);
+	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, { db });
 } catch (error) {
 	log.fatal({ err: error, reason: reason(error) }, 'seeding failed');
 	process.exitCode = 1;

@@ -1,4 +1,4 @@
-import type { Viewer } from '$lib/server/club/users';
+import type { Viewer } from '$lib/club/viewer';
 
 declare global {
 	namespace App {

@@ -2,6 +2,7 @@ import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { authHandle } from '$lib/server/auth';
+import { guardSections } from '$lib/server/club/guards';
 import * as sessions from '$lib/server/club/sessions';
 import * as users from '$lib/server/club/users';
 import { config } from '$lib/server/config';
@@ -50,6 +51,11 @@ const AUTH_PAGES: Record<string, string> = {
 	'/auth/error': '/signin/problem',
 	'/auth/verify-request': '/signin/check-email'
 };
+
+/**
+ * Sign-in links are requested only through /signin, where they are validated and rate-limited;
+ * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
+ */
 const onlyOurAuthPages: Handle = async ({ event, resolve }) => {
 	const path = event.url.pathname.replace(/\/+$/, '');
 	if (event.request.method === 'POST' && path.startsWith('/auth/signin')) {
@@ -77,7 +83,7 @@ const resolveViewer: Handle = async ({ event, resolve }) => {
 	if (event.url.pathname.startsWith('/auth/')) return resolve(event);
 	const cookieName = SESSION_COOKIES.find((name) => event.cookies.get(name));
 	const token = cookieName ? event.cookies.get(cookieName)! : null;
-	const session = token ? await sessions.resolve(token) : undefined;
+	const session = token ? await sessions.find(token) : undefined;
 	if (!token || !cookieName || !session) return resolve(event);
 
 	event.locals.user = users.toViewer(session.user);
@@ -123,7 +129,8 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 };
 
 // Outermost first: requests get their id and log line, statements are counted, and every
-// response, Auth.js's included, leaves through responseHeaders.
+// response, Auth.js's included, leaves through responseHeaders. The sections (/admin, /judging)
+// are guarded once the viewer is known; every route checks again.
 export const handle: Handle = sequence(
 	observeRequests,
 	countQueries,
@@ -133,7 +140,8 @@ export const handle: Handle = sequence(
 	onlyOurAuthPages,
 	authHandle,
 	resolveViewer,
-	askForDisplayName
+	askForDisplayName,
+	guardSections
 );
 
 /** Last resort: log the error under the request's id, show the person only that id. */

@@ -1,5 +1,7 @@
-import { error, fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { notFound } from '$lib/errors';
 import { requireUser } from '$lib/server/club/guards';
+import { formAction, parseForm } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
 import * as entries from '$lib/server/journals/entries';
 import * as showcase from '$lib/server/journals/showcase';
@@ -34,18 +36,28 @@ export const load = (async ({ locals }) => {
 	};
 }) satisfies PageServerLoad;
 
+const doneForm = z.object({
+	taskId: z
+		.string({ message: 'Choose a task.' })
+		.regex(/^[1-9]\d{0,14}$/, 'Choose a task.')
+		.transform(Number)
+});
+
 export const actions = {
 	/** "Done today" from the dashboard. */
-	done: async (event) => {
-		const viewer = requireUser(event);
-		const taskId = String((await event.request.formData()).get('taskId') ?? '');
-		if (!/^[1-9]\d{0,14}$/.test(taskId)) return fail(400, { doneError: 'Choose a task.' });
-		try {
-			await upkeep.markDone(viewer, Number(taskId));
-		} catch (e) {
-			if (e instanceof tanks.TankNotFound) error(404, 'We could not find that task.');
-			throw e;
-		}
-		return { done: Number(taskId) };
-	}
+	done: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const { taskId } = parseForm(doneForm, data);
+			try {
+				await upkeep.markDone(viewer, taskId);
+			} catch (e) {
+				// The journal's "not found" is its own class until it is a DomainError; it reads as the task not found.
+				if (e instanceof tanks.TankNotFound) throw notFound('We could not find that task.');
+				throw e;
+			}
+			return { done: taskId };
+		},
+		{ id: 'done' }
+	)
 } satisfies Actions;

@@ -3,7 +3,8 @@ import { appUrl } from './env';
 export interface RequestOptions {
 	cookie?: string;
 	method?: string;
-	form?: Record<string, string>;
+	/** Form fields; an array sends the field once per value. */
+	form?: Record<string, string | string[]>;
 	json?: unknown;
 	accept?: string;
 	headers?: Record<string, string>;
@@ -21,7 +22,7 @@ export async function request(path: string, options: RequestOptions = {}): Promi
 	let body: BodyInit | undefined;
 	if (options.form) {
 		headers['content-type'] = 'application/x-www-form-urlencoded';
-		body = new URLSearchParams(options.form);
+		body = new URLSearchParams(Object.entries(options.form).flatMap(([name, value]) => (Array.isArray(value) ? value : [value]).map((v) => [name, v])));
 	} else if (options.json !== undefined) {
 		headers['content-type'] = 'application/json';
 		body = JSON.stringify(options.json);

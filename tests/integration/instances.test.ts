@@ -119,7 +119,7 @@ describe('workers beside the app', () => {
 	test("a standalone worker and the app's own worker deliver the stack's outbox once each", async () => {
 		startWorker(process.env);
 		const addresses = Array.from({ length: 30 }, () => uniqueEmail('beside-app'));
-		await db.transaction((tx) => enqueue(tx, addresses.map(mail)));
+		await db.transaction((tx) => enqueue(addresses.map(mail), { db: tx }));
 		for (const address of addresses) await waitForMail(address, { timeoutMs: 30_000 });
 		// A little longer, so a second copy would have arrived.
 		await new Promise((r) => setTimeout(r, 1000));
@@ -135,7 +135,7 @@ describe('workers beside the app', () => {
 			await waitFor(() => workers.every((w) => w.output().includes('delivering the outbox')), 'both workers to start');
 
 			const addresses = Array.from({ length: 500 }, (_, i) => `many-${i}@tests.riparia.test`);
-			await scratch.db.transaction((tx) => enqueue(tx, addresses.map(mail)));
+			await scratch.db.transaction((tx) => enqueue(addresses.map(mail), { db: tx }));
 			await waitFor(() => fake.messages.length >= addresses.length, 'all 500 mails', 60_000);
 			await new Promise((r) => setTimeout(r, 1500));
 

@@ -159,19 +159,19 @@ describe('metrics', () => {
 	test('the outbox gauges: messages per state and when the oldest undelivered one was queued', async () => {
 		const scratch = await scratchDatabase();
 		try {
-			expect(await queueStats(scratch.db)).toEqual({ byState: { queued: 0, sending: 0, sent: 0, failed: 0 }, oldestUndeliveredSeconds: null });
+			expect(await queueStats({ db: scratch.db })).toEqual({ byState: { queued: 0, sending: 0, sent: 0, failed: 0 }, oldestUndeliveredSeconds: null });
 			const message = (n: number) => ({ to: `gauge-${n}@tests.riparia.test`, subject: 'Gauge', text: 'x', html: '<p>x</p>' });
-			await enqueue(scratch.db, [message(1), message(2), message(3)]);
+			await enqueue([message(1), message(2), message(3)], { db: scratch.db });
 			const transport = { send: async () => {}, close: () => {} };
 			// One delivered (the batch takes the first), two still waiting.
-			expect(await deliverDue({ db: scratch.db, transport, worker: 'gauge', batchSize: 1 })).toEqual({ sent: 1, failed: 0 });
+			expect(await deliverDue({ transport, worker: 'gauge', batchSize: 1 }, { db: scratch.db })).toEqual({ sent: 1, failed: 0 });
 			// The second has waited two hours (queued then, by the database's clock).
 			const [second] = await scratch.db.select({ id: outbox.id }).from(outbox).where(eq(outbox.state, 'queued')).orderBy(asc(outbox.id)).limit(1);
 			await scratch.db
 				.update(outbox)
 				.set({ createdAt: sql`UTC_TIMESTAMP(3) - INTERVAL 7200 SECOND` })
 				.where(eq(outbox.id, second!.id));
-			const stats = await queueStats(scratch.db);
+			const stats = await queueStats({ db: scratch.db });
 			expect(stats.byState).toEqual({ queued: 2, sending: 0, sent: 1, failed: 0 });
 			expect(stats.oldestUndeliveredSeconds).toBeGreaterThanOrEqual(7200);
 			expect(stats.oldestUndeliveredSeconds).toBeLessThan(7260);

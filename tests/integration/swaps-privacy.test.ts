@@ -131,11 +131,13 @@ describe('swap board: what moving one’s own point reveals', () => {
 		const walk: Seen[] = [];
 		for (let step = 0; step <= 133; step++) {
 			// 0.0009° of latitude is about 100 m; the account page keeps only the rounded point.
-			await users.updateProfile(walker.id, {
+			await users.saveProfile(viewerOf(walker), {
 				displayName: walker.displayName,
 				units: 'metric',
+				locationMode: 'point',
 				homeAreaId: null,
-				home: { lat: -56.56 + step * 0.0009, lng },
+				homeLat: -56.56 + step * 0.0009,
+				homeLng: lng,
 				notifyMessages: 'off',
 				weeklyDigest: false,
 				announcements: false

@@ -130,7 +130,7 @@ export async function send(viewer: Viewer, contestId: number, context: Context =
 				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
 			}))
 		];
-		await enqueue(tx, mails, now);
+		await enqueue(mails, { db: tx, now });
 		if (locked.announcedRevision !== p.revision) {
 			await tx.update(contests).set({ announcedRevision: p.revision }).where(eq(contests.id, contestId));
 			await audit.record(

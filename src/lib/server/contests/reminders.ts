@@ -117,7 +117,7 @@ export async function sendDueReminders(context: Context = {}): Promise<number> {
 			}
 		}
 	}
-	await enqueue(db, mails, now);
+	await enqueue(mails, { db, now });
 	return mails.length;
 }
 
@@ -144,7 +144,7 @@ export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: 
 					]
 				: []
 		);
-		await enqueue(tx, mails, now);
+		await enqueue(mails, { db: tx, now });
 		if (mails.length) {
 			await audit.record(
 				{

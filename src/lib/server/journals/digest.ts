@@ -87,7 +87,6 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 				unsubscribeUrl: unsubscribe
 			});
 			await enqueue(
-				tx,
 				{
 					to: member.email,
 					subject: content.subject,
@@ -98,7 +97,7 @@ export async function sendWeeklyDigests(now = new Date(), database: Database = a
 					bulk: true,
 					dedupeKey: `journal-digest:${member.id}:${week}`
 				},
-				now
+				{ db: tx, now }
 			);
 			return true;
 		});

@@ -145,14 +145,13 @@ export async function notifyFollowers(tx: DbOrTx, tank: TankRow, entry: { id: nu
 			tankUrl: absoluteUrl(`/journals/${tank.id}`)
 		});
 		await enqueue(
-			tx,
 			{
 				to: follower.email,
 				...mail,
 				topic: `tank-follow:${tank.id}`,
 				dedupeKey: `tank-follow:${tank.id}:${follower.userId}:${now.toISOString().slice(0, 10)}`
 			},
-			now
+			{ db: tx, now }
 		);
 		queued++;
 	}

@@ -2,7 +2,7 @@ import { hostname } from 'node:os';
 import pLimit from 'p-limit';
 import { and, eq, inArray, lte, or, sql } from 'drizzle-orm';
 import { config } from '../config';
-import { db as appDb, type Database, type DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import { recordHeartbeat } from '../jobs/runner';
 import { component, reason as reasonOf } from '../ops/log';
 import { outboxDeliveries } from '../ops/metrics';
@@ -46,14 +46,15 @@ function messageIdFor(domainFrom: string) {
 }
 
 /**
- * Queues mail inside the caller's transaction, so the mail exists exactly when the change that
- * caused it commits.
+ * Queues mail inside the caller's transaction (`{ db: tx }`), so the mail exists exactly when the
+ * change that caused it commits.
  */
-export async function enqueue(tx: DbOrTx, mails: QueuedMail | QueuedMail[], now = new Date()): Promise<void> {
+export async function enqueue(mails: QueuedMail | QueuedMail[], context: Context = {}): Promise<void> {
 	const list = Array.isArray(mails) ? mails : [mails];
 	if (list.length === 0) return;
+	const { db, now } = resolve(context);
 	const from = config().MAIL_FROM;
-	await tx
+	await db
 		.insert(outbox)
 		.values(
 			list.map((m) => ({
@@ -74,10 +75,8 @@ export async function enqueue(tx: DbOrTx, mails: QueuedMail | QueuedMail[], now 
 }
 
 export interface DeliveryOptions {
-	db?: Database;
 	transport?: MailTransport;
 	worker?: string;
-	now?: Date;
 	batchSize?: number;
 }
 
@@ -86,11 +85,10 @@ export interface DeliveryOptions {
  * `sending` with a lease, then delivers them outside the transaction. A claimed row is never
  * claimed again unless its lease runs out, which the SMTP timeouts keep from happening.
  */
-export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent: number; failed: number }> {
-	const db = options.db ?? appDb;
+export async function deliverDue(options: DeliveryOptions = {}, context: Context = {}): Promise<{ sent: number; failed: number }> {
+	const { db, now } = resolve(context);
 	const transport = options.transport ?? defaultTransport();
 	const worker = options.worker ?? `${hostname()}:${process.pid}`;
-	const now = options.now ?? new Date();
 	const batchSize = options.batchSize ?? 20;
 
 	const claimed = await db.transaction(async (tx) => {
@@ -205,7 +203,7 @@ export function startWorker(options: { intervalMs?: number; onError?: (e: unknow
 				state.lastRoundAt = Date.now();
 			} while (!stopped && handled === batchSize);
 			if (state.lastRoundAt - lastHeartbeat >= HEARTBEAT_EVERY_MS) {
-				await recordHeartbeat(WORKER_HEARTBEAT, worker, new Date(state.lastRoundAt));
+				await recordHeartbeat(WORKER_HEARTBEAT, worker, { now: new Date(state.lastRoundAt) });
 				lastHeartbeat = state.lastRoundAt;
 			}
 		} catch (error) {
@@ -228,7 +226,8 @@ export function startWorker(options: { intervalMs?: number; onError?: (e: unknow
  * (state, next_attempt_at) index) and how long the oldest undelivered one has waited (reads only
  * the few undelivered rows; measured on the database's clock, which also stamped it).
  */
-export async function queueStats(db: Database = appDb): Promise<{ byState: Record<OutboxState, number>; oldestUndeliveredSeconds: number | null }> {
+export async function queueStats(context: Context = {}): Promise<{ byState: Record<OutboxState, number>; oldestUndeliveredSeconds: number | null }> {
+	const { db } = resolve(context);
 	const [rows] = (await db.execute(sql`
 		SELECT ${outbox.state} AS state, COUNT(*) AS n, NULL AS waited FROM ${outbox} GROUP BY ${outbox.state}
 		UNION ALL

@@ -12,7 +12,7 @@ import { memberBlocks } from './schema';
 export async function block(viewer: Pick<Viewer, 'id'>, otherId: string, context: Context = {}): Promise<void> {
 	if (otherId === viewer.id) throw invalid({}, 'You cannot block yourself.', 'self');
 	const { db } = resolve(context);
-	if (!(await users.getById(otherId, db))) throw notFound('We could not find that member.');
+	if (!(await users.getById(otherId, { db }))) throw notFound('We could not find that member.');
 	await db
 		.insert(memberBlocks)
 		.values({ blockerId: viewer.id, blockedId: otherId })

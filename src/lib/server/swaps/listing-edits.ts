@@ -25,7 +25,7 @@ import * as restricted from './restricted';
  */
 async function placeFor(ownerId: string, pickupAreaId: number | null, context: Context) {
 	const { db } = resolve(context);
-	const [owner, all] = await Promise.all([users.getById(ownerId, db), areas.list(db)]);
+	const [owner, all] = await Promise.all([users.getById(ownerId, { db }), areas.list({ db })]);
 	const home = owner && owner.homeLat !== null && owner.homeLng !== null ? { lat: owner.homeLat, lng: owner.homeLng } : null;
 	let area = pickupAreaId !== null ? all.find((a) => a.id === pickupAreaId) : undefined;
 	if (pickupAreaId !== null && !area) throw invalid({ pickupAreaId: 'That area no longer exists; choose another.' }, undefined, 'no-area');

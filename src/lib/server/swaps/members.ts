@@ -22,7 +22,7 @@ export interface MemberProfile {
 
 /** The label for where a member is: their area, "near" the area nearest their point, or null. */
 async function areaLabelOf(user: { homeAreaId: number | null; homeLat: number | null; homeLng: number | null }, context: Context): Promise<string | null> {
-	const all = await areas.list(context.db);
+	const all = await areas.list({ db: context.db });
 	const own = user.homeAreaId !== null ? all.find((a) => a.id === user.homeAreaId) : undefined;
 	if (own) return own.name;
 	if (user.homeLat === null || user.homeLng === null) return null;
@@ -42,7 +42,7 @@ export async function completedSwaps(userId: string, context: Context = {}): Pro
 
 /** A member as other members see them; null for no such member, or one who has not named themselves yet. */
 export async function profile(viewer: Viewer, memberId: string, context: Context = {}): Promise<MemberProfile | null> {
-	const user = await users.getById(memberId, context.db);
+	const user = await users.getById(memberId, { db: context.db });
 	if (!user || !user.displayName) return null;
 	const [area, completed, relation] = await Promise.all([
 		areaLabelOf(user, context),

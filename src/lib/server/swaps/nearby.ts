@@ -23,7 +23,7 @@ import { cardColumns, toCards } from './listing-cards';
 
 /** The viewer's stored (rounded) point, or null when they have not set one. */
 async function viewerPoint(viewerId: string, context: Context): Promise<LatLng | null> {
-	const row = await users.getById(viewerId, context.db);
+	const row = await users.getById(viewerId, { db: context.db });
 	return row && row.homeLat !== null && row.homeLng !== null ? { lat: row.homeLat, lng: row.homeLng } : null;
 }
 

@@ -26,7 +26,7 @@ export async function afterPost(
 	context: Context = {}
 ): Promise<void> {
 	const { db: tx, now } = resolve(context);
-	const recipient = await users.getById(message.recipientId, tx);
+	const recipient = await users.getById(message.recipientId, { db: tx });
 	if (!recipient?.email) return;
 	const side = sideOf(thread, message.recipientId);
 	const decision = onMessagePosted(recipient.notifyMessages as NotifySetting, thread[side], now);
@@ -35,14 +35,14 @@ export async function afterPost(
 		const [listing] = await tx.select({ title: listings.title }).from(listings).where(eq(listings.id, thread.listingId));
 		const sender = nameOf((await directory.names([message.senderId], { db: tx })).get(message.senderId));
 		await enqueue(
-			tx,
 			threadMail(recipient.email, {
 				threadId: thread.id,
 				recipientId: message.recipientId,
 				title: listing?.title ?? 'your swap',
 				otherName: sender,
 				messages: [{ senderName: sender, body: message.body }]
-			})
+			}),
+			{ db: tx }
 		);
 		await tx
 			.update(swapThreads)
@@ -55,9 +55,9 @@ export async function afterPost(
 /** A change the member hears about at once (accepted, withdrawn…), unless they turned swap mail off. */
 export async function queueNotice(userId: string, build: (email: string) => QueuedMail, context: Context = {}): Promise<void> {
 	const { db } = resolve(context);
-	const recipient = await users.getById(userId, db);
+	const recipient = await users.getById(userId, { db });
 	if (!recipient?.email || recipient.notifyMessages === 'off') return;
-	await enqueue(db, build(recipient.email));
+	await enqueue(build(recipient.email), { db });
 }
 
 /**
@@ -81,7 +81,7 @@ export async function sendDue(context: Context = {}): Promise<number> {
 	let queued = 0;
 	for (const [recipientId, threadMessages] of byRecipient) {
 		queued += await database.transaction(async (tx) => {
-			const recipient = await users.getById(recipientId, tx);
+			const recipient = await users.getById(recipientId, { db: tx });
 			if (!recipient) return 0;
 			const threadIds = [...threadMessages.keys()];
 			// Locked, so a message posted meanwhile sees this run's mail times.
@@ -145,14 +145,14 @@ export async function sendDue(context: Context = {}): Promise<number> {
 				if (p.kind === 'thread') {
 					const t = byId.get(p.threadId)!;
 					await enqueue(
-						tx,
 						threadMail(recipient.email!, {
 							threadId: t.id,
 							recipientId,
 							title: titles.get(t.listingId) ?? 'your swap',
 							otherName: otherOf(t),
 							messages: included.map((r) => ({ senderName: r.senderId ? nameOf(senders.get(r.senderId)) : SITE_SENDER, body: r.body }))
-						})
+						}),
+						{ db: tx }
 					);
 					await tx
 						.update(swapThreads)
@@ -164,7 +164,7 @@ export async function sendDue(context: Context = {}): Promise<number> {
 						const count = included.filter((r) => r.threadId === id).length;
 						return count ? [{ threadId: id, title: titles.get(t.listingId) ?? 'your swap', otherName: otherOf(t), count }] : [];
 					});
-					await enqueue(tx, summaryMail(recipient.email!, { recipientId, threads: summary }));
+					await enqueue(summaryMail(recipient.email!, { recipientId, threads: summary }), { db: tx });
 					await tx
 						.insert(swapMailState)
 						.values({ userId: recipientId, summaryMailedAt: now })

@@ -64,6 +64,8 @@ module.exports = {
 		exclude: { path: '^(node_modules|build|\\.svelte-kit|\\.data)/' },
 		tsPreCompilationDeps: true,
 		tsConfig: { fileName: 'tsconfig.json' },
+		// `$lib` (see the file for why tsconfig.json alone does not resolve it).
+		webpackConfig: { fileName: '.dependency-cruiser.aliases.cjs' },
 		enhancedResolveOptions: {
 			exportsFields: ['exports'],
 			conditionNames: ['import', 'require', 'node', 'default', 'types', 'svelte'],

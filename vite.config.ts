@@ -26,6 +26,18 @@ export default defineConfig({
 					testTimeout: 30_000,
 					hookTimeout: 60_000
 				}
+			},
+			{
+				// A clean clone installed, built and pruned as in production; slow, so its own step of `npm test`.
+				extends: true,
+				test: {
+					name: 'install',
+					environment: 'node',
+					include: ['tests/install/**/*.test.ts'],
+					globalSetup: ['tests/integration/global-setup.ts'],
+					testTimeout: 900_000,
+					hookTimeout: 120_000
+				}
 			}
 		]
 	}

@@ -1,7 +1,8 @@
 // @ts-check
-// `npm start` and `npm test` land here. This file runs on plain Node before any dependency is
-// installed: it checks Node, installs dependencies when they are missing or stale (npm ci), then
-// hands over to the TypeScript orchestrator (scripts/start.ts or scripts/test.ts) through tsx.
+// `npm start`, `npm test`, `npm run cluster` and `npm run bench` land here. This file runs on
+// plain Node before any dependency is installed: it checks Node, installs dependencies when they
+// are missing or stale (npm ci), then hands over to the TypeScript orchestrator through tsx
+// (scripts/start.ts, scripts/test.ts, scripts/cluster.ts or bench/run.ts).
 import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -9,15 +10,17 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const entries = { start: 'scripts/start.ts', test: 'scripts/test.ts', cluster: 'scripts/cluster.ts', bench: 'bench/run.ts' };
 const command = process.argv[2];
-if (command !== 'start' && command !== 'test') {
-	console.error('usage: node scripts/bootstrap.mjs start|test [args]');
+if (!command || !Object.hasOwn(entries, command)) {
+	console.error(`usage: node scripts/bootstrap.mjs ${Object.keys(entries).join('|')} [args]`);
 	process.exit(2);
 }
 
 const [major = 0, minor = 0] = process.versions.node.split('.').map(Number);
-if (major < 20 || (major === 20 && minor < 9)) {
-	console.error(`Riparia needs Node.js 20.9 or newer; this is ${process.version}.`);
+// The build tool (vite 8) needs 20.19 or newer; package.json's engines says the same.
+if (major < 20 || (major === 20 && minor < 19)) {
+	console.error(`Riparia needs Node.js 20.19 or newer; this is ${process.version}.`);
 	process.exit(1);
 }
 
@@ -45,7 +48,8 @@ if (!existsSync(join(root, '.svelte-kit', 'tsconfig.json'))) {
 }
 
 // One process (node --import tsx) so signals reach the orchestrator directly.
-const child = spawn(process.execPath, ['--import', 'tsx', join(root, 'scripts', `${command}.ts`), ...process.argv.slice(3)], { cwd: root, stdio: 'inherit' });
+const entry = entries[/** @type {keyof typeof entries} */ (command)];
+const child = spawn(process.execPath, ['--import', 'tsx', join(root, entry), ...process.argv.slice(3)], { cwd: root, stdio: 'inherit' });
 for (const signal of /** @type {const} */ (['SIGINT', 'SIGTERM', 'SIGHUP'])) {
 	process.on(signal, () => child.kill(signal));
 }

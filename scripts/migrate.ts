@@ -1,9 +1,14 @@
-// Applies the committed migrations in drizzle/ with one connection (not a pool), as Drizzle's
-// migrator expects on MySQL/MariaDB.
+// Applies the committed migrations with one connection (not a pool), as Drizzle's migrator expects
+// on MySQL/MariaDB. Run from source (`node --import tsx scripts/migrate.ts`, tests) it reads
+// drizzle/; built (`npm run build` → build/scripts/migrate.js, run by `npm run db:migrate`) it
+// reads build/drizzle/, the copy made with that build.
 import { drizzle } from 'drizzle-orm/mysql2';
 import { migrate } from 'drizzle-orm/mysql2/migrator';
 import mysql from 'mysql2/promise';
 import { join } from 'node:path';
+import { component, reason } from '../src/lib/server/ops/log';
+
+const log = component('migrate');
 
 export async function applyMigrations(url: string): Promise<void> {
 	const connection = await mysql.createConnection({ uri: url, timezone: 'Z' });
@@ -17,15 +22,15 @@ export async function applyMigrations(url: string): Promise<void> {
 if (import.meta.url === `file://${process.argv[1]}`) {
 	const url = process.env.DATABASE_URL;
 	if (!url) {
-		console.error('DATABASE_URL is not set.');
+		log.fatal('DATABASE_URL is not set.');
 		process.exit(1);
 	}
 	try {
 		await applyMigrations(url);
-		console.log('  migrations applied');
+		log.info('migrations applied');
 	} catch (error) {
-		const cause = error instanceof Error && error.cause instanceof Error ? `\n  cause: ${error.cause.message}` : '';
-		console.error('Migration failed:', error instanceof Error ? error.message : error, cause);
+		const cause = error instanceof Error && error.cause instanceof Error ? error.cause.message : undefined;
+		log.fatal({ reason: reason(error), cause }, 'migration failed');
 		process.exit(1);
 	}
 }

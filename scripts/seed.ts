@@ -10,8 +10,10 @@ import { seedJournalTanks, seedJournals } from './seed/journals';
 import { seedRestrictedSpecies } from './seed/restricted';
 import { seedSwaps } from './seed/swaps';
 import { seedContests } from './seed/contests';
+import { component, reason } from '../src/lib/server/ops/log';
 import { registerMediaScopes } from '../src/lib/server/media-scopes';
 
+const log = component('seed');
 registerMediaScopes();
 
 interface SeedStep {
@@ -31,8 +33,9 @@ const steps: SeedStep[] = [
 	{ name: 'contests', demo: true, run: seedContests }
 ];
 
-// A production database (DATABASE_URL given to `npm start`) gets reference data only.
-const withDemo = process.env.SEED_DEMO !== '0';
+// Reference data always; the demo club only when asked for (`npm start` and `npm test` ask on their
+// own local database). A production database thus gets reference data only.
+const withDemo = ['1', 'true', 'yes', 'on'].includes(process.env.SEED_DEMO ?? '');
 
 const { db, close } = connect();
 try {
@@ -46,11 +49,11 @@ try {
 			await step.run(tx);
 			await tx.insert(seedRuns).values({ name: step.name, ranAt: new Date() });
 		});
-		console.log(`  seeded ${step.name} (${((Date.now() - started) / 1000).toFixed(1)} s)`);
+		log.info({ step: step.name, seconds: Number(((Date.now() - started) / 1000).toFixed(1)) }, `seeded ${step.name}`);
 	}
-	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, db);
+	await promoteConfiguredAdmin(process.env.ADMIN_EMAIL, { db });
 } catch (error) {
-	console.error('Seeding failed:', error);
+	log.fatal({ err: error, reason: reason(error) }, 'seeding failed');
 	process.exitCode = 1;
 } finally {
 	await close();

@@ -1,26 +1,15 @@
 // `npm start`: set up what is missing, then serve the app with the demo club until Ctrl-C.
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { SetupError, ok, reportFailure, step } from './lib/log';
+import { SetupError, ok, orderlyShutdown, reportFailure, step } from './lib/log';
 import { bringUp, dataRoot, portsFor, type Stack } from './lib/stack';
 import { DEMO_SIGN_IN } from './seed/people';
 
 const started = Date.now();
 let stack: Stack | null = null;
-let stopping = false;
-
-async function shutdown(code: number) {
-	if (stopping) return;
-	stopping = true;
-	console.log('');
-	step('Shutting down…');
+const { shutdown, stopping } = orderlyShutdown(async () => {
 	await stack?.stop();
-	ok('Stopped cleanly.');
-	process.exit(code);
-}
-process.on('SIGINT', () => void shutdown(0));
-process.on('SIGTERM', () => void shutdown(0));
-process.on('SIGHUP', () => void shutdown(0));
+});
 
 try {
 	const dotenv = join(import.meta.dirname, '..', '.env');
@@ -30,7 +19,7 @@ try {
 	step('Starting the app…');
 	const app = await stack.serve();
 	void app.exited.then((code) => {
-		if (stopping) return;
+		if (stopping()) return;
 		console.error(`\n✗ The app stopped unexpectedly (exit code ${code}); see its output above.`);
 		void shutdown(1);
 	});
@@ -43,6 +32,7 @@ try {
 ${DEMO_SIGN_IN.map((p) => `    ${p.role.padEnd(7)} ${p.email.padEnd(32)} ${p.name}`).join('\n')}
 
   Photos are kept by the local storage fake at ${stack.urls.s3}
+  Health: ${stack.urls.app}/readyz · metrics (this machine only): ${stack.urls.metrics}
   Press Ctrl-C to stop the app, the fakes and MariaDB.
 `);
 } catch (error) {

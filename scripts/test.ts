@@ -3,10 +3,13 @@
 // against the real MariaDB and the running app) and Playwright in Debian's Chromium.
 //
 //   npm test                      everything
-//   npm test -- --only unit       one runner: unit | integration | e2e (repeatable)
+//   npm test -- --only unit       one runner: unit | integration | e2e | install (repeatable)
 //   npm test -- --grep outbox     passed on to vitest and Playwright as a name filter
 //   npm test -- --serve           bring the test stack up (seeded, empty otherwise) and keep it
 //                                 running until Ctrl-C, e.g. for scripts/shoot.ts
+//
+// `install` clones the committed HEAD into a temporary folder, installs, builds and prunes it as
+// a production server would be, and checks that it migrates and answers /readyz (a few minutes).
 import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
@@ -15,7 +18,8 @@ import { bringUp, dataRoot, portsFor, root, type Stack } from './lib/stack';
 import { aptInstall } from './lib/system';
 
 const CHROMIUM = '/usr/bin/chromium';
-type Runner = 'unit' | 'integration' | 'e2e';
+type Runner = 'unit' | 'integration' | 'e2e' | 'install';
+const RUNNERS: Runner[] = ['unit', 'integration', 'e2e', 'install'];
 
 function parseArgs(argv: string[]) {
 	const only = new Set<Runner>();
@@ -25,8 +29,7 @@ function parseArgs(argv: string[]) {
 		const arg = argv[i];
 		if (arg === '--only') {
 			const value = argv[++i] as Runner;
-			if (!['unit', 'integration', 'e2e'].includes(value))
-				throw new SetupError(`--only ${value} is not a runner.`, 'Use --only unit, --only integration or --only e2e.');
+			if (!RUNNERS.includes(value)) throw new SetupError(`--only ${value} is not a runner.`, `Use --only with one of: ${RUNNERS.join(', ')}.`);
 			only.add(value);
 		} else if (arg === '--serve') {
 			serve = true;
@@ -36,7 +39,7 @@ function parseArgs(argv: string[]) {
 			throw new SetupError(`Unknown argument ${arg}.`, 'See the top of scripts/test.ts for the options.');
 		}
 	}
-	const runners: Runner[] = only.size ? [...only] : ['unit', 'integration', 'e2e'];
+	const runners: Runner[] = only.size ? [...only] : RUNNERS;
 	return { runners, grep, serve };
 }
 
@@ -65,13 +68,15 @@ try {
 	const needsStack = serve || runners.some((r) => r !== 'unit');
 	if (runners.includes('e2e') && !existsSync(CHROMIUM)) aptInstall(['chromium'], 'The browser tests');
 
-	let env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'test' };
+	// Code the tests run in-process logs warnings and errors only (LOG_LEVEL=info shows everything).
+	const quiet = { NODE_ENV: 'test', LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
+	let env: NodeJS.ProcessEnv = { ...process.env, ...quiet };
 	if (needsStack) {
 		stack = await bringUp({ mode: 'test', home: join(dataRoot, 'test'), ports: portsFor('test'), database: 'riparia_test', fresh: true });
 		step('Starting the app for the tests…');
 		await stack.serve();
 		ok(`Test stack is up at ${stack.urls.app}`);
-		env = { ...stack.env, NODE_ENV: 'test' };
+		env = { ...stack.env, ...quiet };
 		if (serve) {
 			console.log(`\n  Serving the test stack until Ctrl-C: app ${stack.urls.app}, mail ${stack.urls.mail}\n`);
 			await new Promise(() => {});
@@ -88,6 +93,11 @@ try {
 		step('Running Playwright end-to-end tests in Chromium…');
 		const args = ['playwright', 'test', ...(grep ? ['--grep', grep] : [])];
 		results.push({ runner: 'playwright (e2e)', code: await run('npx', args, env) });
+	}
+	if (runners.includes('install')) {
+		step('Installing a clean clone as in production (npm ci, build, prune, migrate, /readyz)…');
+		const args = ['vitest', 'run', '--project', 'install', ...(grep ? ['-t', grep] : [])];
+		results.push({ runner: 'vitest (install)', code: await run('npx', args, env) });
 	}
 } catch (error) {
 	reportFailure(error);

@@ -1,10 +1,12 @@
-import type { Viewer } from '$lib/server/club/users';
+import type { Viewer } from '$lib/club/viewer';
 
 declare global {
 	namespace App {
 		interface Locals {
 			user: Viewer | null;
 			sessionToken: string | null;
+			/** This request's id: echoed as X-Request-Id, on its log line, and shown on an error page. */
+			requestId: string;
 		}
 		interface Error {
 			message: string;

@@ -2,6 +2,7 @@ import { type Handle, type HandleServerError, type ServerInit } from '@sveltejs/
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { authHandle } from '$lib/server/auth';
+import { guardSections } from '$lib/server/club/guards';
 import * as sessions from '$lib/server/club/sessions';
 import * as users from '$lib/server/club/users';
 import { config } from '$lib/server/config';
@@ -10,9 +11,14 @@ import { jobs } from '$lib/server/jobs';
 import { startJobs } from '$lib/server/jobs/runner';
 import { defaultTransport } from '$lib/server/mail/transport';
 import { pool } from '$lib/server/db';
+import { countQueries } from '$lib/server/db/query-count';
 import { safeRedirectPath } from '$lib/club/redirect';
 import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
+import { log } from '$lib/server/ops/log';
+import { observeRequests, probes } from '$lib/server/ops/hooks';
+import { newRequestId } from '$lib/ops/request-id';
+import { startMetricsServer } from '$lib/server/ops/scrape';
 import { registerMediaScopes } from '$lib/server/media-scopes';
 
 // Who may see each kind of photo is known before the first request.
@@ -20,33 +26,40 @@ registerMediaScopes();
 
 export const init: ServerInit = async () => {
 	if (building) return;
-	const stopWorker = config().OUTBOX_WORKER
-		? startWorker({ onError: (e) => console.error('[outbox] delivery round failed:', e instanceof Error ? e.message : e) })
-		: () => {};
+	const stopWorker = config().OUTBOX_WORKER ? startWorker() : () => {};
 	const stopJobs = startJobs(jobs);
+	const metricsPort = config().METRICS_PORT;
+	const metricsServer = metricsPort ? startMetricsServer(metricsPort) : null;
 	// adapter-node emits this once the HTTP server has closed; open timers and pooled
 	// connections would otherwise keep the process alive.
+	// A round in progress finishes before the pool closes.
 	process.once('sveltekit:shutdown', () => {
-		stopWorker();
-		stopJobs();
-		defaultTransport().close();
-		void pool.end();
+		metricsServer?.close();
+		void Promise.all([stopWorker(), stopJobs()]).finally(() => {
+			defaultTransport().close();
+			void pool.end();
+		});
 	});
 };
+
+/** A redirect returned (not thrown), so the outer hooks still add their headers to it. */
+const seeOther = (location: string) => new Response(null, { status: 303, headers: { location } });
 
 /**
  * Sign-in links are requested only through /signin, where they are validated and rate-limited;
  * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
  */
-/** A redirect returned (not thrown), so the outer hooks still add their headers to it. */
-const seeOther = (location: string) => new Response(null, { status: 303, headers: { location } });
-
 const AUTH_PAGES: Record<string, string> = {
 	'/auth/signin': '/signin',
 	'/auth/signout': '/',
 	'/auth/error': '/signin/problem',
 	'/auth/verify-request': '/signin/check-email'
 };
+
+/**
+ * Sign-in links are requested only through /signin, where they are validated and rate-limited;
+ * Auth.js's own pages are answered by ours, so every page a person sees is one of ours.
+ */
 const onlyOurAuthPages: Handle = async ({ event, resolve }) => {
 	const path = event.url.pathname.replace(/\/+$/, '');
 	if (event.request.method === 'POST' && path.startsWith('/auth/signin')) {
@@ -74,7 +87,7 @@ const resolveViewer: Handle = async ({ event, resolve }) => {
 	if (event.url.pathname.startsWith('/auth/')) return resolve(event);
 	const cookieName = SESSION_COOKIES.find((name) => event.cookies.get(name));
 	const token = cookieName ? event.cookies.get(cookieName)! : null;
-	const session = token ? await sessions.resolve(token) : undefined;
+	const session = token ? await sessions.find(token) : undefined;
 	if (!token || !cookieName || !session) return resolve(event);
 
 	event.locals.user = users.toViewer(session.user);
@@ -119,15 +132,29 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-// Outermost first: every response, Auth.js's included, leaves through responseHeaders.
-export const handle: Handle = sequence(responseHeaders, checkRequests, onlyOurAuthPages, authHandle, resolveViewer, askForDisplayName);
+// Outermost first: requests get their id and log line, statements are counted, and every
+// response, Auth.js's included, leaves through responseHeaders. The sections (/admin, /judging)
+// are guarded once the viewer is known; every route checks again.
+export const handle: Handle = sequence(
+	observeRequests,
+	countQueries,
+	responseHeaders,
+	probes,
+	checkRequests,
+	onlyOurAuthPages,
+	authHandle,
+	resolveViewer,
+	askForDisplayName,
+	guardSections
+);
 
-/** Last resort: log the error under an id, show the person only that id. */
+/** Last resort: log the error under the request's id, show the person only that id. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
-	const errorId = crypto.randomUUID().slice(0, 8);
+	// Set by observeRequests, first in the sequence; the fallback only guards against a reordering.
+	const errorId = event.locals.requestId ?? newRequestId();
 	if (status >= 500) {
-		// Query strings can carry sign-in tokens: log the path only.
-		console.error(`[error ${errorId}] ${event.request.method} ${event.url.pathname}:`, error);
+		// Query strings can carry sign-in tokens: the route id only, never the URL.
+		log.error({ reqId: errorId, method: event.request.method, route: event.route.id, err: error }, 'unexpected error');
 	}
 	return {
 		message: status === 404 ? 'We could not find that page.' : status >= 500 ? 'Something went wrong on our side.' : message,

@@ -26,3 +26,22 @@ export function reportFailure(error: unknown): void {
 		console.error(paint('31', '\n✗ Unexpected failure:'), error);
 	}
 }
+
+/**
+ * Stops everything once — on Ctrl-C, SIGTERM or SIGHUP, or when `shutdown` is called — and exits
+ * with the code given (0 for a signal).
+ */
+export function orderlyShutdown(stop: () => Promise<void>) {
+	let stopping = false;
+	const shutdown = async (code: number) => {
+		if (stopping) return;
+		stopping = true;
+		console.log('');
+		step('Shutting down…');
+		await stop();
+		ok('Stopped cleanly.');
+		process.exit(code);
+	};
+	for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, () => void shutdown(0));
+	return { shutdown, stopping: () => stopping };
+}

@@ -75,7 +75,10 @@ export async function startMariaDb(options: MariaDbOptions): Promise<RunningMari
 	const socket = join(runDir, 'mariadb.sock');
 	const pidFile = join(runDir, 'mariadb.pid');
 	const errorLog = join(options.home, 'mariadb.err');
+	// Its own folder for temporary tables: /tmp is shared with every other program on the machine.
+	const tmpDir = join(options.home, 'tmp');
 	mkdirSync(runDir, { recursive: true, mode: 0o700 });
+	mkdirSync(tmpDir, { recursive: true, mode: 0o700 });
 	requireFreeDisk(options.home, 600);
 
 	const server = ensureMariaDbInstalled();
@@ -134,6 +137,7 @@ export async function startMariaDb(options: MariaDbOptions): Promise<RunningMari
 			`--datadir=${dataDir}`,
 			`--socket=${socket}`,
 			`--pid-file=${pidFile}`,
+			`--tmpdir=${tmpDir}`,
 			`--port=${options.port}`,
 			'--bind-address=127.0.0.1',
 			'--skip-name-resolve',

@@ -98,11 +98,6 @@ export function aptInstall(packages: string[], why: string): void {
 	}
 }
 
-export interface Managed {
-	name: string;
-	stop(): Promise<void>;
-}
-
 /** Starts a long-running helper in its own process group, so Ctrl-C reaches us first and we stop it in order. */
 export function spawnManaged(name: string, command: string, args: string[], options: { env?: NodeJS.ProcessEnv; cwd?: string; logFile?: number | 'inherit' }) {
 	const stdio = options.logFile === undefined || options.logFile === 'inherit' ? 'inherit' : options.logFile;

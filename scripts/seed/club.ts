@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { inArray } from 'drizzle-orm';
 import type { DbOrTx } from '../../src/lib/server/db';
 import { clubAreas, users } from '../../src/lib/server/club/schema';
 import { DEMO_AREAS, DEMO_PEOPLE } from './people';
@@ -29,10 +29,8 @@ export async function seedClub(db: DbOrTx): Promise<void> {
 
 /** Looks up demo people by their key ("mara"), for the feature seeds. */
 export async function demoUserIds(db: DbOrTx): Promise<Map<string, string>> {
-	const map = new Map<string, string>();
-	for (const person of DEMO_PEOPLE) {
-		const [row] = await db.select({ id: users.id }).from(users).where(eq(users.email, person.email));
-		if (row) map.set(person.key, row.id);
-	}
-	return map;
+	const emails = DEMO_PEOPLE.map((p) => p.email);
+	const rows = await db.select({ id: users.id, email: users.email }).from(users).where(inArray(users.email, emails));
+	const idOf = new Map(rows.map((r) => [r.email, r.id]));
+	return new Map(DEMO_PEOPLE.flatMap((p) => (idOf.has(p.email) ? [[p.key, idOf.get(p.email)!] as const] : [])));
 }

@@ -10,8 +10,9 @@ import { users } from '../../src/lib/server/club/schema';
 import { toViewer, type Viewer } from '../../src/lib/server/club/users';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as contests from '../../src/lib/server/contests/contests';
-import * as entries from '../../src/lib/server/contests/entries';
+import * as entries from '../../src/lib/server/contests/contest-entries';
 import * as judging from '../../src/lib/server/contests/judging';
+import * as panel from '../../src/lib/server/contests/panel';
 import { transition } from '../../src/lib/server/contests/review';
 import { contestEntries } from '../../src/lib/server/contests/schema';
 import type { TankInput } from '../../src/lib/journals/tank-input';
@@ -19,11 +20,11 @@ import type { ContestInput } from '../../src/lib/contests/contest-form';
 import { checkEligibility } from '../../src/lib/contests/eligibility';
 import { SCORE_STEP } from '../../src/lib/contests/rubric';
 import type { CardFields } from '../../src/lib/contests/card';
+import { dayOf } from '../../src/lib/dates';
 import { demoUserIds } from './club';
 import { randomFrom, storeDemoPhoto } from './lib/images';
 
 const DAY = 86_400_000;
-const dayOf = (d: Date) => d.toISOString().slice(0, 10);
 
 /** Our own rubric: five criteria in the club's words, weighted towards the layout and the plants. */
 export const DEMO_RUBRIC = [
@@ -415,10 +416,10 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			categories: plan.categories
 		};
 		const prepared = new Date(opened.getTime() - 6 * DAY);
-		const contestId = await contests.create(admin, input, db, prepared);
-		for (const judge of plan.judges) await judging.assign(admin, contestId, people.get(judge)!, db, new Date(prepared.getTime() + 3_600_000));
-		await transition(admin, contestId, 'open-entries', { now: opened, database: db });
-		const contest = (await contests.load(contestId, db))!;
+		const contestId = await contests.create(admin, input, { db, now: prepared });
+		for (const judge of plan.judges) await panel.assign(admin, contestId, people.get(judge)!, { db, now: new Date(prepared.getTime() + 3_600_000) });
+		await transition(admin, contestId, 'open-entries', {}, { db, now: opened });
+		const contest = (await contests.load(contestId, { db }))!;
 
 		// Entries, spread over the entry window.
 		const span = Math.min(entriesClose.getTime(), now.getTime() - 3_600_000) - opened.getTime();
@@ -436,7 +437,7 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 			for (const summary of own) {
 				if ([...tankOf.entries()].some(([k, v]) => v === summary.id && k.startsWith(`${contestId}:`))) continue;
 				const full = await tanks.getOwn(owner, summary.id, { db });
-				if (full && checkEligibility(rule, entries.factsOf(full, when).facts).eligible && full.setUpOn && new Date(full.setUpOn) < when) {
+				if (full && checkEligibility(rule, entries.factsOf(full, { now: when }).facts).eligible && full.setUpOn && new Date(full.setUpOn) < when) {
 					tankId = full.id;
 					break;
 				}
@@ -472,13 +473,13 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 				owner,
 				contestId,
 				{ categoryId: category.id, tankId, statement: STATEMENTS[i % STATEMENTS.length]!, photos },
-				{ now: when, database: db }
+				{ db, now: when }
 			);
 			entryIds.push(id);
 		}
 
 		if (plan.until === 'open') continue;
-		await transition(admin, contestId, 'start-judging', { now: judgingOpens, database: db });
+		await transition(admin, contestId, 'start-judging', {}, { db, now: judgingOpens });
 		const numbers = new Map(
 			(await db.select({ id: contestEntries.id, number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.contestId, contestId))).map(
 				(r) => [r.id, r.number!]
@@ -487,7 +488,7 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 
 		for (const [judge, index, reason] of plan.conflicts) {
 			const viewer = await viewerOf(db, people.get(judge)!);
-			await judging.declareConflict(viewer, contestId, numbers.get(entryIds[index]!)!, reason, db, new Date(judgingOpens.getTime() + 2 * 3_600_000));
+			await judging.declareConflict(viewer, contestId, numbers.get(entryIds[index]!)!, reason, { db, now: new Date(judgingOpens.getTime() + 2 * 3_600_000) });
 		}
 
 		const rubricIds = contest.criteria.map((c) => String(c.id));
@@ -516,12 +517,12 @@ export async function seedContests(db: DbOrTx): Promise<void> {
 					contestId,
 					cell.number,
 					{ baseVersion: 0, saveId: `seed-${contestId}-${judge}-${cell.number}`, fields },
-					{ now: when, database: db }
+					{ db, now: when }
 				);
-				if (!drafted) await judging.submitCard(viewer, contestId, cell.number, saved.version, { now: when, database: db });
+				if (!drafted) await judging.submitCard(viewer, contestId, cell.number, saved.version, { db, now: when });
 			}
 		}
 
-		if (plan.until === 'published') await transition(admin, contestId, 'publish', { now: new Date(judgingCloses.getTime() + DAY), database: db });
+		if (plan.until === 'published') await transition(admin, contestId, 'publish', {}, { db, now: new Date(judgingCloses.getTime() + DAY) });
 	}
 }

@@ -10,10 +10,13 @@ import { outbox } from '../../src/lib/server/mail/schema';
 import { species } from '../../src/lib/server/species/schema';
 import { tanks } from '../../src/lib/server/journals/schema';
 import { restrictedSpecies, swapMessages } from '../../src/lib/server/swaps/schema';
-import * as listings from '../../src/lib/server/swaps/listings';
+import * as edits from '../../src/lib/server/swaps/listing-edits';
+import * as transitions from '../../src/lib/server/swaps/listing-transitions';
+import { expireDue } from '../../src/lib/server/swaps/expiry';
 import * as threads from '../../src/lib/server/swaps/threads';
 import * as restricted from '../../src/lib/server/swaps/restricted';
 import * as reports from '../../src/lib/server/swaps/reports';
+import { dayOf } from '../../src/lib/dates';
 import type { ListingInput } from '../../src/lib/swaps/listing-form';
 import { DAY_MS } from '../../src/lib/swaps/listing';
 import { CLUB_NAME, DEMO_PEOPLE } from './people';
@@ -227,11 +230,11 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 			level: 'cautioned',
 			source: `${CLUB_NAME}, committee decision of March 2026`,
 			note: 'It spreads fast in garden ponds and ditches: keep it indoors, and dry and bin any surplus.',
-			checkedOn: now.toISOString().slice(0, 10),
+			checkedOn: dayOf(now),
 			checkBasis: 'source'
 		});
 	}
-	await restricted.setClubJurisdictions(null, [JURISDICTIONS.ENGLAND, CLUB_RULES], db);
+	await restricted.setClubJurisdictions(null, [JURISDICTIONS.ENGLAND, CLUB_RULES], { db });
 
 	const names = LISTINGS.map((l) => l.speciesName).filter(Boolean);
 	const catalogue = new Map(
@@ -246,7 +249,7 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 			: [];
 		const created = at(demo.daysAgo, -3);
 		const { key, owner: _owner, daysAgo: _daysAgo, daysLeft, tank, photo: _photo, ...input } = demo;
-		const id = await listings.create(
+		const id = await edits.create(
 			owner,
 			{
 				...input,
@@ -256,11 +259,11 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 				availableUntil: new Date(created.getTime() + (demo.daysAgo + daysLeft) * DAY_MS)
 			},
 			photos,
-			{ now: created, database: db }
+			{ now: created, db }
 		);
 		ids.set(key, id);
 	}
-	const opts = (daysAgo: number, hours = 0) => ({ now: at(daysAgo, hours), database: db });
+	const opts = (daysAgo: number, hours = 0) => ({ now: at(daysAgo, hours), db });
 
 	// Two members ask for Mara's rotala; she has not answered yet.
 	const newRequests = [
@@ -276,9 +279,9 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 	// Fenna's shrimp: Joss asked, Fenna accepted, Joss proposed a pickup and Fenna confirmed.
 	const shrimp = await threads.request(who('joss'), ids.get('shrimp')!, 'I have a cycled 40 L waiting for shrimp. Could I have all ten?', opts(3, -10));
 	await threads.request(who('ines'), ids.get('shrimp')!, 'If Joss does not need them all, I would love three or four.', opts(3, -8));
-	await listings.accept(who('fenna'), shrimp, opts(3, -4));
+	await transitions.accept(who('fenna'), shrimp, opts(3, -4));
 	await threads.post(who('fenna'), shrimp, 'They are yours. I will bag them with plenty of air; bring a cool box if you have one.', opts(3, -4));
-	const day = (daysAhead: number) => new Date(now.getTime() + daysAhead * DAY_MS).toISOString().slice(0, 10);
+	const day = (daysAhead: number) => dayOf(new Date(now.getTime() + daysAhead * DAY_MS));
 	const proposal = await threads.propose(
 		who('joss'),
 		shrimp,
@@ -295,8 +298,8 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 		'Would the filter suit a 54 L tank? I would love it for my quarantine tank.',
 		opts(9, -12)
 	);
-	await listings.accept(who('joss'), filter, opts(9, -8));
-	const pastDay = new Date(now.getTime() - 7 * DAY_MS).toISOString().slice(0, 10);
+	await transitions.accept(who('joss'), filter, opts(9, -8));
+	const pastDay = dayOf(new Date(now.getTime() - 7 * DAY_MS));
 	const filterPickup = await threads.propose(
 		who('joss'),
 		filter,
@@ -305,20 +308,20 @@ export async function seedSwaps(db: DbOrTx): Promise<void> {
 		opts(9, -7)
 	);
 	await threads.confirmPickup(who('mara'), filter, filterPickup, opts(9, -6));
-	await listings.act(who('joss'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 2));
+	await transitions.act(who('joss'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 2));
 	await threads.post(who('mara'), filter, 'Running since Saturday, quiet as anything. Thank you!', opts(7, 5));
-	await listings.act(who('mara'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 5));
+	await transitions.act(who('mara'), ids.get('filter')!, { type: 'confirm-handover' }, opts(7, 5));
 
 	// A member asks the admins to look at the regulator: a faulty gas part is a safety matter.
 	await reports.reportListing(
 		who('ines'),
 		ids.get('regulator')!,
 		'It says it stopped working. Should a faulty CO2 regulator be passed on at all? Someone might use it without a check.',
-		db
+		{ db }
 	);
 
 	// Ines's crypts passed their date: the expiry is recorded as the job would.
-	await listings.expireDue(now, db);
+	await expireDue({ now, db });
 
 	// Demo conversations are history: they are read (except Mara's two new requests) and mailed to nobody.
 	await db

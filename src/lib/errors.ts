@@ -4,8 +4,11 @@
 // (src/lib/server/http/forms.ts and api.ts). Pure modules may throw it too (it does no I/O).
 import type { z } from 'zod';
 
-/** Messages for particular form fields, keyed by the field's name. */
+/** Messages for particular form fields, keyed by the field's name; FORM_ERROR holds one about the whole form. */
 export type FieldErrors = Record<string, string>;
+
+/** The key of a message about the whole form rather than one field (pages read `form?.errors._form`). */
+export const FORM_ERROR = '_form';
 
 /** The statuses a refusal may carry: bad input, not signed in, not allowed, not visible, state does not allow it, gone, too many, busy (try again soon). */
 export type RefusalStatus = 400 | 401 | 403 | 404 | 409 | 410 | 413 | 415 | 422 | 429 | 503;
@@ -44,7 +47,7 @@ export const conflict = (code: string, message: string, details: Record<string, 
 export function fieldErrorsOf(error: z.ZodError): FieldErrors {
 	const fields: FieldErrors = {};
 	for (const issue of error.issues) {
-		const key = issue.path.length ? String(issue.path[0]) : '_form';
+		const key = issue.path.length ? String(issue.path[0]) : FORM_ERROR;
 		fields[key] ??= issue.message;
 	}
 	return fields;

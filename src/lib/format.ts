@@ -57,3 +57,10 @@ export function describeUserAgent(ua: string | null): string {
 						: 'an unknown system';
 	return `${browser} on ${system}`;
 }
+
+/** "m…a@kettlewater.test": enough for someone to recognise their own address, not to harvest it. */
+export function maskEmail(email: string): string {
+	const [local = '', domain = ''] = email.split('@');
+	if (local.length <= 2) return `${local[0] ?? ''}…@${domain}`;
+	return `${local[0]}…${local.at(-1)}@${domain}`;
+}

@@ -1,10 +1,10 @@
-import { error, fail } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireUser } from '$lib/server/club/guards';
+import { formAction, parseForm } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
 import * as entries from '$lib/server/journals/journal-entries';
 import * as showcase from '$lib/server/journals/showcase';
 import * as upkeep from '$lib/server/journals/upkeep';
-import { isDomainError } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Upkeep due within this many days shows on the dashboard. */
@@ -35,18 +35,23 @@ export const load = (async ({ locals }) => {
 	};
 }) satisfies PageServerLoad;
 
+const doneForm = z.object({
+	taskId: z
+		.string({ message: 'Choose a task.' })
+		.regex(/^[1-9]\d{0,14}$/, 'Choose a task.')
+		.transform(Number)
+});
+
 export const actions = {
 	/** "Done today" from the dashboard. */
-	done: async (event) => {
-		const viewer = requireUser(event);
-		const taskId = String((await event.request.formData()).get('taskId') ?? '');
-		if (!/^[1-9]\d{0,14}$/.test(taskId)) return fail(400, { doneError: 'Choose a task.' });
-		try {
-			await upkeep.markDone(viewer, Number(taskId));
-		} catch (e) {
-			if (isDomainError(e) && e.status === 404) error(404, 'We could not find that task.');
-			throw e;
-		}
-		return { done: Number(taskId) };
-	}
+	done: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const { taskId } = parseForm(doneForm, data);
+			// Another member's task, or one that is gone, is "not found" (upkeep refuses it so).
+			await upkeep.markDone(viewer, taskId);
+			return { done: taskId };
+		},
+		{ id: 'done' }
+	)
 } satisfies Actions;

@@ -6,19 +6,21 @@ import { db } from '../../src/lib/server/db';
 import * as media from '../../src/lib/server/media';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as contests from '../../src/lib/server/contests/contests';
-import * as entries from '../../src/lib/server/contests/entries';
+import * as entries from '../../src/lib/server/contests/contest-entries';
 import * as judging from '../../src/lib/server/contests/judging';
+import * as panel from '../../src/lib/server/contests/panel';
 import { transition } from '../../src/lib/server/contests/review';
 import { contestCards, contestEntries } from '../../src/lib/server/contests/schema';
 import type { Viewer } from '../../src/lib/server/club/users';
 import type { ContestInput } from '../../src/lib/contests/contest-form';
 import type { CardFields } from '../../src/lib/contests/card';
+import { dayOf } from '../../src/lib/dates';
 import { makePerson, type TestPerson } from './people';
 import { tankInput } from './tanks';
 
 export const viewerOf = (p: TestPerson): Viewer => ({ id: p.id, email: p.email, displayName: p.displayName, role: p.role, units: 'metric' });
 
-const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
+const day = (offset: number) => dayOf(new Date(Date.now() + offset * 86_400_000));
 
 /** Two criteria: "Depth" out of 10 with weight 2 and "Finish" out of 5 with weight 1. */
 export function contestInput(overrides: Partial<ContestInput> = {}): ContestInput {
@@ -93,7 +95,7 @@ export async function contestFixture(
 			)
 		));
 	const contestId = await contests.create(viewerOf(admin), contestInput(options.input));
-	for (const j of judges) await judging.assign(viewerOf(admin), contestId, j.id);
+	for (const j of judges) await panel.assign(viewerOf(admin), contestId, j.id);
 	await transition(viewerOf(admin), contestId, 'open-entries');
 	const contest = (await contests.load(contestId))!;
 	const open = contest.categories.find((c) => c.name === 'Open')!;

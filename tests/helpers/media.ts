@@ -8,12 +8,12 @@ import { config } from '../../src/lib/server/config';
 import { appUrl } from './env';
 import type { TestPerson } from './people';
 
-export async function uploadFile(person: TestPerson | null, bytes: Uint8Array, name = 'photo.jpg', type = 'image/jpeg'): Promise<Response> {
+export async function uploadFile(person: TestPerson | null, bytes: Uint8Array, name = 'photo.jpg', type = 'image/jpeg', base = appUrl()): Promise<Response> {
 	const form = new FormData();
 	form.append('file', new Blob([new Uint8Array(bytes)], { type }), name);
 	const headers: Record<string, string> = { origin: appUrl(), accept: 'application/json' };
 	if (person) headers.cookie = person.cookie;
-	return fetch(appUrl() + '/api/media', { method: 'POST', body: form, headers, redirect: 'manual' });
+	return fetch(base + '/api/media', { method: 'POST', body: form, headers, redirect: 'manual' });
 }
 
 /** Every object key in the bucket under a prefix. */

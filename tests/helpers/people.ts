@@ -31,6 +31,15 @@ export async function makePerson(options: { role?: Role; displayName?: string | 
 	return { id, email, displayName: displayName ?? '', role, token, cookie: `${SESSION_COOKIE}=${token}` };
 }
 
+/** A database session for someone who already exists, such as a member of the demo club. */
+export async function sessionFor(userId: string): Promise<TestPerson> {
+	const [row] = await db.select().from(users).where(eq(users.id, userId));
+	if (!row) throw new Error(`No member with the id ${userId}.`);
+	const token = crypto.randomUUID();
+	await db.insert(sessions).values({ sessionToken: token, userId: row.id, expires: new Date(Date.now() + 30 * 86_400_000) });
+	return { id: row.id, email: row.email ?? '', displayName: row.displayName ?? '', role: row.role, token, cookie: `${SESSION_COOKIE}=${token}` };
+}
+
 export async function roleOf(id: string): Promise<Role | undefined> {
 	const [row] = await db.select({ role: users.role }).from(users).where(eq(users.id, id));
 	return row?.role;

@@ -5,8 +5,9 @@ import { eq } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import type { Viewer } from '../../src/lib/server/club/users';
+import type { Context } from '../../src/lib/server/context';
 import { species } from '../../src/lib/server/species/schema';
-import * as listings from '../../src/lib/server/swaps/listings';
+import * as edits from '../../src/lib/server/swaps/listing-edits';
 import * as restricted from '../../src/lib/server/swaps/restricted';
 import type { LatLng } from '../../src/lib/club/location';
 import type { ListingInput } from '../../src/lib/swaps/listing-form';
@@ -48,7 +49,8 @@ export function listingInput(overrides: Partial<ListingInput> = {}): ListingInpu
 	};
 }
 
-export const createListing = (owner: TestPerson, overrides: Partial<ListingInput> = {}) => listings.create(viewerOf(owner), listingInput(overrides));
+export const createListing = (owner: TestPerson, overrides: Partial<ListingInput> = {}, context: Context = {}) =>
+	edits.create(viewerOf(owner), listingInput(overrides), [], context);
 
 export const token = (label: string) => `${label}${randomBytes(4).toString('hex')}`;
 

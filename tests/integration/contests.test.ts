@@ -1,17 +1,19 @@
 // Contest judging through the running app and the contest functions: blind judging, conflicts,
 // autosave versions under concurrency, publication, results, announcement, export and reminders.
 import { describe, expect, test } from 'vitest';
-import { and, eq, like } from 'drizzle-orm';
+import { and, asc, eq, like } from 'drizzle-orm';
 import { parse } from 'csv-parse/sync';
 import { db } from '../../src/lib/server/db';
 import { auditLog } from '../../src/lib/server/audit/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { contestCards } from '../../src/lib/server/contests/schema';
 import * as contests from '../../src/lib/server/contests/contests';
-import * as entries from '../../src/lib/server/contests/entries';
+import * as entries from '../../src/lib/server/contests/contest-entries';
 import * as judging from '../../src/lib/server/contests/judging';
+import * as panel from '../../src/lib/server/contests/panel';
 import * as announce from '../../src/lib/server/contests/announce';
-import { ContestError } from '../../src/lib/server/contests/errors';
+import { DomainError } from '../../src/lib/errors';
+import type { Photo } from '../../src/lib/server/media';
 import { inputOf, loadData, publicResults, transition } from '../../src/lib/server/contests/review';
 import { sendDueReminders } from '../../src/lib/server/contests/reminders';
 import { computeResults } from '../../src/lib/contests/results';
@@ -29,7 +31,7 @@ describe('judges never reach their own entries or conflicted ones', () => {
 		const judgeWhoEnters = await makePerson({ role: 'judge', label: 'judge-entrant' });
 		const other = await makePerson({ label: 'entrant' });
 		const f = await contestFixture({ judges: 2, entrants: [judgeWhoEnters, other] });
-		await judging.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
+		await panel.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
 		const own = f.entries[0]!;
 		const theirs = f.entries[1]!;
 		const cookie = judgeWhoEnters.cookie;
@@ -52,8 +54,8 @@ describe('judges never reach their own entries or conflicted ones', () => {
 		expect(
 			(await save(cookie, f.contestId, theirs.number, { baseVersion: 0, saveId: crypto.randomUUID(), fields: fields(f.criteria, [5, null]) })).status
 		).toBe(200);
-		const photo = (await entries.getOwn(viewerOf(other), theirs.entryId))!.entry.photos[0]!;
-		expect((await request(photo.urls.thumb, { cookie, accept: 'image/webp' })).status).toBe(200);
+		const photo = `/judging/${f.contestId}/${theirs.number}/photos/1/thumb`;
+		expect((await request(photo, { cookie, accept: 'image/webp' })).status).toBe(200);
 		const declared = await request(`/judging/${f.contestId}/${theirs.number}?/conflict`, { cookie, form: { reason: 'I know this tank', confirm: 'yes' } });
 		expect(declared.status).toBe(303);
 		expect(
@@ -67,9 +69,9 @@ describe('judges never reach their own entries or conflicted ones', () => {
 			404
 		);
 		expect((await request(`/judging/${f.contestId}/${theirs.number}`, { cookie })).status).toBe(404);
-		expect((await request(photo.urls.thumb, { cookie, accept: 'image/webp' })).status).toBe(404);
+		expect((await request(photo, { cookie, accept: 'image/webp' })).status).toBe(404);
 		// Another judge still sees the photo; the conflict is in the log.
-		expect((await request(photo.urls.thumb, { cookie: f.judges[0]!.cookie, accept: 'image/webp' })).status).toBe(200);
+		expect((await request(photo, { cookie: f.judges[0]!.cookie, accept: 'image/webp' })).status).toBe(200);
 		const log = await db
 			.select()
 			.from(auditLog)
@@ -104,6 +106,65 @@ describe('blind judging', () => {
 		// The public contest page does not list entries before publication either.
 		const publicPage = await (await request(`/contests/${f.contestId}`, { cookie: judge.cookie })).text();
 		for (const secret of secrets) expect(publicPage).not.toContain(secret);
+	});
+
+	test('judges get an entry’s photos by entry number and place only, never by the photo’s id', async () => {
+		const judgeWhoEnters = await makePerson({ role: 'judge', label: 'judge-entrant' });
+		const f = await contestFixture({ judges: 2, entrants: [judgeWhoEnters, await makePerson({ label: 'entrant' })], state: 'open' });
+		await panel.assign(viewerOf(f.admin), f.contestId, judgeWhoEnters.id);
+		const [judge, other] = f.judges as [Awaited<ReturnType<typeof makePerson>>, Awaited<ReturnType<typeof makePerson>>];
+		const own = f.entries[0]!;
+		const theirs = f.entries[1]!;
+		// A second photo for their entry, then judging starts.
+		const before = (await entries.getOwn(viewerOf(theirs.entrant), theirs.entryId))!.entry;
+		const second = await photoOf(theirs.entrant, '#b4533a');
+		await entries.update(viewerOf(theirs.entrant), theirs.entryId, {
+			categoryId: before.categoryId,
+			tankId: before.tankId!,
+			statement: before.statement,
+			photos: [...before.photos.map((p) => ({ id: p.id, alt: p.alt, caption: p.caption })), { id: second.id, alt: 'Closer', caption: '' }]
+		});
+		await transition(viewerOf(f.admin), f.contestId, 'start-judging');
+		for (const e of f.entries) e.number = (await entries.getOwn(viewerOf(e.entrant), e.entryId))!.entry.number;
+		const [stored, storedSecond] = (await entries.getOwn(viewerOf(theirs.entrant), theirs.entryId))!.entry.photos as [Photo, Photo];
+		const blind = (size: string, number = theirs.number, position = 1) => `/judging/${f.contestId}/${number}/photos/${position}/${size}`;
+		const bytes = async (response: Response) => Buffer.from(await response.arrayBuffer());
+
+		// The scorecard points at the entry's address for its photo, not at /media/<id>.
+		const page = await (await request(`/judging/${f.contestId}/${theirs.number}`, { cookie: judge.cookie })).text();
+		expect(page).toContain(blind('medium'));
+		expect(page).not.toContain(`/media/${stored.id}/`);
+		const served = await request(blind('large'), { cookie: judge.cookie, accept: 'image/webp' });
+		expect(served.status).toBe(200);
+		expect(served.headers.get('content-type')).toBe('image/webp');
+		expect(served.headers.get('cache-control')).toBe('private, max-age=60, must-revalidate');
+		expect(served.headers.get('etag')).not.toContain(String(stored.id));
+		const again = await request(blind('large'), { cookie: judge.cookie, headers: { 'if-none-match': served.headers.get('etag')! } });
+		expect(again.status).toBe(304);
+		// The same bytes as the stored renditions, in the entry's order.
+		const direct = (url: string) => request(url, { cookie: theirs.entrant.cookie, accept: 'image/webp' });
+		expect((await bytes(served)).equals(await bytes(await direct(stored.urls.large)))).toBe(true);
+		const secondServed = await bytes(await request(blind('thumb', theirs.number, 2), { cookie: judge.cookie, accept: 'image/webp' }));
+		expect(secondServed.equals(await bytes(await direct(storedSecond.urls.thumb)))).toBe(true);
+		expect(secondServed.equals(await bytes(await direct(stored.urls.thumb)))).toBe(false);
+
+		// A judge cannot reach it by its id, nor a photo the entry does not have, nor their own entry's.
+		expect((await request(stored.urls.thumb, { cookie: judge.cookie, accept: 'image/webp' })).status).toBe(404);
+		expect((await request(blind('thumb', theirs.number, 3), { cookie: judge.cookie, accept: 'image/webp' })).status).toBe(404);
+		expect((await request(blind('thumb', own.number), { cookie: judgeWhoEnters.cookie, accept: 'image/webp' })).status).toBe(404);
+		expect((await request(blind('thumb', theirs.number), { cookie: judgeWhoEnters.cookie, accept: 'image/webp' })).status).toBe(200);
+		// Nobody off the panel: another judge, a member, an admin, someone signed out.
+		const outsider = await makePerson({ role: 'judge', label: 'off-panel' });
+		expect((await request(blind('thumb'), { cookie: outsider.cookie, accept: 'image/webp' })).status).toBe(404);
+		expect((await request(blind('thumb'), { cookie: (await makePerson()).cookie, accept: 'image/webp' })).status).toBe(403);
+		expect((await request(blind('thumb'), { cookie: f.admin.cookie, accept: 'image/webp' })).status).toBe(404);
+		expect((await request(blind('thumb'), { accept: 'image/webp' })).status).toBe(303);
+		// A judge who steps back loses it; once the results are out the address is gone for everyone.
+		await judging.declareConflict(viewerOf(other), f.contestId, theirs.number!, 'I know this tank');
+		expect((await request(blind('thumb'), { cookie: other.cookie, accept: 'image/webp' })).status).toBe(404);
+		await scoreAll({ ...f, judges: [...f.judges, judgeWhoEnters] }, () => [5, 3]);
+		await transition(viewerOf(f.admin), f.contestId, 'publish');
+		expect((await request(blind('thumb'), { cookie: judge.cookie, accept: 'image/webp' })).status).toBe(404);
 	});
 
 	test('judges cannot see each other’s cards before publication', async () => {
@@ -249,6 +310,18 @@ describe('autosave versions', () => {
 		const reopened = await request(api(f.contestId, number, '/reopen'), { cookie: judge.cookie, json: {}, accept: 'application/json' });
 		expect(reopened.status).toBe(200);
 		expect((await reopened.json()).status).toBe('draft');
+		// The submission and the reopening are in the card's log, by the judge; the refused late reopening is not.
+		const [card] = await db.select().from(contestCards).where(eq(contestCards.entryId, f.entries[0]!.entryId));
+		const log = await db
+			.select()
+			.from(auditLog)
+			.where(and(eq(auditLog.subjectType, 'contest-card'), eq(auditLog.subjectId, String(card!.id))))
+			.orderBy(asc(auditLog.id));
+		expect(log.map((r) => [r.action, r.actorId])).toEqual([
+			['card.submit', judge.id],
+			['card.reopen', judge.id]
+		]);
+		expect(log[0]!.detail).toMatchObject({ contestId: f.contestId, number, version: 3 });
 	});
 });
 
@@ -262,7 +335,7 @@ describe('publication', () => {
 		expect(refused.status).toBe(409);
 		expect(await refused.text()).toContain('Some cards are still missing');
 		expect((await contests.load(f.contestId))!.state).toBe('judging');
-		await expect(transition(viewerOf(f.admin), f.contestId, 'publish', { overrideReason: 'short' })).rejects.toBeInstanceOf(ContestError);
+		await expect(transition(viewerOf(f.admin), f.contestId, 'publish', { overrideReason: 'short' })).rejects.toBeInstanceOf(DomainError);
 
 		const published = await request(`/admin/contests/${f.contestId}/results?/step`, {
 			cookie: f.admin.cookie,
@@ -483,8 +556,8 @@ describe('reminders', () => {
 		const contest = (await contests.load(f.contestId))!;
 		const afterEntries = new Date(`${contest.entryClosesOn}T12:00:00Z`);
 		afterEntries.setUTCDate(afterEntries.getUTCDate() + 1);
-		await sendDueReminders(afterEntries);
-		await sendDueReminders(afterEntries);
+		await sendDueReminders({ now: afterEntries });
+		await sendDueReminders({ now: afterEntries });
 		const reminders = () =>
 			db
 				.select()
@@ -496,8 +569,8 @@ describe('reminders', () => {
 
 		await transition(viewerOf(f.admin), f.contestId, 'start-judging');
 		const nearClose = new Date(`${contest.judgingClosesOn}T08:00:00Z`);
-		await sendDueReminders(nearClose);
-		await sendDueReminders(nearClose);
+		await sendDueReminders({ now: nearClose });
+		await sendDueReminders({ now: nearClose });
 		const judgeMails = (await reminders()).filter((r) => f.judges.some((j) => j.email === r.toAddress));
 		expect(judgeMails.map((m) => m.toAddress).sort()).toEqual(f.judges.map((j) => j.email).sort());
 		expect(judgeMails[0]!.textBody).toContain('3 cards');

@@ -1,8 +1,11 @@
-// Who may reach what: every protected route, for each kind of visitor. A new protected route
-// gets a row here.
+// Who may reach what: every page load, form action and endpoint, for each kind of visitor. The
+// table is kept by hand, and checked against the route files: a new page, action or endpoint
+// without a row here fails the first test below.
 import { beforeAll, describe, expect, test } from 'vitest';
 import { makePerson, type TestPerson } from '../helpers/people';
 import { request } from '../helpers/http';
+import { describeOperation, discoverOperations, operationFor, operationKey, type Operation } from '../helpers/routes';
+import * as restricted from '../../src/lib/server/swaps/restricted';
 import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/journal-entries';
@@ -11,18 +14,26 @@ import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 
 import * as judging from '../../src/lib/server/contests/judging';
-import { cardIdOf, contestFixture, fields, viewerOf as contestViewer, type Fixture } from '../helpers/contests';
+import { cardIdOf, contestFixture, fields, photoOf, viewerOf as contestViewer, type Fixture } from '../helpers/contests';
 
 type Visitor = 'anonymous' | 'member' | 'judge' | 'admin';
+type Form = Record<string, string | string[]>;
 interface Row {
 	method?: 'GET' | 'POST' | 'PUT' | 'DELETE';
 	/** `:tank` stands for a club-visible tank of another member, `:entry` for a journal entry of it. */
 	path: string;
-	form?: () => Record<string, string>;
+	/** Read when the request is sent. */
+	form?: () => Form | Promise<Form>;
 	json?: unknown;
 	expect: Record<Visitor, number>;
 	api?: boolean;
+	/** Where a 303 may point, by visitor; otherwise to sign-in with the way back. */
+	redirect?: Partial<Record<Visitor, RegExp>>;
+	/** The request ends the visitor's session: send it as a new person with the same role. */
+	endsSession?: true;
 }
+
+const SIGN_IN = /^\/signin\?redirectTo=/;
 
 const signedIn = (status: number) => ({ anonymous: 303, member: status, judge: status, admin: status });
 const adminOnly = (status: number) => ({ anonymous: 303, member: 403, judge: 403, admin: status });
@@ -46,6 +57,9 @@ let cardId: number;
 const judgesOnly = (status: number) => ({ anonymous: 303, member: 403, judge: status, admin: status });
 const judgeApi = (status: number) => ({ anonymous: 401, member: 403, judge: status, admin: status });
 const blankCard = { baseVersion: 0, saveId: 'guard-test-save', fields: { scores: {}, comments: {}, entrantComment: '', panelNote: '' } };
+/** A photo target uploaded and has not saved with anything yet: only its uploader may see it. */
+let pendingPhoto: number;
+const everyone = (status: number) => ({ anonymous: status, member: status, judge: status, admin: status });
 
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
@@ -65,6 +79,30 @@ const rows: Row[] = [
 		form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', notifyMessages: 'hourly', homeLat: '', homeLng: '' }),
 		expect: signedIn(200)
 	},
+	{ method: 'POST', path: '/account?/revoke', form: () => ({ handle: 'no-such-session' }), expect: { anonymous: 303, member: 404, judge: 404, admin: 404 } },
+	{
+		method: 'POST',
+		path: '/account?/revokeAll',
+		form: () => ({}),
+		expect: everyone(303),
+		endsSession: true,
+		redirect: { member: /^\/signin\?signedOutEverywhere=1$/, judge: /^\/signin\?signedOutEverywhere=1$/, admin: /^\/signin\?signedOutEverywhere=1$/ }
+	},
+	{ method: 'POST', path: '/welcome', form: () => ({ displayName: '' }), expect: signedIn(400) },
+	{ path: '/signin', expect: { anonymous: 200, member: 303, judge: 303, admin: 303 }, redirect: { member: /^\/$/, judge: /^\/$/, admin: /^\/$/ } },
+	// Refused at the field; a signed-in visitor is then sent on, as the page itself does.
+	{
+		method: 'POST',
+		path: '/signin',
+		form: () => ({ email: 'not-an-address' }),
+		expect: { anonymous: 400, member: 303, judge: 303, admin: 303 },
+		redirect: { member: /^\/$/, judge: /^\/$/, admin: /^\/$/ }
+	},
+	{ path: '/signout', expect: everyone(303), redirect: { anonymous: /^\/$/, member: /^\/$/, judge: /^\/$/, admin: /^\/$/ } },
+	{ method: 'POST', path: '/signout', form: () => ({}), expect: everyone(302), endsSession: true },
+	{ path: '/unsubscribe/0123456789abcdef0123456789abcdef', expect: hidden },
+	{ method: 'POST', path: '/unsubscribe/0123456789abcdef0123456789abcdef', form: () => ({ announcements: 'on' }), expect: hidden },
+	{ path: '/media/:photo/thumb', expect: hidden },
 	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals', expect: signedIn(200) },
 	{ path: '/journals/new', expect: signedIn(200) },
@@ -78,11 +116,12 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/api/markdown/preview', api: true, json: { text: '*hi*' }, expect: apiSignedIn(200) },
 	{ method: 'POST', path: '/api/media', api: true, form: () => ({ note: 'no file here' }), expect: apiSignedIn(400) },
 	{ method: 'DELETE', path: '/api/media/999999999', api: true, expect: apiSignedIn(404) },
-	{ path: '/', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ path: '/', expect: everyone(200) },
 	{ method: 'POST', path: '/?/done', form: () => ({ taskId: String(targetTask) }), expect: notOwner },
 	{ path: '/journals/showcase', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals/dose?tank=:tank', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
-	{ path: '/journals/:tank/feed.xml', expect: { anonymous: 404, member: 404, judge: 404, admin: 404 } },
+	{ path: '/journals/:tank', expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
+	{ path: '/journals/:tank/feed.xml', expect: hidden },
 	{ path: '/api/tanks/:tank/water-tests', api: true, expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
 	{ method: 'POST', path: '/journals/:tank?/admire', form: () => ({ want: 'on' }), expect: signedIn(200) },
 	{ method: 'POST', path: '/journals/:tank?/follow', form: () => ({ want: 'on' }), expect: signedIn(200) },
@@ -138,6 +177,7 @@ const rows: Row[] = [
 	{ path: '/api/swaps/threads/:thread/messages', api: true, expect: hidden },
 	{ path: '/members/:member', expect: signedIn(200) },
 	{ method: 'POST', path: '/members/not-a-member?/block', form: () => ({}), expect: signedIn(404) },
+	{ method: 'POST', path: '/members/not-a-member?/unblock', form: () => ({}), expect: signedIn(404) },
 	{ path: '/admin/areas', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/areas?/add', form: () => ({ name: '' }), expect: adminOnly(400) },
 	{ method: 'POST', path: '/admin/areas?/rename', form: () => ({ id: '0', name: '' }), expect: adminOnly(400) },
@@ -145,11 +185,21 @@ const rows: Row[] = [
 	{ path: '/admin/reports', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/reports?/decide', form: () => ({}), expect: adminOnly(400) },
 	{ path: '/admin/restricted', expect: adminOnly(200) },
+	// Sends back the jurisdictions the club applies at that moment, so the setting stays as it was.
+	{
+		method: 'POST',
+		path: '/admin/restricted?/jurisdictions',
+		form: async () => ({ jurisdiction: await restricted.clubJurisdictions() }),
+		expect: adminOnly(200)
+	},
 	{ method: 'POST', path: '/admin/restricted?/add', form: () => ({}), expect: adminOnly(400) },
 	{ method: 'POST', path: '/admin/restricted?/update', form: () => ({}), expect: adminOnly(400) },
 	{ method: 'POST', path: '/admin/restricted?/remove', form: () => ({ id: '0' }), expect: adminOnly(400) },
 	// Contests. :contest is being judged; :contestEntry is target's contest entry in it, :number its number, :card a card of it.
-	{ path: '/contests', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ path: '/contests', expect: everyone(200) },
+	{ path: '/contests/:contest', expect: everyone(200) },
+	// Nothing is published while the contest is being judged.
+	{ path: '/contests/:contest/results/:category', expect: hidden },
 	{ path: '/contests/:contest/enter', expect: signedIn(200) },
 	{ method: 'POST', path: '/contests/:contest/enter', form: () => ({ statement: '' }), expect: signedIn(400) },
 	{ path: '/contests/:contest/entries/:contestEntry', expect: { anonymous: 303, member: 404, judge: 404, admin: 200 } },
@@ -160,6 +210,7 @@ const rows: Row[] = [
 	// A judge who is not on this contest's panel, and admins (who do not judge), find nothing.
 	{ path: '/judging/:contest', expect: judgesOnly(404) },
 	{ path: '/judging/:contest/:number', expect: judgesOnly(404) },
+	{ path: '/judging/:contest/:number/photos/1/thumb', expect: judgesOnly(404) },
 	{ method: 'POST', path: '/judging/:contest/:number?/conflict', form: () => ({ reason: 'guard test', confirm: 'yes' }), expect: judgesOnly(404) },
 	{ path: '/api/judging/:contest/:number/card', api: true, expect: judgeApi(404) },
 	{ method: 'PUT', path: '/api/judging/:contest/:number/card', api: true, json: blankCard, expect: judgeApi(404) },
@@ -211,32 +262,57 @@ beforeAll(async () => {
 		fields: fields(contest.criteria, [5, null])
 	});
 	cardId = await cardIdOf(contest.entries[0]!.entryId, contest.judges[0]!.id);
+	pendingPhoto = (await photoOf(target)).id;
+});
+
+/** A row's path with its placeholders filled in. */
+const pathOf = (row: Row) =>
+	row.path
+		.replaceAll(':tank', String(targetTank))
+		.replaceAll(':contestEntry', String(contest.entries[0]!.entryId))
+		.replaceAll(':entry', String(targetEntry))
+		.replaceAll(':listing', String(targetListing))
+		.replaceAll(':thread', String(targetThread))
+		.replaceAll(':member', target.id)
+		.replaceAll(':contest', String(contest.contestId))
+		.replaceAll(':number', String(contest.entries[0]!.number))
+		.replaceAll(':category', String(contest.categories[0]))
+		.replaceAll(':card', String(cardId))
+		.replaceAll(':photo', String(pendingPhoto));
+
+describe('the guard table', () => {
+	let operations: Operation[];
+	beforeAll(async () => {
+		operations = await discoverOperations();
+	});
+
+	test('has a row for every page load, form action and endpoint method', () => {
+		expect(operations.length).toBeGreaterThan(50);
+		const covered = new Set(rows.flatMap((row) => operationFor(operations, row.method ?? 'GET', row.path) ?? []).map(operationKey));
+		const missing = operations.filter((op) => !covered.has(operationKey(op))).map(describeOperation);
+		expect(missing, 'Add a row for each of these to the table in guards.test.ts').toEqual([]);
+	});
+
+	test('has no row that stands for nothing', () => {
+		const stray = rows.filter((row) => !operationFor(operations, row.method ?? 'GET', row.path)).map((row) => `${row.method ?? 'GET'} ${row.path}`);
+		expect(stray).toEqual([]);
+	});
 });
 
 describe('role guards', () => {
 	for (const row of rows) {
 		for (const visitor of ['anonymous', 'member', 'judge', 'admin'] as const) {
 			test(`${row.method ?? 'GET'} ${row.path} as ${visitor} → ${row.expect[visitor]}`, async () => {
-				const cookie = visitor === 'anonymous' ? undefined : people[visitor].cookie;
-				const path = row.path
-					.replaceAll(':tank', String(targetTank))
-					.replaceAll(':contestEntry', String(contest.entries[0]!.entryId))
-					.replaceAll(':entry', String(targetEntry))
-					.replaceAll(':listing', String(targetListing))
-					.replaceAll(':thread', String(targetThread))
-					.replaceAll(':member', target.id)
-					.replaceAll(':contest', String(contest.contestId))
-					.replaceAll(':number', String(contest.entries[0]!.number))
-					.replaceAll(':card', String(cardId));
-				const response = await request(path, {
+				const person = visitor === 'anonymous' ? undefined : row.endsSession ? await makePerson({ role: visitor }) : people[visitor];
+				const response = await request(pathOf(row), {
 					method: row.method ?? 'GET',
-					cookie,
-					form: row.form?.(),
+					cookie: person?.cookie,
+					form: await row.form?.(),
 					json: row.json,
 					accept: row.api ? 'application/json' : 'text/html'
 				});
 				expect(response.status).toBe(row.expect[visitor]);
-				if (response.status === 303) expect(response.headers.get('location')).toMatch(/^\/signin\?redirectTo=/);
+				if (response.status === 303) expect(response.headers.get('location')).toMatch(row.redirect?.[visitor] ?? SIGN_IN);
 				if (row.api && response.status === 401) expect(await response.json()).toHaveProperty('message');
 			});
 		}

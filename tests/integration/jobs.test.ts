@@ -22,12 +22,12 @@ describe('periodic jobs', () => {
 			}
 		};
 		const now = new Date();
-		const results = await Promise.all(['a', 'b', 'c', 'd'].map((worker) => runDueJobs([job], { now, worker, db: scratch.db })));
+		const results = await Promise.all(['a', 'b', 'c', 'd'].map((worker) => runDueJobs([job], { worker }, { now, db: scratch.db })));
 		expect(runs).toBe(1);
 		expect(results.flat()).toEqual(['count-runs']);
 
-		expect(await runDueJobs([job], { now: new Date(now.getTime() + 30_000), db: scratch.db })).toEqual([]);
-		expect(await runDueJobs([job], { now: new Date(now.getTime() + 61_000), db: scratch.db })).toEqual(['count-runs']);
+		expect(await runDueJobs([job], {}, { now: new Date(now.getTime() + 30_000), db: scratch.db })).toEqual([]);
+		expect(await runDueJobs([job], {}, { now: new Date(now.getTime() + 61_000), db: scratch.db })).toEqual(['count-runs']);
 		expect(runs).toBe(2);
 	});
 
@@ -42,8 +42,8 @@ describe('periodic jobs', () => {
 			}
 		};
 		const now = new Date();
-		expect(await runDueJobs([job], { now, db: scratch.db })).toEqual(['fails-once']);
-		expect(await runDueJobs([job], { now: new Date(now.getTime() + 2_000), db: scratch.db })).toEqual(['fails-once']);
+		expect(await runDueJobs([job], {}, { now, db: scratch.db })).toEqual(['fails-once']);
+		expect(await runDueJobs([job], {}, { now: new Date(now.getTime() + 2_000), db: scratch.db })).toEqual(['fails-once']);
 		expect(attempts).toBe(2);
 	});
 });

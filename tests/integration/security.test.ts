@@ -305,8 +305,56 @@ describe('bodies that cannot be read get a 400, never a 500', () => {
 
 	test('an oversized text body', async () => {
 		const member = await makePerson();
-		const response = await request('/journals/new', { cookie: member.cookie, form: { name: 'x'.repeat(700_000) } });
+		// On a connection of its own: the app answers without reading the body and resets the
+		// connection, which must not be one a later test's fetch is handed from the shared pool.
+		const body = new URLSearchParams({ name: 'x'.repeat(700_000) }).toString();
+		const response = await raw('/journals/new', {
+			method: 'POST',
+			headers: {
+				host: new URL(appUrl()).host,
+				cookie: member.cookie,
+				origin: origin(),
+				'content-type': 'application/x-www-form-urlencoded',
+				'content-length': String(Buffer.byteLength(body))
+			},
+			body
+		});
 		expect(response.status).toBe(400);
-		expect(await response.text()).toMatch(/more text than/i);
+		expect(response.body).toMatch(/more text than/i);
+	});
+});
+
+describe('the admin and judging sections are refused before any route runs', () => {
+	test('a member asking for an admin page by an encoded path gets the site’s 403 page', async () => {
+		const member = await makePerson({ role: 'member' });
+		const page = await request('/%61dmin/members', { cookie: member.cookie });
+		expect(page.status).toBe(403);
+		expect(await page.text()).toContain('data-testid="error-page"');
+	});
+
+	test('a member’s form posted with use:enhance gets an error result, and the action never runs', async () => {
+		const member = await makePerson({ role: 'member' });
+		const name = `Forbidden Fen ${crypto.randomUUID().slice(0, 6)}`;
+		const response = await request('/admin/areas?/add', {
+			cookie: member.cookie,
+			form: { name, lat: '10', lng: '10' },
+			accept: 'application/json',
+			headers: { 'x-sveltekit-action': 'true' }
+		});
+		expect(response.status).toBe(403);
+		expect(await response.json()).toEqual({ type: 'error', error: { message: 'This part of Riparia is for admins only.' } });
+		const admin = await makePerson({ role: 'admin' });
+		expect(await (await request('/admin/areas', { cookie: admin.cookie })).text()).not.toContain(name);
+	});
+
+	test('client-side navigation into a section gets JSON: a redirect signed out, a 403 for the wrong role', async () => {
+		const signedOut = await request('/admin/members/__data.json');
+		expect(signedOut.status).toBe(200);
+		expect(await signedOut.json()).toMatchObject({ type: 'redirect', location: '/signin?redirectTo=%2Fadmin%2Fmembers' });
+		const judge = await makePerson({ role: 'judge' });
+		const refused = await request('/admin/members/__data.json', { cookie: judge.cookie });
+		expect(refused.status).toBe(403);
+		expect(await refused.json()).toMatchObject({ code: 'forbidden', message: 'This part of Riparia is for admins only.' });
+		expect((await request('/judging/__data.json', { cookie: judge.cookie })).status).toBe(200);
 	});
 });

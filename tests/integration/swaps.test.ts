@@ -1,27 +1,33 @@
 // The swap board through the running app and its domain functions: the nearby search, who may
-// read a conversation, restricted species, blocks, accepting a request, and batched mail.
+// read a conversation, restricted species, blocks, accepting a request, batched mail, what the
+// admins do (audited) and the owner's nudge about a reservation past its date.
 import { describe, expect, test } from 'vitest';
 import { and, eq, like, sql } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { listings as listingTable, swapMailState, swapMessages } from '../../src/lib/server/swaps/schema';
-import * as board from '../../src/lib/server/swaps/board';
-import * as listings from '../../src/lib/server/swaps/listings';
+import * as nearby from '../../src/lib/server/swaps/nearby';
+import * as transitions from '../../src/lib/server/swaps/listing-transitions';
 import * as threads from '../../src/lib/server/swaps/threads';
 import * as blocks from '../../src/lib/server/swaps/blocks';
 import * as reports from '../../src/lib/server/swaps/reports';
 import * as notifications from '../../src/lib/server/swaps/notifications';
-import { SwapError } from '../../src/lib/server/swaps/errors';
+import * as moderation from '../../src/lib/server/swaps/moderation';
+import * as restricted from '../../src/lib/server/swaps/restricted';
+import * as cards from '../../src/lib/server/swaps/listing-cards';
+import * as audit from '../../src/lib/server/audit';
+import { DAY_MS } from '../../src/lib/swaps/listing';
+import { DomainError } from '../../src/lib/errors';
 import { haversineDistance } from '../../src/lib/swaps/distance';
-import { formatDistance } from '../../src/lib/swaps/display';
-import { EMPTY_FILTER, type BoardFilter } from '../../src/lib/swaps/board';
+import { DISTANCE_BANDS, labelOf, radiusReachMetres, shownMetres } from '../../src/lib/swaps/display';
+import { parseBoardQuery, type BoardFilter } from '../../src/lib/swaps/board-filter';
 import type { LatLng } from '../../src/lib/club/location';
 import { request } from '../helpers/http';
 import { mailsTo, waitForMail } from '../helpers/mail';
 import { makePerson } from '../helpers/people';
 import { createListing, memberAt, restrictedPlant, token, viewerOf } from '../helpers/swaps';
 
-const filter = (over: Partial<BoardFilter>): BoardFilter => ({ ...EMPTY_FILTER, ...over });
+const filter = (over: Partial<BoardFilter>): BoardFilter => ({ ...parseBoardQuery(new URLSearchParams()), ...over });
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** The mail fake's messages to an address once there are at least `n` (newest first). */
@@ -46,21 +52,22 @@ function gridAround(centre: LatLng, latSteps: number, lngSteps: number): LatLng[
 }
 
 describe('swap board: nearby search', () => {
-	test('a listing just inside the radius is found and one just outside is not, by the exact haversine figure, nearest first', async () => {
+	test('a radius keeps every listing shown at that distance or nearer, by the haversine figure rounded as shown, nearest first', async () => {
 		// Over the South Atlantic, away from every other test's listings.
 		const centre = { lat: -41.37, lng: -22.61 };
-		const radius = 25_000;
-		// Of the grid points, the farthest still within 25 km and the nearest beyond it, by the
-		// haversine function checked against @turf/distance in src/lib/swaps/distance.test.ts
-		// (here about 12 m inside and 3 m outside; a 25 km circle passes enough grid points).
+		// "Within 25 km" keeps what is shown as "about 25 km" (up to 27.5 km) and nothing shown as
+		// "about 30 km". Of the grid points, the farthest still below 27.5 km and the nearest beyond
+		// it, by the haversine function checked against @turf/distance in src/lib/swaps/distance.test.ts
+		// (within a few tens of metres of the edge; the circle passes enough grid points).
+		const reach = radiusReachMetres(25);
 		const scored = gridAround(centre, 40, 50).map((p) => ({ p, d: haversineDistance(centre, p) }));
-		const inside = scored.filter((s) => s.d <= radius).sort((a, b) => b.d - a.d)[0]!;
-		const outside = scored.filter((s) => s.d > radius).sort((a, b) => a.d - b.d)[0]!;
-		expect(inside.d).toBeGreaterThan(radius - 30);
-		expect(outside.d).toBeLessThan(radius + 30);
+		const inside = scored.filter((s) => s.d < reach).sort((a, b) => b.d - a.d)[0]!;
+		const outside = scored.filter((s) => s.d >= reach).sort((a, b) => a.d - b.d)[0]!;
+		expect(inside.d).toBeGreaterThan(reach - 30);
+		expect(outside.d).toBeLessThan(reach + 30);
 		const closestTo = (metres: number) => [...scored].sort((a, b) => Math.abs(a.d - metres) - Math.abs(b.d - metres))[0]!;
 		const near = closestTo(3_000);
-		const middle = closestTo(12_000);
+		const middle = closestTo(11_000);
 
 		const viewer = await memberAt(centre, 'nearby-viewer');
 		const tag = token('nearby');
@@ -70,21 +77,21 @@ describe('swap board: nearby search', () => {
 			made[name] = await createListing(owner, { title: `${tag} ${name}` });
 		}
 
-		const within25 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 25 }));
+		const within25 = await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 25 }));
 		expect(within25.order).toBe('distance');
 		expect(within25.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside]);
 		expect(within25.total).toBe(3);
-		const within50 = await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
+		const within50 = await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
 		expect(within50.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside, made.outside]);
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near]);
-		// Labels are coarse: "about 25 km" either side of the edge.
-		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => formatDistance(s.d).text));
-		expect(within50.rows.slice(2).map((r) => r.distance?.text)).toEqual(['about 25 km', 'about 25 km']);
+		// About 11 km away is shown as "about 10 km", so it is within 10 km.
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near, made.middle]);
+		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => labelOf(shownMetres(s.d)).text));
+		expect(within50.rows.map((r) => r.distance?.text)).toEqual(['about 3 km', 'about 10 km', 'about 25 km', 'about 30 km']);
 
 		// The SQL distance is the haversine figure to well under a millimetre.
 		for (const [name, spot] of Object.entries({ inside, outside })) {
 			const [row] = await db
-				.select({ d: board.distanceSql(centre) })
+				.select({ d: nearby.distanceSql(centre) })
 				.from(listingTable)
 				.where(eq(listingTable.id, made[name]!));
 			expect(Math.abs(Number(row!.d) - spot.d)).toBeLessThan(1e-4);
@@ -103,6 +110,28 @@ describe('swap board: nearby search', () => {
 		expect(page).not.toContain(`${tag} outside`);
 	});
 
+	test('the SQL figure is the pure one, at every band edge and its neighbouring doubles', async () => {
+		const next = (x: number, delta: bigint) => new Float64Array(new BigInt64Array([new BigInt64Array(new Float64Array([x]).buffer)[0]! + delta]).buffer)[0]!;
+		const edges = DISTANCE_BANDS.flatMap((b) => (Number.isFinite(b.below) ? [b.below] : []));
+		// Where a figure changes within a band: halfway between two of its figures.
+		const halves = DISTANCE_BANDS.flatMap(({ below, step }, i) => {
+			if (step === 0) return [];
+			const first = Math.ceil((DISTANCE_BANDS[i - 1]!.below - step / 2) / step);
+			return Array.from({ length: 12 }, (_, k) => (first + k) * step + step / 2).filter((m) => m < below);
+		});
+		expect(halves.slice(0, 3)).toEqual([1_500, 2_500, 3_500]);
+		let seed = 5;
+		const random = () => (seed = (seed * 48271) % 2147483647) / 2147483647;
+		const values = [...edges, ...halves].flatMap((m) => [next(m, -1n), m, next(m, 1n)]).concat(Array.from({ length: 60 }, () => random() ** 3 * 2e7));
+		for (let i = 0; i < values.length; i += 100) {
+			const chunk = values.slice(i, i + 100);
+			// A DOUBLE literal (exponent notation), as the haversine expression gives a DOUBLE.
+			const columns = chunk.map((v, k) => sql`${nearby.shownSql(sql.raw(`${v.toExponential(17)}`))} AS ${sql.raw(`s${k}`)}`);
+			const [rows] = (await db.execute(sql`SELECT ${sql.join(columns, sql`, `)}`)) as unknown as [Record<string, number | string>[]];
+			expect(chunk.map((_, k) => Number(rows[0]![`s${k}`]))).toEqual(chunk.map(shownMetres));
+		}
+	});
+
 	test('across the antimeridian, and without a location the board is newest first with no distances', async () => {
 		const west = { lat: -44.12, lng: 179.98 };
 		const east = { lat: -44.12, lng: -179.98 };
@@ -112,12 +141,12 @@ describe('swap board: nearby search', () => {
 		const id = await createListing(owner, { title: `${tag} across` });
 		// 0.04° of longitude at 44° S: about 3.2 km, straight across ±180°.
 		expect(haversineDistance(west, east)).toBeLessThan(5_000);
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 5 }))).rows.map((r) => r.id)).toEqual([id]);
-		expect((await board.search(viewerOf(viewer), filter({ q: tag, radiusKm: 2 }))).rows).toEqual([]);
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 5 }))).rows.map((r) => r.id)).toEqual([id]);
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 2 }))).rows).toEqual([]);
 
 		const nowhere = await memberAt(null, 'no-location');
 		const second = await createListing(owner, { title: `${tag} later` });
-		const newest = await board.search(viewerOf(nowhere), filter({ q: tag, radiusKm: 2 }));
+		const newest = await nearby.search(viewerOf(nowhere), filter({ q: tag, radiusKm: 2 }));
 		expect(newest.order).toBe('newest');
 		expect(newest.rows.map((r) => r.id)).toEqual([second, id]);
 		expect(newest.rows[0]!.distance).toBeNull();
@@ -234,7 +263,7 @@ describe('swap restricted species', () => {
 			const thread = await (await request(`/swaps/threads/${threadId}`, { cookie: person.cookie })).text();
 			expect(thread).toContain(warning);
 		}
-		const card = (await board.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radiusKm: 2 }))).rows.find((r) => r.id === id);
+		const card = (await nearby.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radiusKm: 2 }))).rows.find((r) => r.id === id);
 		expect(card?.restriction).toBe('cautioned');
 	});
 });
@@ -256,17 +285,17 @@ describe('swap blocks', () => {
 		expect(await message.text()).toContain('This member is not taking requests or messages from you.');
 		const ask = await request(`/swaps/${second}?/request`, { cookie: pest.cookie, form: { body: 'And this one?' } });
 		expect(ask.status).toBe(403);
-		await expect(threads.post(viewerOf(pest), threadId, 'again')).rejects.toBeInstanceOf(SwapError);
+		await expect(threads.post(viewerOf(pest), threadId, 'again')).rejects.toBeInstanceOf(DomainError);
 		await expect(threads.request(viewerOf(pest), second, 'again')).rejects.toMatchObject({ status: 403, code: 'blocked' });
 		// Writing is closed both ways, and the blocker cannot accept them either.
 		await expect(threads.post(viewerOf(owner), threadId, 'hello?')).rejects.toMatchObject({ code: 'you-blocked' });
-		await expect(listings.accept(viewerOf(owner), threadId)).rejects.toMatchObject({ status: 403 });
+		await expect(transitions.accept(viewerOf(owner), threadId)).rejects.toMatchObject({ status: 403 });
 		const messages = await db.select().from(swapMessages).where(eq(swapMessages.threadId, threadId));
 		expect(messages).toHaveLength(1);
 
-		const ownerBoard = await board.search(viewerOf(owner), filter({ q: 'pest listing', radiusKm: 5 }));
+		const ownerBoard = await nearby.search(viewerOf(owner), filter({ q: 'pest listing', radiusKm: 5 }));
 		expect(ownerBoard.rows.map((r) => r.id)).not.toContain(pestListing);
-		const otherBoard = await board.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radiusKm: 5 }));
+		const otherBoard = await nearby.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radiusKm: 5 }));
 		expect(otherBoard.rows.map((r) => r.id)).toContain(pestListing);
 
 		await blocks.unblock(viewerOf(owner), pest.id);
@@ -306,7 +335,7 @@ describe('swap requests: accepting one', () => {
 			expect((await request(`/swaps/threads/${otherThreads[i]}?/send`, { cookie: o.cookie, form: { body: 'still there?' } })).status).toBe(409);
 		}
 		// A second acceptance is refused by the state machine.
-		await expect(listings.accept(viewerOf(owner), otherThreads[0]!)).rejects.toMatchObject({ status: 409, code: 'already-reserved' });
+		await expect(transitions.accept(viewerOf(owner), otherThreads[0]!)).rejects.toMatchObject({ status: 409, code: 'already-reserved' });
 	});
 });
 
@@ -328,7 +357,7 @@ describe('swap message mail', () => {
 
 		// The periodic job an hour later mails the one still unread.
 		const later = new Date(Date.now() + 61 * 60_000);
-		expect(await notifications.sendDue(later)).toBeGreaterThanOrEqual(1);
+		expect(await notifications.sendDue({ now: later })).toBeGreaterThanOrEqual(1);
 		const [second] = await mailsOnceThere(owner.email, 2);
 		expect(second!.subject).toBe('New message about “Batched stems”');
 		expect(second!.text).toContain('Second message, right after');
@@ -337,7 +366,7 @@ describe('swap message mail', () => {
 		// Read on the site before its hour is up: no mail at all.
 		await threads.post(viewerOf(asker), threadId, 'Third message');
 		expect((await request(`/api/swaps/threads/${threadId}/messages`, { cookie: owner.cookie, accept: 'application/json' })).status).toBe(200);
-		await notifications.sendDue(new Date(Date.now() + 125 * 60_000));
+		await notifications.sendDue({ now: new Date(Date.now() + 125 * 60_000) });
 		await sleep(3_000);
 		expect(await mailsTo(owner.email)).toHaveLength(2);
 		expect(await threads.unreadCount(owner.id)).toBe(0);
@@ -360,11 +389,11 @@ describe('swap message mail', () => {
 		await threads.request(viewerOf(asker), c, 'Four');
 
 		const queuedFor = async (address: string) => (await db.select().from(outbox).where(eq(outbox.toAddress, address))).length;
-		await notifications.sendDue(new Date(now.getTime() + 20 * 60_000));
+		await notifications.sendDue({ now: new Date(now.getTime() + 20 * 60_000) });
 		expect(await queuedFor(owner.email)).toBe(0);
-		await notifications.sendDue(new Date(now.getTime() + 31 * 60_000));
+		await notifications.sendDue({ now: new Date(now.getTime() + 31 * 60_000) });
 		expect(await queuedFor(owner.email)).toBe(1);
-		await notifications.sendDue(new Date(now.getTime() + 41 * 60_000));
+		await notifications.sendDue({ now: new Date(now.getTime() + 41 * 60_000) });
 		expect(await queuedFor(owner.email)).toBe(1);
 		const summary = await waitForMail(owner.email, { subject: /3 new swap messages/ });
 		expect(summary.text).toContain('“Summary one”: 1 from');
@@ -374,5 +403,104 @@ describe('swap message mail', () => {
 		expect(await mailsTo(quiet.email)).toHaveLength(0);
 		const pending = await db.select().from(outbox).where(like(outbox.toAddress, quiet.email));
 		expect(pending).toHaveLength(0);
+	});
+});
+
+describe('swap reservations past their date', () => {
+	test('the owner is asked to settle one, on the listing and on My swaps; the other member and everyone else are not', async () => {
+		const owner = await memberAt({ lat: -28.4, lng: -3.3 }, 'overdue-owner');
+		const asker = await memberAt({ lat: -28.41, lng: -3.3 }, 'overdue-asker');
+		const other = await memberAt({ lat: -28.42, lng: -3.3 }, 'overdue-other');
+		const day = (n: number) => new Date(Date.now() + n * DAY_MS);
+		// Posted ten days ago until two days later; the request was accepted the day after posting.
+		const id = await createListing(owner, { title: 'Overdue stems', availableUntil: day(-8) }, { now: day(-10) });
+		const threadId = await threads.request(viewerOf(asker), id, 'Me please', { now: day(-9.5) });
+		await transitions.accept(viewerOf(owner), threadId, { now: day(-9) });
+		const fresh = await createListing(owner, { title: 'Fresh stems' });
+
+		const own = await cards.listOwn(viewerOf(owner));
+		expect(own.find((l) => l.id === id)).toMatchObject({ state: 'reserved', overdue: true });
+		expect(own.find((l) => l.id === fresh)).toMatchObject({ state: 'open', overdue: false });
+		const mine = await (await request('/swaps/mine', { cookie: owner.cookie })).text();
+		expect(mine.match(/data-testid="reservation-overdue"/g)).toHaveLength(1);
+		expect(await (await request(`/swaps/${id}`, { cookie: owner.cookie })).text()).toContain('data-testid="reservation-overdue"');
+		for (const person of [asker, other]) expect(await (await request(`/swaps/${id}`, { cookie: person.cookie })).text()).not.toContain('reservation-overdue');
+		expect(await (await request(`/swaps/${fresh}`, { cookie: owner.cookie })).text()).not.toContain('reservation-overdue');
+	});
+});
+
+describe('swap moderation and the restricted list: admins only, and audited', () => {
+	test('withdrawing a reported listing records the admin, the reason and the reports it closed', async () => {
+		const owner = await memberAt({ lat: -26.2, lng: -1.1 }, 'moderated-owner');
+		const reporter = await memberAt({ lat: -26.21, lng: -1.1 }, 'moderated-reporter');
+		const admin = await makePerson({ role: 'admin', label: 'moderating-admin' });
+		const id = await createListing(owner, { title: 'Doubtful regulator' });
+		const reportId = await reports.reportListing(viewerOf(reporter), id, 'It says it leaks gas.');
+		expect(await reports.openCount(viewerOf(admin))).toBeGreaterThanOrEqual(1);
+		await expect(reports.openCount(viewerOf(reporter))).rejects.toMatchObject({ status: 404 });
+		await expect(moderation.withdraw(viewerOf(reporter), id, 'I do not like it')).rejects.toMatchObject({ status: 403 });
+
+		const page = await (await request('/admin/reports', { cookie: admin.cookie })).text();
+		expect(page).toContain('data-testid="open-report-count"');
+		const tooShort = await request('/admin/reports?/decide', {
+			cookie: admin.cookie,
+			form: { decision: 'withdraw', reportId: String(reportId), reason: 'no' }
+		});
+		expect(tooShort.status).toBe(400);
+		expect(await tooShort.text()).toContain('Give the owner a reason (at least a few words).');
+		const done = await request('/admin/reports?/decide', {
+			cookie: admin.cookie,
+			form: { decision: 'withdraw', reportId: String(reportId), reason: 'A leaking gas part is not for the board.' }
+		});
+		expect(done.status).toBe(200);
+
+		const [withdrawn] = await db.select().from(listingTable).where(eq(listingTable.id, id));
+		expect(withdrawn!.state).toBe('withdrawn');
+		expect(await audit.trail({ type: 'listing', id })).toMatchObject([
+			{ action: 'listing.withdraw', actorId: admin.id, detail: { reason: 'A leaking gas part is not for the board.', from: 'open' } }
+		]);
+		expect(await audit.trail({ type: 'swap_report', id: reportId })).toMatchObject([{ action: 'report.withdraw-listing', actorId: admin.id }]);
+		await waitForMail(owner.email, { subject: /withdrawn by the club's admins/ });
+	});
+
+	test('restricted species entries: a member may not change them; an admin’s add, change and removal are audited', async () => {
+		const member = await makePerson({ label: 'restricted-member' });
+		const admin = await makePerson({ role: 'admin', label: 'restricted-admin' });
+		const plant = await restrictedPlant('cautioned');
+		const input = {
+			speciesId: plant.speciesId,
+			jurisdiction: `Other land ${token('j')}`,
+			level: 'banned' as const,
+			source: 'Other land weed order',
+			note: '',
+			checkedOn: '2026-11-30',
+			checkBasis: 'source' as const
+		};
+		await expect(restricted.add(viewerOf(member), input)).rejects.toMatchObject({ status: 403 });
+		await expect(restricted.setClubJurisdictions(viewerOf(member), [])).rejects.toMatchObject({ status: 403 });
+		const entryId = await restricted.add(viewerOf(admin), input);
+		expect((await restricted.list()).find((e) => e.id === entryId)).toMatchObject({ scientificName: plant.name, level: 'banned' });
+		await expect(restricted.add(viewerOf(admin), input)).rejects.toMatchObject({ status: 409, code: 'duplicate', fields: { speciesName: expect.any(String) } });
+
+		// The page's form for one entry: a check in the future is refused next to that entry.
+		const future = await request('/admin/restricted?/update', {
+			cookie: admin.cookie,
+			form: { id: String(entryId), level: 'cautioned', source: 'Other land weed order', note: '', checkedOn: '2999-01-01', checkBasis: 'source' }
+		});
+		expect(future.status).toBe(400);
+		expect(await future.text()).toContain('A check cannot be in the future.');
+		await restricted.update(viewerOf(admin), entryId, {
+			level: 'cautioned',
+			source: input.source,
+			note: 'Watch it.',
+			checkedOn: '2026-12-01',
+			checkBasis: 'memory'
+		});
+		await restricted.remove(viewerOf(admin), entryId);
+		expect((await audit.trail({ type: 'restricted_species', id: entryId })).map((e) => [e.action, e.actorId])).toEqual([
+			['restricted.add', admin.id],
+			['restricted.update', admin.id],
+			['restricted.remove', admin.id]
+		]);
 	});
 });

@@ -43,12 +43,5 @@ export const profileSchema = z
 		}
 	});
 
-/** zod issues as one message per field, for showing next to each input. */
-export function fieldErrors(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string> {
-	const errors: Record<string, string> = {};
-	for (const issue of issues) {
-		const key = issue.path.map(String).join('.') || 'form';
-		errors[key] ??= issue.message;
-	}
-	return errors;
-}
+/** The profile form as the server receives it. */
+export type ProfileInput = z.output<typeof profileSchema>;

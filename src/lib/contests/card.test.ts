@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
-import { checkDraftFields, emptyCardFields, normaliseFields, parseScoreText, sameFields } from './card';
+import { DomainError } from '../errors';
+import { checkDraftFields, emptyCardFields, normaliseFields, parseScoreText, readCardCorrection, sameFields } from './card';
 import type { Rubric } from './rubric';
 
 const rubric: Rubric = [
@@ -39,5 +40,27 @@ describe('draft fields', () => {
 		expect(sameFields(n, { ...n, panelNote: 'x' })).toBe(false);
 		expect(sameFields(n, { ...n, comments: { '1': '', '2': 'y' } })).toBe(false);
 		expect(sameFields(n, normaliseFields(rubric, { scores: { '1': 4, '2': null } }))).toBe(true);
+	});
+});
+
+describe('the admin’s correction form', () => {
+	const form = (fields: Record<string, string>) => {
+		const data = new FormData();
+		for (const [k, v] of Object.entries(fields)) data.append(k, v);
+		return data;
+	};
+	test('every criterion needs a score; the panel note is never the admin’s', () => {
+		expect(readCardCorrection(rubric, form({ 'score-1': '8', 'score-2': '4,5', 'comment-1': 'Deep', entrantComment: 'Well done' }))).toEqual({
+			scores: { '1': 8, '2': 4.5 },
+			comments: { '1': 'Deep', '2': '' },
+			entrantComment: 'Well done',
+			panelNote: ''
+		});
+		expect(() => readCardCorrection(rubric, form({ 'score-1': '11' }))).toThrow(DomainError);
+		try {
+			readCardCorrection(rubric, form({ 'score-1': '11' }));
+		} catch (e) {
+			expect((e as DomainError).fields).toEqual({ 'score-1': 'Depth: the most is 10.', 'score-2': 'Finish: give a score.' });
+		}
 	});
 });

@@ -1,5 +1,6 @@
 // What a scorecard holds, as the browser edits it and the autosave endpoint receives it.
 import { z } from 'zod';
+import { invalid, type FieldErrors } from '../errors';
 import { isOnScoreStep, type Rubric } from './rubric';
 import { validateScorecard, type ScoreSheet } from './scoring';
 
@@ -91,4 +92,26 @@ export function parseScoreText(text: string, label: string, maxPoints: number): 
 	if (value > maxPoints) return { value: null, error: `${label}: the most is ${maxPoints}.` };
 	if (!isOnScoreStep(value)) return { value: null, error: `${label}: score in whole or half points.` };
 	return { value, error: null };
+}
+
+/** The field names of the admin's correction form: a score and a comment per criterion. */
+export const scoreFieldName = (criterionId: string) => `score-${criterionId}`;
+export const commentFieldName = (criterionId: string) => `comment-${criterionId}`;
+
+/**
+ * Reads the admin's correction of a card (every criterion needs a score; the note for the panel
+ * is not the admin's to change), or throws the refusal that puts each message at its score.
+ */
+export function readCardCorrection(criteria: readonly { id: string; label: string; maxPoints: number }[], data: FormData): CardFields {
+	const errors: FieldErrors = {};
+	const fields: CardFields = { scores: {}, comments: {}, entrantComment: String(data.get('entrantComment') ?? ''), panelNote: '' };
+	for (const k of criteria) {
+		const read = parseScoreText(String(data.get(scoreFieldName(k.id)) ?? ''), k.label, k.maxPoints);
+		if (read.error) errors[scoreFieldName(k.id)] = read.error;
+		else if (read.value === null) errors[scoreFieldName(k.id)] = `${k.label}: give a score.`;
+		fields.scores[k.id] = read.value;
+		fields.comments[k.id] = String(data.get(commentFieldName(k.id)) ?? '');
+	}
+	if (Object.keys(errors).length) throw invalid(errors);
+	return fields;
 }

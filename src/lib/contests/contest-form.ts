@@ -1,7 +1,8 @@
 // The admin's contest form: settings, the rubric (reorderable criteria with a tie-break order)
 // and the categories, as typed (strings, kept on error) and as validated input.
+import { invalid } from '../errors';
 import { validateRule } from './eligibility';
-import { validateWindows, type ContestWindows } from './lifecycle';
+import { addDays, validateWindows, type ContestWindows } from './lifecycle';
 import { isOnScoreStep, validateRubric } from './rubric';
 import type { AggregationMethod } from './aggregate';
 
@@ -231,12 +232,19 @@ export function parseContestDraft(draft: ContestDraft, options: { locked?: boole
 	};
 }
 
+/** Reads the contest form, or throws the refusal that puts each message at its field (the draft is what the form shows again). */
+export function readContestForm(data: FormData, options: { locked?: boolean } = {}): ContestInput {
+	const parsed = parseContestDraft(draftFromForm(data), options);
+	if (!parsed.ok) throw invalid(parsed.errors);
+	return parsed.input;
+}
+
 let keyCounter = 0;
 /** A key for a new row, unique within the page. */
 export const newKey = (prefix: string) => `${prefix}${Date.now().toString(36)}${(++keyCounter).toString(36)}`;
 
 export function emptyContestDraft(today: string): ContestDraft {
-	const day = (offset: number) => new Date(new Date(`${today}T00:00:00Z`).getTime() + offset * 86_400_000).toISOString().slice(0, 10);
+	const day = (offset: number) => addDays(today, offset);
 	return {
 		title: '',
 		rules: '',

@@ -2,6 +2,7 @@
 // and judging windows never move a contest on their own: they limit what members and judges may
 // do, and when one has passed without the state moving, the admins are reminded.
 
+import { dayOf } from '../dates';
 import { validateRubric, type Rubric } from './rubric';
 
 export const CONTEST_STATES = ['draft', 'open', 'judging', 'published', 'archived'] as const;
@@ -97,13 +98,15 @@ const DAY_MS = 86_400_000;
 export function isCalendarDay(value: string): boolean {
 	if (!ISO_DAY.test(value)) return false;
 	const d = new Date(`${value}T00:00:00Z`);
-	return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === value;
+	return !Number.isNaN(d.getTime()) && dayOf(d) === value;
 }
 
 /** The instant a window day starts (00:00 UTC). */
 export const startOfDay = (day: string) => new Date(`${day}T00:00:00Z`);
 /** The instant a window's last day ends: 00:00 UTC of the next day, exclusive. */
 export const endOfDay = (day: string) => new Date(startOfDay(day).getTime() + DAY_MS);
+/** The calendar day `days` after `day` (before it when negative). */
+export const addDays = (day: string, days: number) => dayOf(new Date(startOfDay(day).getTime() + days * DAY_MS));
 
 /** Problems with the windows, keyed by field. */
 export function validateWindows(w: ContestWindows): Partial<Record<keyof ContestWindows, string>> {
@@ -208,9 +211,8 @@ export interface TransitionContext {
 	overrideReason?: string | null;
 }
 
-export const OVERRIDE_REASON_MIN = 10;
-/** Corrections after publication need a reason as long. */
-export const CORRECTION_REASON_MIN = OVERRIDE_REASON_MIN;
+/** The shortest reason an admin may give for a step kept in the log: publishing with cards missing, a correction after publication. */
+export const AUDITED_REASON_MIN = 10;
 
 /** Why a transition cannot be taken now; empty when it can. */
 export function transitionProblems(name: TransitionName, ctx: TransitionContext): string[] {
@@ -231,8 +233,7 @@ export function transitionProblems(name: TransitionName, ctx: TransitionContext)
 	if (name === 'publish' && !ctx.judgingComplete) {
 		const reason = (ctx.overrideReason ?? '').trim();
 		if (!reason) problems.push('Some cards are still missing. Wait for them, or publish anyway and give the reason.');
-		else if (reason.length < OVERRIDE_REASON_MIN)
-			problems.push(`Give a reason of at least ${OVERRIDE_REASON_MIN} characters for publishing with cards missing.`);
+		else if (reason.length < AUDITED_REASON_MIN) problems.push(`Give a reason of at least ${AUDITED_REASON_MIN} characters for publishing with cards missing.`);
 	}
 	return problems;
 }

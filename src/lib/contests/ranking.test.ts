@@ -1,6 +1,18 @@
 import jStat from 'jstat';
 import { describe, expect, test } from 'vitest';
-import { comparableScore, placesForGroups, rankCategory, rankValues, SCORE_DECIMALS, type RankableEntry } from './ranking';
+import { comparableScore, placesForGroups, rankCategory, SCORE_DECIMALS, type RankableEntry, type RankingStyle } from './ranking';
+
+/** Places of plain scores in input order, ranked by rankCategory without tie-breaks. */
+function rankValues(scores: readonly number[], style: RankingStyle, decimals?: number): (number | null)[] {
+	const id = (i: number) => String(i).padStart(3, '0');
+	const ranked = rankCategory(
+		scores.map((score, i) => ({ entryId: id(i), score, criteria: {} })),
+		[],
+		{ style, ...(decimals === undefined ? {} : { decimals }) }
+	);
+	const place = new Map(ranked.map((r) => [r.entryId, r.place]));
+	return scores.map((_, i) => place.get(id(i)) ?? null);
+}
 
 describe('ranking styles', () => {
 	// "Ranking" article of a general encyclopaedia (Wikipedia): A ranks ahead of B and C, which

@@ -41,16 +41,6 @@ export function placesForGroups(groupSizes: readonly number[], style: RankingSty
 	return places;
 }
 
-/** Places of plain values, highest value first, returned in input order. */
-export function rankValues(values: readonly number[], style: RankingStyle, decimals: number = SCORE_DECIMALS): number[] {
-	const keys = values.map((v) => comparableScore(v, decimals));
-	const distinct = [...new Set(keys)].sort((a, b) => b - a);
-	const sizes = distinct.map((d) => keys.filter((k) => k === d).length);
-	const places = placesForGroups(sizes, style);
-	const placeOf = new Map(distinct.map((d, i) => [d, places[i]!]));
-	return keys.map((k) => placeOf.get(k)!);
-}
-
 export interface RankableEntry {
 	entryId: string;
 	/** The entry's aggregated score; null when no card was submitted (the entry gets no place). */

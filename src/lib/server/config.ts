@@ -6,6 +6,9 @@ import { z } from 'zod';
 
 const bool = z.enum(['1', '0', 'true', 'false', 'yes', 'no', 'on', 'off']).transform((v) => ['1', 'true', 'yes', 'on'].includes(v));
 
+/** An empty variable (`NAME=` in a .env file) counts as unset. */
+const unsetIfEmpty = <T extends z.ZodType>(inner: T) => z.preprocess((v) => (v === '' ? undefined : v), inner);
+
 const schema = z.object({
 	DATABASE_URL: z.string().url().default('mysql://riparia@127.0.0.1:3307/riparia'),
 	ORIGIN: z.string().url().default('http://127.0.0.1:5173'),
@@ -27,7 +30,13 @@ const schema = z.object({
 	SIGNIN_LIMIT_PER_CLIENT: z.coerce.number().int().positive().default(20),
 	OUTBOX_WORKER: bool.default(true),
 	OUTBOX_POLL_MS: z.coerce.number().int().positive().default(2000),
-	CLUB_NAME: z.string().default('Riparia club')
+	CLUB_NAME: z.string().default('Riparia club'),
+	/** Set by `npm run bench`: responses carry the number of SQL statements they took. */
+	BENCH: bool.default(false),
+	/** Prometheus metrics on their own listener, bound to 127.0.0.1 only; unset: no listener. */
+	METRICS_PORT: unsetIfEmpty(z.coerce.number().int().min(1).max(65535).optional()),
+	/** Bearer token for /metrics on the app's own port; unset: /metrics there answers 404. */
+	METRICS_TOKEN: unsetIfEmpty(z.string().min(16, 'use at least 16 characters (e.g. openssl rand -hex 24)').optional())
 });
 
 export type Config = z.infer<typeof schema>;
@@ -44,6 +53,23 @@ export function config(): Config {
 		cached = parsed.data;
 	}
 	return cached;
+}
+
+const logSchema = z.object({
+	LOG_FORMAT: z.enum(['json', 'pretty']).optional(),
+	LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+	NODE_ENV: z.string().optional()
+});
+
+/**
+ * How to log: JSON lines in production (NODE_ENV=production), readable lines otherwise; LOG_FORMAT
+ * overrides either way. Read apart from config() and never throws, so an invalid environment can
+ * itself be logged.
+ */
+export function logSettings(env: Record<string, string | undefined> = process.env): { format: 'json' | 'pretty'; level: string } {
+	const parsed = logSchema.safeParse(env);
+	const values = parsed.success ? parsed.data : { LOG_FORMAT: undefined, LOG_LEVEL: 'info', NODE_ENV: env.NODE_ENV };
+	return { format: values.LOG_FORMAT ?? (values.NODE_ENV === 'production' ? 'json' : 'pretty'), level: values.LOG_LEVEL };
 }
 
 /** Absolute URL for links that leave the site (e-mail, feeds). */

@@ -176,6 +176,15 @@ describe('markdown rendering keeps nothing harmful', () => {
 		expect(structuralProblems(html)).toEqual([]);
 	});
 
+	test('without pictures, our own photos go too, with their alt text; hostile input stays harmless', () => {
+		expect(renderMarkdown('Stones. ![Front of my tank](/media/12/medium) **Stems.**', { images: false })).toBe('<p>Stones.  <strong>Stems.</strong></p>\n');
+		for (const vector of VECTORS) {
+			const html = renderMarkdown(vector, { images: false });
+			expect(structuralProblems(html)).toEqual([]);
+			expect(html).not.toMatch(/<img/i);
+		}
+	});
+
 	test('hostile links keep their text but lose the link target', () => {
 		expect(renderMarkdown('[click](javascript:alert(1))')).toBe(`<p><a rel="${LINK_REL}">click</a></p>\n`);
 		expect(renderMarkdown('![x](https://evil.example/t.png) after')).toBe('<p> after</p>\n');

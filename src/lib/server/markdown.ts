@@ -75,8 +75,15 @@ const sanitizeOptions: sanitizeHtml.IOptions = {
 	exclusiveFilter: (frame) => frame.tag === 'img' && !ownMediaPath(frame.attribs.src)
 };
 
-/** Sanitised HTML for a member's markdown. */
-export function renderMarkdown(source: string): string {
+// Without pictures: every img is dropped whole, its alt text too.
+const withoutImagesOptions: sanitizeHtml.IOptions = { ...sanitizeOptions, exclusiveFilter: (frame) => frame.tag === 'img' };
+
+/**
+ * Sanitised HTML for a member's markdown. `images: false` leaves pictures out, for readers who must
+ * not learn which photos the text points at (a judge reading an entrant's statement: a photo's
+ * address can name the tank it belongs to).
+ */
+export function renderMarkdown(source: string, options: { images?: boolean } = {}): string {
 	const html = marked.parse(source.slice(0, MARKDOWN_MAX_CHARS)) as string;
-	return sanitizeHtml(html, sanitizeOptions);
+	return sanitizeHtml(html, options.images === false ? withoutImagesOptions : sanitizeOptions);
 }

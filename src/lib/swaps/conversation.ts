@@ -14,6 +14,9 @@ export function conversationStatus(listing: Listing, threadId: string, now: Date
 	return 'closed';
 }
 
+/** Who a note from the site (rather than from a member) is shown as coming from. */
+export const SITE_SENDER = 'Riparia';
+
 /** Whether the two members may still write: not once another request was chosen or the listing closed. */
 export const canWrite = (status: ConversationStatus) => status === 'waiting' || status === 'accepted' || status === 'handed-over';
 

@@ -1,7 +1,7 @@
 import distance from '@turf/distance';
 import { describe, expect, test } from 'vitest';
 import type { LatLng } from '$lib/club/location';
-import { boundingBox, centralAngle, haversineDistance, isInBoundingBox, MEAN_EARTH_RADIUS_M } from './distance';
+import { boundingBox, centralAngle, haversineDistance, MEAN_EARTH_RADIUS_M, type BoundingBox } from './distance';
 
 /** Park–Miller generator: the same "random" points on every run. */
 function random(seed: number) {
@@ -77,6 +77,10 @@ describe('haversineDistance', () => {
 		expect(haversineDistance({ lat: 0, lng: 179.9 }, { lat: 0, lng: -179.9 })).toBeCloseTo((0.2 * Math.PI * MEAN_EARTH_RADIUS_M) / 180, 6);
 	});
 });
+
+/** The test the board's SQL pre-filter makes (server/swaps/nearby.ts, `boxSql`), for longitudes in [−180, 180]. */
+const isInBoundingBox = (point: LatLng, box: BoundingBox) =>
+	point.lat >= box.minLat && point.lat <= box.maxLat && box.lngRanges.some((r) => point.lng >= r.min && point.lng <= r.max);
 
 describe('boundingBox', () => {
 	test('every point within the radius lies in the box (random centres, radii and points)', () => {

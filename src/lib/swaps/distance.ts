@@ -105,8 +105,3 @@ export function boundingBox(center: LatLng, radiusMetres: number, radius: number
 	}
 	return { ...box, lngRanges: [{ min: minLng, max: maxLng }], crossesAntimeridian: false };
 }
-
-/** The same test the SQL pre-filter makes, for points with longitude in [−180, 180]. */
-export function isInBoundingBox(point: LatLng, box: BoundingBox): boolean {
-	return point.lat >= box.minLat && point.lat <= box.maxLat && box.lngRanges.some((r) => point.lng >= r.min && point.lng <= r.max);
-}

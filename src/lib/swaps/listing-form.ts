@@ -10,6 +10,7 @@ import {
 	type ListingCategory,
 	type ListingKind
 } from './listing';
+import { dayOf } from '$lib/dates';
 import { checkQuantity, unitsFor, type Quantity } from './quantity';
 import { checkTerms, type ListingTerms } from './terms';
 
@@ -77,8 +78,6 @@ export function draftFromForm(form: FormData): ListingDraft {
 	return Object.fromEntries(FIELDS.map((f) => [f, String(form.get(f) ?? '')])) as unknown as ListingDraft;
 }
 
-export const dateOnly = (d: Date) => d.toISOString().slice(0, 10);
-
 export function emptyDraft(category: ListingCategory, now: Date, pickupAreaId: number | null): ListingDraft {
 	return {
 		kind: 'offer',
@@ -93,7 +92,7 @@ export function emptyDraft(category: ListingCategory, now: Date, pickupAreaId: n
 		terms: 'free',
 		termsNote: '',
 		pickupAreaId: pickupAreaId === null ? '' : String(pickupAreaId),
-		availableUntil: dateOnly(defaultAvailableUntil(category, now)),
+		availableUntil: dayOf(defaultAvailableUntil(category, now)),
 		tankId: ''
 	};
 }
@@ -106,7 +105,7 @@ export function untilEndOf(day: string, now: Date): Date | null {
 	const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(day);
 	if (!m) return null;
 	const start = Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]));
-	if (dateOnly(new Date(start)) !== day) return null;
+	if (dayOf(new Date(start)) !== day) return null;
 	return new Date(Math.min(start + DAY_MS - 1, now.getTime() + MAX_AVAILABLE_DAYS * DAY_MS));
 }
 

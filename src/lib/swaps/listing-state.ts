@@ -79,12 +79,12 @@ export type TransitionResult = { ok: true; listing: Listing; event: ListingEvent
  * behind both members' backs. The owner confirms the handover or releases the reservation, and a
  * released listing past its date becomes expired then.
  */
-export function effectiveState(listing: Listing, now: Date): ListingState {
+export function effectiveState(listing: Pick<Listing, 'state' | 'availableUntil'>, now: Date): ListingState {
 	return listing.state === 'open' && now.getTime() >= listing.availableUntil.getTime() ? 'expired' : listing.state;
 }
 
-/** A reservation that has run past the listing's date: the UI can nudge the owner to settle it. */
-export function isReservationOverdue(listing: Listing, now: Date): boolean {
+/** A reservation that has run past the listing's date: its owner is asked to settle it (confirm the handover or release it). */
+export function isReservationOverdue(listing: Pick<Listing, 'state' | 'availableUntil'>, now: Date): boolean {
 	return listing.state === 'reserved' && now.getTime() >= listing.availableUntil.getTime();
 }
 

@@ -15,11 +15,6 @@ export function gapPassed(lastMailAt: Date | null, now: Date): boolean {
 	return lastMailAt === null || now.getTime() - lastMailAt.getTime() >= MAIL_GAP_MS;
 }
 
-/** When the next mail may go after one sent at `lastMailAt`. */
-export function nextMailAt(lastMailAt: Date | null, now: Date): Date {
-	return lastMailAt === null ? now : new Date(Math.max(now.getTime(), lastMailAt.getTime() + MAIL_GAP_MS));
-}
-
 export type OnPosted = 'mail-now' | 'later' | 'none';
 
 /**

@@ -19,7 +19,7 @@ export const PICKUP_MAX_DAYS_AHEAD = 60;
 const DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
 const TIME = /^([01]\d|2[0-3]):([0-5]\d)$/;
 
-function dayOf(text: string): number | null {
+function dayNumber(text: string): number | null {
 	const m = DATE.exec(text);
 	if (!m) return null;
 	const t = Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]));
@@ -40,7 +40,7 @@ const minutes = (time: string) => {
  */
 export function checkPickup(p: PickupProposal, now: Date): Partial<Record<keyof PickupProposal, string>> {
 	const errors: Partial<Record<keyof PickupProposal, string>> = {};
-	const day = dayOf(p.on);
+	const day = dayNumber(p.on);
 	const today = Math.floor(now.getTime() / DAY_MS);
 	if (day === null) errors.on = 'Give the day as YYYY-MM-DD.';
 	else if (day < today - 1) errors.on = 'Choose a day that has not passed.';
@@ -60,7 +60,7 @@ const dayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'num
 
 /** "Sat 14 Mar 2026, 10:00–11:00, at the library entrance". */
 export function describePickup(p: PickupProposal): string {
-	const day = dayOf(p.on);
+	const day = dayNumber(p.on);
 	const when = day === null ? p.on : dayFormat.format(new Date(day * DAY_MS)).replace(',', '');
 	return `${when}, ${p.from}–${p.to}, at ${p.place.trim()}`;
 }

@@ -1,18 +1,16 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
+import { z } from 'zod';
 import { requireUser } from '$lib/server/club/guards';
 import * as areas from '$lib/server/club/areas';
 import * as sessions from '$lib/server/club/sessions';
 import * as users from '$lib/server/club/users';
-import { fieldErrors, profileSchema } from '$lib/club/profile';
+import { formAction, parseForm } from '$lib/server/http/forms';
+import { profileSchema } from '$lib/club/profile';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const viewer = requireUser(event);
-	const [row, areaList, active] = await Promise.all([
-		users.getById(viewer.id),
-		areas.list(),
-		sessions.listActive(viewer.id, event.locals.sessionToken ?? undefined)
-	]);
+	const [row, areaList, active] = await Promise.all([users.getById(viewer.id), areas.list(), sessions.listActive(viewer.id, event.locals.sessionToken)]);
 	if (!row) redirect(303, '/signin');
 	return {
 		profile: {
@@ -33,45 +31,30 @@ export const load = (async (event) => {
 	};
 }) satisfies PageServerLoad;
 
+const revokeForm = z.object({ handle: z.string({ message: 'Choose a session.' }).max(64) });
+
 export const actions = {
-	profile: async (event) => {
-		const viewer = requireUser(event);
-		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
-		const parsed = profileSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { profileErrors: fieldErrors(parsed.error.issues), values });
-		const p = parsed.data;
-		let home: { lat: number; lng: number } | null = null;
-		let homeAreaId: number | null = null;
-		if (p.locationMode === 'area' && p.homeAreaId) {
-			const area = await areas.get(p.homeAreaId);
-			if (!area) return fail(400, { profileErrors: { homeAreaId: 'That area no longer exists; choose another.' }, values });
-			homeAreaId = area.id;
-			home = { lat: area.lat, lng: area.lng };
-		} else if (p.locationMode === 'point' && p.homeLat !== null && p.homeLng !== null) {
-			home = { lat: p.homeLat, lng: p.homeLng };
-		}
-		await users.updateProfile(viewer.id, {
-			displayName: p.displayName,
-			units: p.units,
-			homeAreaId,
-			home,
-			notifyMessages: p.notifyMessages,
-			weeklyDigest: p.weeklyDigest,
-			announcements: p.announcements
-		});
-		return { profileSaved: true };
-	},
-	revoke: async (event) => {
-		const viewer = requireUser(event);
-		const handle = String((await event.request.formData()).get('handle') ?? '');
-		const current = event.locals.sessionToken ? sessions.sessionHandle(event.locals.sessionToken) : null;
-		if (!(await sessions.revoke(viewer.id, handle))) return fail(404, { sessionError: 'That session has already ended.' });
-		if (handle === current) redirect(303, '/signin');
-		return { sessionRevoked: true };
-	},
-	revokeAll: async (event) => {
+	profile: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			await users.saveProfile(viewer, parseForm(profileSchema, data));
+			return { profileSaved: true };
+		},
+		{ id: 'profile' }
+	),
+	revoke: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const { handle } = parseForm(revokeForm, data);
+			await sessions.revoke(viewer.id, handle);
+			if (event.locals.sessionToken && handle === sessions.sessionHandle(event.locals.sessionToken)) redirect(303, '/signin');
+			return { sessionRevoked: true };
+		},
+		{ id: 'sessions' }
+	),
+	revokeAll: formAction(async (event) => {
 		const viewer = requireUser(event);
 		await sessions.revokeAll(viewer.id);
 		redirect(303, '/signin?signedOutEverywhere=1');
-	}
+	})
 } satisfies Actions;

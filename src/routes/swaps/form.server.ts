@@ -1,55 +1,51 @@
-// Reading the listing form in the new and edit actions: the draft (kept on error), the checked
-// input, and the photo fields from the PhotoUploader; and the choices the form offers.
-import { fail } from '@sveltejs/kit';
+// The listing form's action for the new and edit pages: reads the draft (kept on error, with the
+// photos shown again), checks it, and hands the checked input to the domain; and the choices the
+// form offers.
+import type { RequestEvent } from '@sveltejs/kit';
 import type { Viewer } from '$lib/server/club/users';
 import * as areas from '$lib/server/club/areas';
 import * as users from '$lib/server/club/users';
 import * as media from '$lib/server/media';
-import { isDomainError } from '$lib/errors';
 import * as tanks from '$lib/server/journals/tanks';
-import { SwapError } from '$lib/server/swaps/errors';
-import type { ListingDetail } from '$lib/server/swaps/listings';
-import { readPhotoFields, type PhotoField } from '$lib/media/form';
-import { dateOnly, draftFromForm, LISTING_PHOTOS_MAX, parseListingDraft, type ListingDraft, type ListingInput } from '$lib/swaps/listing-form';
-import type { UploaderPhoto } from '$lib/media/form';
+import { formAction, refused } from '$lib/server/http/forms';
+import type { ListingDetail } from '$lib/server/swaps/listing-detail';
+import { dayOf } from '$lib/dates';
+import { invalid } from '$lib/errors';
+import { readPhotoFields, type PhotoField, type UploaderPhoto } from '$lib/media/form';
+import { draftFromForm, LISTING_PHOTOS_MAX, parseListingDraft, type ListingDraft, type ListingInput } from '$lib/swaps/listing-form';
+import { requireUser } from '$lib/server/club/guards';
 
-export type ListingFormRead =
-	| { ok: true; input: ListingInput; photos: PhotoField[]; draft: ListingDraft }
-	| { ok: false; errors: Record<string, string>; draft: ListingDraft; photos: UploaderPhoto[] };
+/** What the form sent back after a refusal: the draft as typed and its photos, for the uploader. */
+export type ListingValues = ListingDraft & { photos: UploaderPhoto[] };
 
-/** The photos the form named, as the uploader shows them again after an error. */
-export async function photosAgain(viewer: Viewer, fields: PhotoField[], listingId: number | null): Promise<UploaderPhoto[]> {
-	const ids = fields.map((f) => f.id);
-	const known = new Map([...(await media.pendingOf(viewer.id, ids)), ...(listingId ? await media.listFor('listing', listingId) : [])].map((p) => [p.id, p]));
-	return fields.flatMap((f) => {
-		const photo = known.get(f.id);
-		return photo ? [{ id: photo.id, alt: f.alt, caption: f.caption, urls: photo.urls }] : [];
-	});
-}
-
-export async function readListingForm(request: Request, viewer: Viewer, listingId: number | null, now = new Date()): Promise<ListingFormRead> {
-	const form = await request.formData();
-	const draft = draftFromForm(form);
-	const photos = readPhotoFields(form, 'photos', LISTING_PHOTOS_MAX);
-	const parsed = parseListingDraft(draft, now);
-	const errors = parsed.ok ? {} : { ...parsed.errors };
-	if (!photos.ok) errors.photos = photos.error;
-	if (!parsed.ok || !photos.ok) return { ok: false, errors, draft, photos: await photosAgain(viewer, photos.ok ? photos.photos : [], listingId) };
-	return { ok: true, input: parsed.input, photos: photos.photos, draft };
-}
-
-/** A refusal of the domain as the form shows it, next to its field. */
-export async function failed(error: unknown, viewer: Viewer, read: Extract<ListingFormRead, { ok: true }>, listingId: number | null) {
-	if (error instanceof SwapError && error.status !== 404) {
-		return fail(error.status, {
-			errors: { [error.field ?? 'form']: error.message },
-			draft: read.draft,
-			photos: await photosAgain(viewer, read.photos, listingId)
-		});
-	}
-	if (isDomainError(error))
-		return fail(400, { errors: { photos: error.message }, draft: read.draft, photos: await photosAgain(viewer, read.photos, listingId) });
-	throw error;
+/**
+ * The new and edit pages' action. `target` names the listing being changed (null for a new one),
+ * refusing anyone who may not change it before the form is read; `save` gets the checked input and
+ * redirects. Any refusal, of the form's own checks or of the domain, answers `{ errors, values }`
+ * with the draft as typed and its photos for the uploader.
+ */
+export function listingFormAction<E extends RequestEvent>(
+	target: (viewer: Viewer, event: E) => Promise<number | null>,
+	save: (viewer: Viewer, input: ListingInput, photos: PhotoField[], listingId: number | null) => Promise<void>
+) {
+	return formAction<E, Awaited<ReturnType<typeof refused<ListingValues>>> | undefined, ListingValues>(
+		async (event: E, data) => {
+			const viewer = requireUser(event);
+			const listingId = await target(viewer, event);
+			const draft = draftFromForm(data);
+			const photos = readPhotoFields(data, 'photos', LISTING_PHOTOS_MAX);
+			try {
+				const parsed = parseListingDraft(draft, new Date());
+				if (!parsed.ok || !photos.ok) throw invalid({ ...(parsed.ok ? {} : parsed.errors), ...(photos.ok ? {} : { photos: photos.error }) });
+				await save(viewer, parsed.input, photos.photos, listingId);
+			} catch (e) {
+				// Shown again: the photos that are the member's own uploads or already the listing's.
+				const again = await media.photosAgain(viewer.id, photos.ok ? photos.photos : [], listingId === null ? null : { scope: 'listing', id: listingId });
+				return refused<ListingValues>(e, { ...draft, photos: again });
+			}
+		},
+		{ values: (data) => ({ ...draftFromForm(data), photos: [] }) }
+	);
 }
 
 /** What the form offers: the club's areas, the member's running tanks, and whether they have a location. */
@@ -77,7 +73,7 @@ export function draftOf(listing: ListingDetail): ListingDraft {
 		terms: listing.terms,
 		termsNote: listing.termsNote,
 		pickupAreaId: listing.pickupAreaId === null ? '' : String(listing.pickupAreaId),
-		availableUntil: dateOnly(listing.availableUntil),
-		tankId: listing.tankId === null ? '' : String(listing.tankId)
+		availableUntil: dayOf(listing.availableUntil),
+		tankId: listing.tank ? String(listing.tank.id) : ''
 	};
 }

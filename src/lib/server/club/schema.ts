@@ -1,5 +1,5 @@
-import type { AdapterAccountType } from '@auth/core/adapters';
-import { boolean, char, decimal, index, int, json, mysqlEnum, mysqlTable, primaryKey, timestamp, varchar } from 'drizzle-orm/mysql-core';
+import type { AdapterAccountType } from '@auth/sveltekit/adapters';
+import { boolean, char, decimal, index, int, mysqlEnum, mysqlTable, primaryKey, timestamp, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 import { ROLES, UNIT_SYSTEMS } from '../../club/roles';
 

@@ -1,6 +1,9 @@
+// Database sessions (Auth.js writes them; we read, renew and end them) and the account page's
+// list of devices a member is signed in on.
 import { createHash } from 'node:crypto';
 import { and, desc, eq, gt } from 'drizzle-orm';
-import { db } from '../db';
+import { notFound } from '../../errors';
+import { resolve, type Context } from '../context';
 import { sessions, users } from './schema';
 import type { UserRow } from './users';
 
@@ -16,7 +19,8 @@ export interface ActiveSession {
 	current: boolean;
 }
 
-export async function listActive(userId: string, currentToken: string | undefined, now = new Date()): Promise<ActiveSession[]> {
+export async function listActive(userId: string, currentToken: string | null, context: Context = {}): Promise<ActiveSession[]> {
+	const { db, now } = resolve(context);
 	const rows = await db
 		.select()
 		.from(sessions)
@@ -32,15 +36,17 @@ export async function listActive(userId: string, currentToken: string | undefine
 	}));
 }
 
-export async function revoke(userId: string, handle: string): Promise<boolean> {
+/** Ends one of the member's own sessions, named by its handle; one that has already ended is not found. */
+export async function revoke(userId: string, handle: string, context: Context = {}): Promise<void> {
+	const { db } = resolve(context);
 	const rows = await db.select({ token: sessions.sessionToken }).from(sessions).where(eq(sessions.userId, userId));
 	const match = rows.find((r) => sessionHandle(r.token) === handle);
-	if (!match) return false;
+	if (!match) throw notFound('That session has already ended.');
 	await db.delete(sessions).where(and(eq(sessions.userId, userId), eq(sessions.sessionToken, match.token)));
-	return true;
 }
 
-export async function revokeAll(userId: string): Promise<void> {
+export async function revokeAll(userId: string, context: Context = {}): Promise<void> {
+	const { db } = resolve(context);
 	await db.delete(sessions).where(eq(sessions.userId, userId));
 }
 
@@ -57,7 +63,8 @@ export interface ResolvedSession {
 }
 
 /** The live session for a cookie's token and its member, in one query; undefined when it is unknown or expired. */
-export async function resolve(token: string, now = new Date()): Promise<ResolvedSession | undefined> {
+export async function find(token: string, context: Context = {}): Promise<ResolvedSession | undefined> {
+	const { db, now } = resolve(context);
 	const [row] = await db
 		.select({ user: users, expires: sessions.expires, lastSeenAt: sessions.lastSeenAt })
 		.from(sessions)
@@ -68,14 +75,21 @@ export async function resolve(token: string, now = new Date()): Promise<Resolved
 }
 
 /** Sliding expiry: once a day of use has passed since the end was last set, it moves out again. */
-export const renewalDue = (session: Pick<ResolvedSession, 'expires'>, now = new Date()) =>
-	session.expires.getTime() - SESSION_MAX_AGE_MS + SESSION_UPDATE_AGE_MS <= now.getTime();
+export const renewalDue = (session: Pick<ResolvedSession, 'expires'>, context: Context = {}) =>
+	session.expires.getTime() - SESSION_MAX_AGE_MS + SESSION_UPDATE_AGE_MS <= resolve(context).now.getTime();
 
 /**
  * Records the device and time of use (at most every few minutes) and, when `renew` is set,
  * pushes the session's end out; returns the new end, or null when nothing was renewed.
  */
-export async function recordUse(token: string, session: ResolvedSession, userAgent: string | null, renew: boolean, now = new Date()): Promise<Date | null> {
+export async function recordUse(
+	token: string,
+	session: ResolvedSession,
+	userAgent: string | null,
+	renew: boolean,
+	context: Context = {}
+): Promise<Date | null> {
+	const { db, now } = resolve(context);
 	const expires = renew ? new Date(now.getTime() + SESSION_MAX_AGE_MS) : null;
 	const stale = (at: Date | null) => !at || now.getTime() - at.getTime() >= TOUCH_GAP_MS;
 	if (expires || stale(session.lastSeenAt)) {

@@ -1,20 +1,17 @@
+// Members: who they are, their profile and settings, and their role in the club.
 import { and, asc, count, eq, like, ne, or, sql } from 'drizzle-orm';
-import { db, type Database, type DbOrTx } from '../db';
-import type { Role, UnitSystem } from '../../club/roles';
-import { roundToKilometre } from '../../club/location';
-import { users } from './schema';
+import { assertRole, type Role } from '../../club/roles';
+import type { ProfileInput } from '../../club/profile';
+import { roundToKilometre, type LatLng } from '../../club/location';
+import type { Viewer } from '../../club/viewer';
+import { conflict, invalid, notFound } from '../../errors';
+import { resolve, within, type Context } from '../context';
 import * as audit from '../audit';
+import * as areas from './areas';
+import { users } from './schema';
 
+export type { Viewer };
 export type UserRow = typeof users.$inferSelect;
-
-/** What the rest of the app knows about the signed-in person (`event.locals.user`). */
-export interface Viewer {
-	id: string;
-	email: string;
-	displayName: string | null;
-	role: Role;
-	units: UnitSystem;
-}
 
 export function toViewer(row: UserRow): Viewer {
 	return {
@@ -26,56 +23,61 @@ export function toViewer(row: UserRow): Viewer {
 	};
 }
 
-export async function getById(id: string, tx: DbOrTx = db): Promise<UserRow | undefined> {
-	const [row] = await tx.select().from(users).where(eq(users.id, id)).limit(1);
+export async function getById(id: string, context: Context = {}): Promise<UserRow | undefined> {
+	const { db } = resolve(context);
+	const [row] = await db.select().from(users).where(eq(users.id, id)).limit(1);
 	return row;
 }
 
-export async function getByEmail(email: string, tx: DbOrTx = db): Promise<UserRow | undefined> {
-	const [row] = await tx.select().from(users).where(eq(users.email, email.toLowerCase())).limit(1);
-	return row;
-}
-
-export async function setDisplayName(id: string, displayName: string): Promise<void> {
+export async function setDisplayName(id: string, displayName: string, context: Context = {}): Promise<void> {
+	const { db } = resolve(context);
 	await db.update(users).set({ displayName }).where(eq(users.id, id));
 }
 
-export interface ProfileUpdate {
-	displayName: string;
-	units: UnitSystem;
-	homeAreaId: number | null;
-	home: { lat: number; lng: number } | null;
-	notifyMessages: 'each' | 'hourly' | 'off';
-	weeklyDigest: boolean;
-	announcements: boolean;
-}
-
-export async function updateProfile(id: string, update: ProfileUpdate): Promise<void> {
-	const home = update.home ? roundToKilometre(update.home) : null;
+/**
+ * Saves a member's own profile. A home area stands for its centre point; a point of their own is
+ * kept rounded to about a kilometre. An area that no longer exists is refused at its field.
+ */
+export async function saveProfile(viewer: Viewer, input: ProfileInput, context: Context = {}): Promise<void> {
+	const { db } = resolve(context);
+	let home: LatLng | null = null;
+	let homeAreaId: number | null = null;
+	if (input.locationMode === 'area' && input.homeAreaId) {
+		const area = await areas.get(input.homeAreaId, context);
+		if (!area) throw invalid({ homeAreaId: 'That area no longer exists; choose another.' });
+		homeAreaId = area.id;
+		home = { lat: area.lat, lng: area.lng };
+	} else if (input.locationMode === 'point' && input.homeLat !== null && input.homeLng !== null) {
+		home = { lat: input.homeLat, lng: input.homeLng };
+	}
+	if (home) home = roundToKilometre(home);
 	await db
 		.update(users)
 		.set({
-			displayName: update.displayName,
-			units: update.units,
-			homeAreaId: update.homeAreaId,
+			displayName: input.displayName,
+			units: input.units,
+			homeAreaId,
 			homeLat: home?.lat ?? null,
 			homeLng: home?.lng ?? null,
-			notifyMessages: update.notifyMessages,
-			weeklyDigest: update.weeklyDigest,
-			announcements: update.announcements
+			notifyMessages: input.notifyMessages,
+			weeklyDigest: input.weeklyDigest,
+			announcements: input.announcements
 		})
-		.where(eq(users.id, id));
+		.where(eq(users.id, viewer.id));
 }
 
 export const MEMBERS_PAGE_SIZE = 20;
 
-export async function listMembers(options: { search?: string; role?: Role; page: number }) {
+/** The member list as admins see it (addresses included), searched by name or address, one page at a time. */
+export async function listMembers(admin: Viewer, filter: { search?: string; role?: Role; page: number }, context: Context = {}) {
+	assertRole(admin, 'admin');
+	const { db } = resolve(context);
 	const conditions = [];
-	if (options.search) {
-		const pattern = `%${options.search.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
+	if (filter.search) {
+		const pattern = `%${filter.search.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
 		conditions.push(or(like(users.displayName, pattern), like(users.email, pattern)));
 	}
-	if (options.role) conditions.push(eq(users.role, options.role));
+	if (filter.role) conditions.push(eq(users.role, filter.role));
 	const where = conditions.length ? and(...conditions) : undefined;
 	const [{ total }] = (await db.select({ total: count() }).from(users).where(where)) as [{ total: number }];
 	const rows = await db
@@ -91,24 +93,20 @@ export async function listMembers(options: { search?: string; role?: Role; page:
 		.where(where)
 		.orderBy(sql`${users.displayName} IS NULL`, asc(users.displayName), asc(users.email))
 		.limit(MEMBERS_PAGE_SIZE)
-		.offset((options.page - 1) * MEMBERS_PAGE_SIZE);
+		.offset((filter.page - 1) * MEMBERS_PAGE_SIZE);
 	return { rows, total, pages: Math.max(1, Math.ceil(total / MEMBERS_PAGE_SIZE)) };
 }
 
-export class LastAdminError extends Error {
-	constructor() {
-		super('The club needs at least one admin: make someone else an admin first.');
-	}
-}
-
 /**
- * Changes a member's role and records who did it. Locks the admin rows so two admins demoting
- * each other at once cannot leave the club without one.
+ * Changes a member's role and records who did it; only an admin may. Locks the admin rows so
+ * two admins demoting each other at once cannot leave the club without one.
  */
-export async function changeRole(actor: Viewer, targetId: string, role: Role, database: Database = db): Promise<void> {
-	await database.transaction(async (tx) => {
+export async function changeRole(actor: Viewer, targetId: string, role: Role, context: Context = {}): Promise<void> {
+	assertRole(actor, 'admin');
+	const { db } = resolve(context);
+	await db.transaction(async (tx) => {
 		const [target] = await tx.select().from(users).where(eq(users.id, targetId)).for('update');
-		if (!target) throw new Error('No such member.');
+		if (!target) throw notFound('We could not find that member.');
 		if (target.role === role) return;
 		if (target.role === 'admin') {
 			const others = await tx
@@ -116,18 +114,19 @@ export async function changeRole(actor: Viewer, targetId: string, role: Role, da
 				.from(users)
 				.where(and(eq(users.role, 'admin'), ne(users.id, targetId)))
 				.for('update');
-			if (others.length === 0) throw new LastAdminError();
+			if (others.length === 0) throw conflict('last-admin', 'The club needs at least one admin: make someone else an admin first.');
 		}
 		await tx.update(users).set({ role }).where(eq(users.id, targetId));
 		await audit.record(
 			{ actorId: actor.id, action: 'role.change', subject: { type: 'user', id: targetId }, detail: { from: target.role, to: role } },
-			{ db: tx }
+			within(context, tx)
 		);
 	});
 }
 
 /** ADMIN_EMAIL names the first admin: whoever signs in with it is made admin. */
-export async function promoteConfiguredAdmin(email: string | undefined, tx: DbOrTx = db): Promise<void> {
+export async function promoteConfiguredAdmin(email: string | undefined, context: Context = {}): Promise<void> {
 	if (!email) return;
-	await tx.update(users).set({ role: 'admin' }).where(eq(users.email, email.toLowerCase()));
+	const { db } = resolve(context);
+	await db.update(users).set({ role: 'admin' }).where(eq(users.email, email.toLowerCase()));
 }

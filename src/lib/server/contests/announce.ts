@@ -3,20 +3,20 @@
 // place and a link to their feedback. Queued through the outbox in one transaction, once per
 // results revision: the dedupe keys make a second click (or a second admin) send nothing twice.
 import { eq } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import * as directory from '../club/directory';
+import * as audit from '../audit';
 import { absoluteUrl } from '../config';
 import { enqueue, type QueuedMail } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
 import { unsubscribeHeaders, unsubscribeUrl } from '../mail/unsubscribe';
 import { deliverySummary, listOutbox } from '../mail/report';
+import { conflict } from '../../errors';
 import { formatPercent, formatPlace } from '../../contests/format';
 import { contests } from './schema';
-import { ContestError, ContestNotFound } from './errors';
-import { assertAdmin } from './contests';
+import { adminChange, assertAdmin, auditSubject } from './contests';
 import { publicResults, type PublicEntry, type PublicResults } from './review';
-import * as people from './people';
-import * as audit from './audit';
 
 export const topicPrefix = (contestId: number) => `contest:${contestId}:results:`;
 
@@ -65,20 +65,20 @@ export function entrantMail(results: PublicResults, entry: PublicEntry, name: st
 
 export interface AnnouncementPlan {
 	results: PublicResults;
-	recipients: people.Person[];
-	entrants: { entry: PublicEntry; person: people.Person }[];
+	recipients: directory.Member[];
+	entrants: { entry: PublicEntry; person: directory.Member }[];
 	revision: number;
 	announcedRevision: number | null;
 }
 
-async function plan(contestId: number, tx: DbOrTx): Promise<AnnouncementPlan> {
-	const results = await publicResults(contestId, tx);
-	if (!results) throw new ContestError(409, 'The results are not published yet.', 'not-published');
-	const recipients = await people.announcementRecipients(tx);
+async function plan(contestId: number, context: Context): Promise<AnnouncementPlan> {
+	const results = await publicResults(contestId, context);
+	if (!results) throw conflict('not-published', 'The results are not published yet.');
+	const recipients = await directory.announcementReaders(context);
 	const entries = results.categories.flatMap((c) => c.entries);
-	const who = await people.byIds(
+	const who = await directory.byIds(
 		entries.map((e) => e.entrantId),
-		tx
+		context
 	);
 	return {
 		results,
@@ -93,14 +93,14 @@ async function plan(contestId: number, tx: DbOrTx): Promise<AnnouncementPlan> {
 }
 
 /** What would be sent, for the admin to read before sending. */
-export async function preview(viewer: Viewer, contestId: number, tx: DbOrTx = appDb) {
+export async function preview(viewer: Viewer, contestId: number, context: Context = {}) {
 	assertAdmin(viewer);
-	const p = await plan(contestId, tx);
+	const p = await plan(contestId, context);
 	const sampleToken = p.recipients[0]?.unsubscribeToken ?? '0'.repeat(32);
 	const sample = p.entrants[0];
 	return {
 		announcement: announcementMail(p.results, sampleToken),
-		entrantSample: sample ? { name: sample.person.displayName, ...entrantMail(p.results, sample.entry, sample.person.displayName) } : null,
+		entrantSample: sample ? { name: sample.person.name, ...entrantMail(p.results, sample.entry, sample.person.name) } : null,
 		recipients: p.recipients.length,
 		entrants: p.entrants.length,
 		revision: p.revision,
@@ -109,19 +109,16 @@ export async function preview(viewer: Viewer, contestId: number, tx: DbOrTx = ap
 }
 
 /** Queues the announcement and the entrants' mails for the current results revision. */
-export async function send(viewer: Viewer, contestId: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<{ queued: number }> {
-	assertAdmin(viewer);
-	const now = options.now ?? new Date();
-	return (options.database ?? appDb).transaction(async (tx) => {
-		const [locked] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
-		if (!locked) throw new ContestNotFound('No such contest.');
-		const p = await plan(contestId, tx);
+export async function send(viewer: Viewer, contestId: number, context: Context = {}): Promise<{ queued: number }> {
+	const { now } = resolve(context);
+	return adminChange(viewer, contestId, context, async ({ contest: locked, tx, context: inTx }) => {
+		const p = await plan(contestId, inTx);
 		const rev = `r${p.revision}`;
 		// Entrants' own results first: with a large club the announcement takes a while to drain.
 		const mails: QueuedMail[] = [
 			...p.entrants.map(({ entry, person }) => ({
 				to: person.email,
-				...entrantMail(p.results, entry, person.displayName),
+				...entrantMail(p.results, entry, person.name),
 				topic: `${topicPrefix(contestId)}entrant`,
 				dedupeKey: `contest:${contestId}:${rev}:entrant:${entry.entryId}`
 			})),
@@ -133,14 +130,18 @@ export async function send(viewer: Viewer, contestId: number, options: { now?: D
 				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
 			}))
 		];
-		await enqueue(tx, mails, now);
+		await enqueue(mails, { db: tx, now });
 		if (locked.announcedRevision !== p.revision) {
 			await tx.update(contests).set({ announcedRevision: p.revision }).where(eq(contests.id, contestId));
-			await audit.record(tx, viewer.id, 'results.announce', contestId, {
-				revision: p.revision,
-				announcements: p.recipients.length,
-				entrants: p.entrants.length
-			});
+			await audit.record(
+				{
+					actorId: viewer.id,
+					action: 'results.announce',
+					subject: auditSubject(contestId),
+					detail: { revision: p.revision, announcements: p.recipients.length, entrants: p.entrants.length }
+				},
+				inTx
+			);
 		}
 		return { queued: mails.length };
 	});

@@ -2,15 +2,17 @@
 // the admins' alone (anyone else gets null, so the page answers 404); from the moment it opens
 // its rules, categories and dates are public.
 import { and, asc, count, desc, eq, inArray, notInArray } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import type { DbOrTx } from '../db';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import * as directory from '../club/directory';
+import * as audit from '../audit';
+import { conflict, forbidden, notFound } from '../../errors';
 import type { Rubric } from '../../contests/rubric';
-import type { ContestWindows, ContestState } from '../../contests/lifecycle';
+import { entriesAccepted, type ContestWindows, type ContestState } from '../../contests/lifecycle';
 import type { ContestDraft, ContestInput } from '../../contests/contest-form';
 import type { EligibilityRule } from '../../contests/eligibility';
 import { contestCategories, contestCriteria, contestEntries, contests, type CategoryRow, type ContestRow, type CriterionRow } from './schema';
-import { ContestError } from './errors';
-import * as audit from './audit';
 
 export interface ContestDetail extends ContestRow {
 	criteria: CriterionRow[];
@@ -19,9 +21,13 @@ export interface ContestDetail extends ContestRow {
 
 export const isAdminViewer = (viewer: Pick<Viewer, 'role'> | null | undefined) => viewer?.role === 'admin';
 
+/** Every admin command of the contests checks the role itself, whatever the route checked. */
 export function assertAdmin(viewer: Viewer): void {
-	if (viewer.role !== 'admin') throw new ContestError(403, 'Only admins can do this.', 'forbidden');
+	if (viewer.role !== 'admin') throw forbidden('Only admins can do this.');
 }
+
+/** The audit log's subject for a contest: its state steps, panel, conflicts, corrections. */
+export const auditSubject = (contestId: number) => ({ type: 'contest', id: contestId });
 
 export const canSee = (viewer: Pick<Viewer, 'role'> | null | undefined, contest: Pick<ContestRow, 'state'>) =>
 	contest.state !== 'draft' || isAdminViewer(viewer);
@@ -47,14 +53,49 @@ export const ruleOf = (c: Pick<CategoryRow, 'minLitres' | 'maxLitres' | 'minAgeW
 	minAgeWeeks: c.minAgeWeeks
 });
 
-export async function row(id: number, tx: DbOrTx = appDb, lock = false): Promise<ContestRow | undefined> {
-	const query = tx.select().from(contests).where(eq(contests.id, id)).limit(1);
-	const [found] = lock ? await query.for('update') : await query;
+/** Members may enter, change or withdraw entries now. */
+export const acceptingEntries = (contest: Pick<ContestRow, 'state' | 'entryClosesOn'>, context: Context = {}) =>
+	entriesAccepted(contest.state, contest, resolve(context).now);
+
+export async function row(id: number, context: Context = {}): Promise<ContestRow | undefined> {
+	const { db } = resolve(context);
+	const [found] = await db.select().from(contests).where(eq(contests.id, id)).limit(1);
 	return found;
 }
 
-export async function load(id: number, tx: DbOrTx = appDb): Promise<ContestDetail | null> {
-	const found = await row(id, tx);
+/** The contest's row, locked for the rest of the caller's transaction (`context.db`). */
+export async function lockedRow(id: number, context: Context): Promise<ContestRow | undefined> {
+	const { db } = resolve(context);
+	const [found] = await db.select().from(contests).where(eq(contests.id, id)).limit(1).for('update');
+	return found;
+}
+
+export interface AdminStep {
+	/** The contest's row, locked until the step commits. */
+	contest: ContestRow;
+	tx: DbOrTx;
+	/** The caller's context inside the transaction. */
+	context: Context;
+}
+
+/**
+ * An admin's change to a contest: the role checked here (whatever the route checked), one
+ * transaction, the contest's row locked so two admins' steps queue; "not found" without it.
+ */
+export async function adminChange<T>(viewer: Viewer, contestId: number, context: Context, step: (on: AdminStep) => Promise<T>): Promise<T> {
+	assertAdmin(viewer);
+	const { db } = resolve(context);
+	return db.transaction(async (tx) => {
+		const inTx = within(context, tx);
+		const contest = await lockedRow(contestId, inTx);
+		if (!contest) throw notFound('No such contest.');
+		return step({ contest, tx, context: inTx });
+	});
+}
+
+export async function load(id: number, context: Context = {}): Promise<ContestDetail | null> {
+	const { db: tx } = resolve(context);
+	const found = await row(id, context);
 	if (!found) return null;
 	const [criteria, categories] = await Promise.all([
 		tx.select().from(contestCriteria).where(eq(contestCriteria.contestId, id)).orderBy(asc(contestCriteria.position), asc(contestCriteria.id)),
@@ -64,8 +105,8 @@ export async function load(id: number, tx: DbOrTx = appDb): Promise<ContestDetai
 }
 
 /** The contest with its rubric and categories, or null when it does not exist or the viewer may not see it. */
-export async function get(viewer: Viewer | null, id: number, tx: DbOrTx = appDb): Promise<ContestDetail | null> {
-	const found = await load(id, tx);
+export async function get(viewer: Viewer | null, id: number, context: Context = {}): Promise<ContestDetail | null> {
+	const found = await load(id, context);
 	if (!found || !canSee(viewer, found)) return null;
 	return found;
 }
@@ -114,7 +155,8 @@ async function summarise(rows: ContestRow[], tx: DbOrTx): Promise<ContestSummary
 }
 
 /** The contests page: open for entries, being judged, results (paged), and for admins the ones in preparation. */
-export async function list(viewer: Viewer | null, options: { page: number }, tx: DbOrTx = appDb) {
+export async function list(viewer: Viewer | null, options: { page: number }, context: Context = {}) {
+	const { db: tx } = resolve(context);
 	const byState = (states: ContestState[]) =>
 		tx.select().from(contests).where(inArray(contests.state, states)).orderBy(asc(contests.entryClosesOn), asc(contests.id));
 	const [open, judging, drafts, [total]] = await Promise.all([
@@ -143,9 +185,10 @@ export async function list(viewer: Viewer | null, options: { page: number }, tx:
 }
 
 /** Every contest for the admin list, newest first. */
-export async function listAll(viewer: Viewer, tx: DbOrTx = appDb): Promise<ContestSummary[]> {
+export async function listAll(viewer: Viewer, context: Context = {}): Promise<ContestSummary[]> {
 	assertAdmin(viewer);
-	return summarise(await tx.select().from(contests).orderBy(desc(contests.id)), tx);
+	const { db } = resolve(context);
+	return summarise(await db.select().from(contests).orderBy(desc(contests.id)), db);
 }
 
 function settings(input: ContestInput) {
@@ -210,20 +253,21 @@ async function writeRubricAndCategories(tx: DbOrTx, contestId: number, input: Co
 		);
 }
 
-export async function create(viewer: Viewer, input: ContestInput, database: DbOrTx = appDb, now?: Date): Promise<number> {
+export async function create(viewer: Viewer, input: ContestInput, context: Context = {}): Promise<number> {
 	assertAdmin(viewer);
-	return database.transaction(async (tx) => {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
 		const [result] = await tx.insert(contests).values({
 			...settings(input),
 			entriesPerMember: input.entriesPerMember,
 			aggregation: input.aggregation,
 			createdBy: viewer.id,
-			updatedAt: now ?? new Date(),
-			...(now ? { createdAt: now } : {})
+			updatedAt: now,
+			...(context.now ? { createdAt: context.now } : {})
 		});
 		const id = result.insertId;
 		await writeRubricAndCategories(tx, id, input);
-		await audit.record(tx, viewer.id, 'contest.create', id, { title: input.title }, now);
+		await audit.record({ actorId: viewer.id, action: 'contest.create', subject: auditSubject(id), detail: { title: input.title } }, within(context, tx));
 		return id;
 	});
 }
@@ -232,23 +276,45 @@ export async function create(viewer: Viewer, input: ContestInput, database: DbOr
  * Saves the admin's changes. Once the contest has opened, the rubric, categories, aggregation and
  * entry limit are fixed and only the title, rules and dates change; an archived contest changes no more.
  */
-export async function update(viewer: Viewer, id: number, input: ContestInput, database: DbOrTx = appDb): Promise<void> {
-	assertAdmin(viewer);
-	await database.transaction(async (tx) => {
-		const found = await row(id, tx, true);
-		if (!found) throw new ContestError(404, 'No such contest.', 'not-found');
-		if (found.state === 'archived') throw new ContestError(409, 'An archived contest cannot be changed.');
+export async function update(viewer: Viewer, id: number, input: ContestInput, context: Context = {}): Promise<void> {
+	const { now } = resolve(context);
+	await adminChange(viewer, id, context, async ({ contest: found, tx, context: inTx }) => {
+		if (found.state === 'archived') throw conflict('archived', 'An archived contest cannot be changed.');
 		const locked = found.state !== 'draft';
 		await tx
 			.update(contests)
-			.set({ ...settings(input), ...(locked ? {} : { entriesPerMember: input.entriesPerMember, aggregation: input.aggregation }), updatedAt: new Date() })
+			.set({ ...settings(input), ...(locked ? {} : { entriesPerMember: input.entriesPerMember, aggregation: input.aggregation }), updatedAt: now })
 			.where(eq(contests.id, id));
 		if (!locked) await writeRubricAndCategories(tx, id, input);
 		const changed = Object.entries(settings(input))
 			.filter(([k, v]) => found[k as keyof ContestRow] !== v)
 			.map(([k]) => k);
-		await audit.record(tx, viewer.id, 'contest.edit', id, { changed: locked ? changed : [...changed, 'rubric', 'categories'], state: found.state });
+		await audit.record(
+			{
+				actorId: viewer.id,
+				action: 'contest.edit',
+				subject: auditSubject(id),
+				detail: { changed: locked ? changed : [...changed, 'rubric', 'categories'], state: found.state }
+			},
+			inTx
+		);
 	});
+}
+
+export interface LogEntry extends audit.AuditEntry {
+	/** Null for the system (a periodic job) or a former member. */
+	actorName: string | null;
+}
+
+/** The contest's audit log for its admins, newest first, at most `limit` entries. */
+export async function log(viewer: Viewer, contestId: number, limit: number, context: Context = {}): Promise<LogEntry[]> {
+	assertAdmin(viewer);
+	const entries = (await audit.trail(auditSubject(contestId), undefined, context)).reverse().slice(0, limit);
+	const names = await directory.names(
+		entries.flatMap((e) => (e.actorId ? [e.actorId] : [])),
+		context
+	);
+	return entries.map((e) => ({ ...e, actorName: e.actorId ? (names.get(e.actorId) ?? null) : null }));
 }
 
 /** The contest as its edit form shows it. */

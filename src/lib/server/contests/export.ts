@@ -1,18 +1,25 @@
 // Results and every card as CSV for the admins (see $lib/contests/csv for the format).
+import type { Context } from '../context';
 import type { Viewer } from '../club/users';
+import { notFound } from '../../errors';
 import { computeResults } from '../../contests/results';
 import { toCsv, type Cell } from '../../contests/csv';
 import { STATE_LABELS } from '../../contests/lifecycle';
 import { assertAdmin } from './contests';
-import { ContestNotFound } from './errors';
-import { inputOf, loadData } from './review';
+import { inputOf, loadData, type ContestData } from './review';
 
 const round = (n: number | null | undefined, decimals: number) => (n === null || n === undefined ? null : Number(n.toFixed(decimals)));
 
-export async function resultsCsv(viewer: Viewer, contestId: number): Promise<{ title: string; csv: string }> {
+/** The contest's data for an admin's export; refused as not found when there is no such contest. */
+async function exported(viewer: Viewer, contestId: number, context: Context): Promise<ContestData> {
 	assertAdmin(viewer);
-	const data = await loadData(contestId);
-	if (!data) throw new ContestNotFound('No such contest.');
+	const data = await loadData(contestId, context);
+	if (!data) throw notFound('No such contest.');
+	return data;
+}
+
+export async function resultsCsv(viewer: Viewer, contestId: number, context: Context = {}): Promise<{ title: string; csv: string }> {
+	const data = await exported(viewer, contestId, context);
 	const report = computeResults(inputOf(data));
 	const criteria = data.contest.criteria;
 	const header = [
@@ -40,7 +47,7 @@ export async function resultsCsv(viewer: Viewer, contestId: number): Promise<{ t
 				e.placeRaw,
 				e.placeStandardised,
 				entry.number,
-				data.people.get(entry.entrantId)?.displayName ?? '',
+				data.people.get(entry.entrantId)?.name ?? '',
 				round(e.score, 2),
 				round(e.standardised, 3),
 				e.cards.length,
@@ -53,10 +60,8 @@ export async function resultsCsv(viewer: Viewer, contestId: number): Promise<{ t
 	return { title: data.contest.title, csv: toCsv(header, rows) };
 }
 
-export async function cardsCsv(viewer: Viewer, contestId: number): Promise<{ title: string; csv: string }> {
-	assertAdmin(viewer);
-	const data = await loadData(contestId);
-	if (!data) throw new ContestNotFound('No such contest.');
+export async function cardsCsv(viewer: Viewer, contestId: number, context: Context = {}): Promise<{ title: string; csv: string }> {
+	const data = await exported(viewer, contestId, context);
 	const report = computeResults(inputOf(data));
 	const counted = new Map(report.categories.flatMap((c) => c.entries.flatMap((e) => e.cards.map((k) => [k.cardId, k] as const))));
 	const criteria = data.contest.criteria;
@@ -83,8 +88,8 @@ export async function cardsCsv(viewer: Viewer, contestId: number): Promise<{ tit
 		return [
 			category.get(entry.categoryId) ?? '',
 			entry.number,
-			data.people.get(entry.entrantId)?.displayName ?? '',
-			data.people.get(card.judgeId)?.displayName ?? '',
+			data.people.get(entry.entrantId)?.name ?? '',
+			data.people.get(card.judgeId)?.name ?? '',
 			card.status,
 			!!result,
 			round(result?.total, 2),

@@ -1,111 +1,99 @@
-// Judging: the panel, the judges' blind view of the entries, their conflicts and their cards.
+// Judging, from the judge's side: the blind view of the entries, their conflicts and their
+// versioned cards. (The panel is in ./panel.ts, reminders to judges in ./reminders.ts.)
 //
 // Blind judging is decided here: a judge reaches an entry only through access() below, by its
-// number, and what comes back (BlindEntry) carries no entrant, no tank name or id, no photo owner
-// and no entry id. A judge never reaches their own entry or one they declared a conflict on.
+// number, and what comes back (BlindEntry) carries no entrant, no tank name or id, no photo owner,
+// photo id or photo text, no entry id and no exact figure of the tank. A judge never reaches their
+// own entry or one they declared a conflict on.
 import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import type { DbOrTx } from '../db';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as media from '../media';
+import * as audit from '../audit';
 import { renderMarkdown } from '../markdown';
-import { absoluteUrl } from '../config';
-import { enqueue } from '../mail/outbox';
-import { renderMail } from '../mail/templates';
+import { conflict, DomainError, notFound } from '../../errors';
 import type { RenditionSize } from '../../media/urls';
+import type { UnitSystem } from '../../club/roles';
 import { cardsReopenable, type ContestState } from '../../contests/lifecycle';
-import { checkDraftFields, emptyCardFields, normaliseFields, type CardFields, type CardSave } from '../../contests/card';
+import { checkDraftFields, emptyCardFields, normaliseFields, type CardSave } from '../../contests/card';
 import { validateScorecard } from '../../contests/scoring';
-import { judgingDuties } from '../../contests/readiness';
-import type { ServerCard } from '../../contests/autosave';
-import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type ContestEntryRow } from './schema';
-import { ContestError, ContestNotFound } from './errors';
-import { assertAdmin, load, rubricOf, row, windowsOf, type ContestDetail } from './contests';
-import { SCOPE } from './entries';
-import * as people from './people';
-import * as audit from './audit';
-
-// ---- The panel ---------------------------------------------------------------------------
-
-export async function panelIds(contestId: number, tx: DbOrTx = appDb): Promise<string[]> {
-	return (await tx.select({ judgeId: contestJudges.judgeId }).from(contestJudges).where(eq(contestJudges.contestId, contestId))).map((r) => r.judgeId);
-}
-
-export async function panel(contestId: number, tx: DbOrTx = appDb): Promise<people.Person[]> {
-	const byId = await people.byIds(await panelIds(contestId, tx), tx);
-	return [...byId.values()].sort((a, b) => a.displayName.localeCompare(b.displayName));
-}
-
-const panelClosed = (state: ContestState) => state === 'published' || state === 'archived';
-
-export async function assign(viewer: Viewer, contestId: number, judgeId: string, database: DbOrTx = appDb, now?: Date): Promise<void> {
-	assertAdmin(viewer);
-	await database.transaction(async (tx) => {
-		const contest = await row(contestId, tx, true);
-		if (!contest) throw new ContestNotFound('No such contest.');
-		if (panelClosed(contest.state)) throw new ContestError(409, 'The results are out; the panel can no longer change.');
-		const person = (await people.byIds([judgeId], tx)).get(judgeId);
-		if (!person || person.role !== 'judge') throw new ContestError(400, 'Only members with the judge role can be assigned.', 'not-a-judge');
-		const [existing] = await tx
-			.select()
-			.from(contestJudges)
-			.where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, judgeId)));
-		if (existing) return;
-		await tx.insert(contestJudges).values({ contestId, judgeId, assignedBy: viewer.id, ...(now ? { assignedAt: now } : {}) });
-		await audit.record(tx, viewer.id, 'panel.assign', contestId, { judgeId, judge: person.displayName }, now);
-	});
-}
-
-/** Takes a judge off the panel; their cards are kept but no longer count. */
-export async function unassign(viewer: Viewer, contestId: number, judgeId: string, database: DbOrTx = appDb): Promise<void> {
-	assertAdmin(viewer);
-	await database.transaction(async (tx) => {
-		const contest = await row(contestId, tx, true);
-		if (!contest) throw new ContestNotFound('No such contest.');
-		if (panelClosed(contest.state)) throw new ContestError(409, 'The results are out; the panel can no longer change.');
-		const [result] = await tx.delete(contestJudges).where(and(eq(contestJudges.contestId, contestId), eq(contestJudges.judgeId, judgeId)));
-		if (result.affectedRows === 0) return;
-		const person = (await people.byIds([judgeId], tx)).get(judgeId);
-		await audit.record(tx, viewer.id, 'panel.unassign', contestId, { judgeId, judge: person?.displayName ?? null });
-	});
-}
+import { aspectOf, blindFigures, type BlindFigures } from '../../contests/blind';
+import type { CardView } from '../../contests/scorecard-autosave';
+import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type CategoryRow, type ContestEntryRow } from './schema';
+import { auditSubject, load, rubricOf, ruleOf, windowsOf, type ContestDetail } from './contests';
+import { SCOPE } from './contest-entries';
 
 // ---- What a judge sees ---------------------------------------------------------------------
 
-/** A photo without its owner: what a judge may know of it. */
+/**
+ * A photo of an entry as a judge gets it. Entry photos are rows of their own (an upload attaches to
+ * one thing only, so no tank photo is ever an entry photo), but /media/<id> would still give the
+ * judge the photo's id, and ids are handed out in upload order: an entry photo's id sits next to
+ * the ids of the photos its entrant put on their public journal in the same sitting, and those
+ * pages name the tank. So judges get each photo at an address made of the entry's number and the
+ * photo's place, /judging/<contest>/<number>/photos/<n>/<size>, checked by access() like
+ * everything else a judge reaches (see entryPhoto below). The entrant's description and caption are
+ * left out too: they are often copied from the tank's journal, and would match it. The shape is an
+ * aspect ratio; the pixel size of a cropped photo could be matched as well.
+ */
 export interface BlindPhoto {
-	id: number;
-	alt: string;
-	caption: string;
-	width: number;
-	height: number;
+	/** 1 for the full-front view. */
+	position: number;
 	urls: Record<RenditionSize, string>;
-	renditions: Record<RenditionSize, { width: number; height: number }>;
+	/** Width ÷ height, to two decimals. */
+	aspect: number;
+	alt: string;
 }
 
-export const blindPhoto = (p: media.Photo): BlindPhoto => ({
-	id: p.id,
-	alt: p.alt,
-	caption: p.caption,
-	width: p.width,
-	height: p.height,
-	urls: p.urls,
-	renditions: {
-		thumb: { width: p.renditions.thumb.width, height: p.renditions.thumb.height },
-		medium: { width: p.renditions.medium.width, height: p.renditions.medium.height },
-		large: { width: p.renditions.large.width, height: p.renditions.large.height }
-	}
-});
+export const blindPhotoUrl = (contestId: number, number: number, position: number, size: RenditionSize) =>
+	`/judging/${contestId}/${number}/photos/${position}/${size}`;
 
-/** An entry as a judge sees it: by number, with photos, statement and the tank's figures only. */
+function blindPhotos(contestId: number, number: number, photos: media.Photo[]): BlindPhoto[] {
+	return photos.map((p, i) => {
+		const position = i + 1;
+		const url = (size: RenditionSize) => blindPhotoUrl(contestId, number, position, size);
+		return {
+			position,
+			urls: { thumb: url('thumb'), medium: url('medium'), large: url('large') },
+			aspect: aspectOf(p.width, p.height),
+			alt: `Entry ${number}, photo ${position} of ${photos.length}${position === 1 ? ': the whole tank from the front' : ''}`
+		};
+	});
+}
+
+/**
+ * An entry as a judge sees it: by number, with photos and statement, and of the tank only what
+ * judging needs in a form no tank page shows: the category's rule it met and banded figures
+ * ($lib/contests/blind). Exact figures would match the tank's page.
+ */
 export interface BlindEntry {
 	number: number;
 	categoryName: string;
 	categoryDescription: string;
+	/** Without pictures: a picture's address in the statement could name the tank. */
 	statementHtml: string;
+	/** Pictures of the statement that were left out. */
+	statementPictures: number;
 	photos: BlindPhoto[];
-	litres: number | null;
-	volumeSource: 'measured' | 'estimated' | null;
-	ageWeeks: number | null;
+	figures: BlindFigures;
+}
+
+/**
+ * What judges read of an entry besides its photos: the statement without pictures and the tank's
+ * figures as the category's rule and bands in the reader's units. Also shown to the entrant, so they
+ * see what the judges see.
+ */
+export function blindText(
+	entry: Pick<ContestEntryRow, 'statement' | 'litres' | 'ageWeeks'>,
+	category: Pick<CategoryRow, 'minLitres' | 'maxLitres' | 'minAgeWeeks'>,
+	units: UnitSystem
+): Pick<BlindEntry, 'statementHtml' | 'statementPictures' | 'figures'> {
+	return {
+		statementHtml: renderMarkdown(entry.statement, { images: false }),
+		statementPictures: (renderMarkdown(entry.statement).match(/<img\b/g) ?? []).length,
+		figures: blindFigures(entry, ruleOf(category), units)
+	};
 }
 
 export type CellState = 'empty' | 'draft' | 'submitted' | 'conflicted';
@@ -132,8 +120,9 @@ export interface JudgeContest {
 }
 
 /** The contests the viewer is on the panel of, with their progress. */
-export async function myContests(viewer: Viewer, tx: DbOrTx = appDb): Promise<JudgeContest[]> {
+export async function myContests(viewer: Viewer, context: Context = {}): Promise<JudgeContest[]> {
 	if (viewer.role !== 'judge') return [];
+	const { db: tx } = resolve(context);
 	const rows = await tx
 		.select({ contest: contests })
 		.from(contestJudges)
@@ -204,9 +193,10 @@ export interface BlindListing {
 }
 
 /** The judge's list of entries by number and the state of their card for each. */
-export async function blindList(viewer: Viewer, contestId: number, tx: DbOrTx = appDb): Promise<BlindListing> {
-	const contest = await load(contestId, tx);
-	if (!contest || !(await isJudgeOn(tx, viewer, contestId)) || contest.state !== 'judging') throw new ContestNotFound('No such contest to judge.');
+export async function blindList(viewer: Viewer, contestId: number, context: Context = {}): Promise<BlindListing> {
+	const { db: tx } = resolve(context);
+	const contest = await load(contestId, context);
+	if (!contest || !(await isJudgeOn(tx, viewer, contestId)) || contest.state !== 'judging') throw notFound('No such contest to judge.');
 	const cells = await myCells(tx, viewer, contestId);
 	const [own] = await tx
 		.select({ n: count() })
@@ -231,19 +221,19 @@ interface Access {
  * "not found", so a judge cannot even tell their own entry's number from a missing one.
  */
 async function access(tx: DbOrTx, viewer: Viewer, contestId: number, number: number): Promise<Access> {
-	const contest = await load(contestId, tx);
-	if (!contest || contest.state !== 'judging' || !(await isJudgeOn(tx, viewer, contestId))) throw new ContestNotFound('No such entry to judge.');
+	const contest = await load(contestId, { db: tx });
+	if (!contest || contest.state !== 'judging' || !(await isJudgeOn(tx, viewer, contestId))) throw notFound('No such entry to judge.');
 	const [entry] = await tx
 		.select()
 		.from(contestEntries)
 		.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.number, number)))
 		.limit(1);
-	if (!entry || entry.entrantId === viewer.id) throw new ContestNotFound('No such entry to judge.');
-	const [conflict] = await tx
+	if (!entry || entry.entrantId === viewer.id) throw notFound('No such entry to judge.');
+	const [declared] = await tx
 		.select({ judgeId: contestConflicts.judgeId })
 		.from(contestConflicts)
 		.where(and(eq(contestConflicts.entryId, entry.id), eq(contestConflicts.judgeId, viewer.id)));
-	if (conflict) throw new ContestNotFound('No such entry to judge.');
+	if (declared) throw notFound('No such entry to judge.');
 	return { contest, entry };
 }
 
@@ -258,7 +248,8 @@ export interface ScorecardPage {
 	panelNotes: string[];
 }
 
-export async function scorecardPage(viewer: Viewer, contestId: number, number: number, tx: DbOrTx = appDb): Promise<ScorecardPage> {
+export async function scorecardPage(viewer: Viewer, contestId: number, number: number, context: Context = {}): Promise<ScorecardPage> {
+	const { db: tx } = resolve(context);
 	const { contest, entry } = await access(tx, viewer, contestId, number);
 	const category = contest.categories.find((c) => c.id === entry.categoryId)!;
 	const photos = await media.listFor(SCOPE, entry.id, { db: tx });
@@ -282,11 +273,8 @@ export async function scorecardPage(viewer: Viewer, contestId: number, number: n
 			number,
 			categoryName: category.name,
 			categoryDescription: category.description,
-			statementHtml: renderMarkdown(entry.statement),
-			photos: photos.map(blindPhoto),
-			litres: entry.litres,
-			volumeSource: entry.volumeSource,
-			ageWeeks: entry.ageWeeks
+			...blindText(entry, category, viewer.units),
+			photos: blindPhotos(contest.id, number, photos)
 		},
 		rubric: contest.criteria.map((c) => ({ id: String(c.id), label: c.label, guidance: c.guidance, maxPoints: c.maxPoints, weight: c.weight })),
 		previous: at > 0 ? cells[at - 1]!.number : null,
@@ -295,21 +283,26 @@ export async function scorecardPage(viewer: Viewer, contestId: number, number: n
 	};
 }
 
+/** One rendition of an entry's photo (`position` 1 is the full-front view), for a judge who may reach the entry. */
+export async function entryPhoto(
+	viewer: Viewer,
+	contestId: number,
+	number: number,
+	position: number,
+	size: RenditionSize,
+	context: Context = {}
+): Promise<media.RenditionHandle> {
+	const { db } = resolve(context);
+	const { entry } = await access(db, viewer, contestId, number);
+	const rendition = await media.renditionAt(SCOPE, entry.id, position - 1, size);
+	if (!rendition) throw notFound('No such photo.');
+	return rendition;
+}
+
 // ---- Cards ---------------------------------------------------------------------------------
 
-export interface CardView extends ServerCard {
-	status: 'draft' | 'submitted';
-	submittedAt: string | null;
-	/** A submitted card may be reopened now. */
-	reopenable: boolean;
-}
-
-/** A save based on a version older than the stored one. */
-export class VersionConflict extends ContestError {
-	constructor(readonly current: CardView) {
-		super(409, 'This card was saved from another window or device in the meantime.', 'version-conflict');
-	}
-}
+/** A save based on a version older than the stored one; the browser's save queue acts on the code and `current`. */
+const versionConflict = (current: CardView) => conflict('version-conflict', 'This card was saved from another window or device in the meantime.', { current });
 
 function view(contest: ContestDetail, card: CardRow | null, now: Date): CardView {
 	const rubric = rubricOf(contest.criteria);
@@ -337,7 +330,8 @@ async function cardRow(tx: DbOrTx, entryId: number, judgeId: string, lock: boole
 	return found ?? null;
 }
 
-export async function getCard(viewer: Viewer, contestId: number, number: number, now = new Date(), tx: DbOrTx = appDb): Promise<CardView> {
+export async function getCard(viewer: Viewer, contestId: number, number: number, context: Context = {}): Promise<CardView> {
+	const { db: tx, now } = resolve(context);
 	const { contest, entry } = await access(tx, viewer, contestId, number);
 	return view(contest, await cardRow(tx, entry.id, viewer.id, false), now);
 }
@@ -357,18 +351,12 @@ async function cardTransaction<T>(database: DbOrTx, work: (tx: DbOrTx) => Promis
 
 /**
  * Saves a draft. Refused when the card is submitted, when the save is based on an older version
- * than the stored one (VersionConflict, with the stored card), or when a score is out of range.
- * A repeat of the last save (same save id) answers as the first time did and changes nothing.
+ * than the stored one ('version-conflict', with the stored card as `current`), or when a score is
+ * out of range. A repeat of the last save (same save id) answers as the first time did and changes nothing.
  */
-export async function saveCard(
-	viewer: Viewer,
-	contestId: number,
-	number: number,
-	save: CardSave,
-	options: { now?: Date; database?: DbOrTx } = {}
-): Promise<CardView> {
-	const now = options.now ?? new Date();
-	return cardTransaction(options.database ?? appDb, async (tx) => {
+export async function saveCard(viewer: Viewer, contestId: number, number: number, save: CardSave, context: Context = {}): Promise<CardView> {
+	const { db, now } = resolve(context);
+	return cardTransaction(db, async (tx) => {
 		const { contest, entry } = await access(tx, viewer, contestId, number);
 		if (save.baseVersion === 0) {
 			// Make the row first (a no-op when it exists), so two first saves queue on one row lock
@@ -389,10 +377,10 @@ export async function saveCard(
 		const card = await cardRow(tx, entry.id, viewer.id, true);
 		const current = view(contest, card, now);
 		if (card && card.lastSaveId === save.saveId) return current;
-		if (card?.status === 'submitted') throw new ContestError(409, 'This card is submitted. Reopen it to change it.', 'submitted');
-		if (!card || card.version !== save.baseVersion) throw new VersionConflict(current);
+		if (card?.status === 'submitted') throw conflict('submitted', 'This card is submitted. Reopen it to change it.');
+		if (!card || card.version !== save.baseVersion) throw versionConflict(current);
 		const checked = checkDraftFields(rubricOf(contest.criteria), save.fields);
-		if (!checked.ok) throw new ContestError(400, checked.message, 'invalid');
+		if (!checked.ok) throw new DomainError(400, 'invalid', checked.message);
 		await tx
 			.update(contestCards)
 			.set({ fields: checked.fields, version: card.version + 1, lastSaveId: save.saveId, updatedAt: now })
@@ -401,47 +389,61 @@ export async function saveCard(
 	});
 }
 
-/** Submits the card the judge last saw (its version); every criterion needs a score. */
-export async function submitCard(
+/** The audit log's subject for a judge's card; its submissions and reopenings are recorded there. */
+const cardAuditSubject = (cardId: number) => ({ type: 'contest-card', id: cardId });
+
+/** Moves a card to `status` as a new version, recorded in the audit log; answers the card as it now is. */
+async function setStatus(
+	tx: DbOrTx,
 	viewer: Viewer,
-	contestId: number,
-	number: number,
-	version: number,
-	options: { now?: Date; database?: DbOrTx } = {}
+	{ contest, entry }: Access,
+	card: CardRow,
+	status: CardRow['status'],
+	context: Context
 ): Promise<CardView> {
-	const now = options.now ?? new Date();
-	return cardTransaction(options.database ?? appDb, async (tx) => {
-		const { contest, entry } = await access(tx, viewer, contestId, number);
-		const card = await cardRow(tx, entry.id, viewer.id, true);
-		const current = view(contest, card, now);
-		if (!card || card.version === 0) throw new ContestError(400, 'Score every criterion first.', 'incomplete');
+	const { now } = resolve(context);
+	const changed = { status, submittedAt: status === 'submitted' ? now : null, updatedAt: now, version: card.version + 1 };
+	await tx.update(contestCards).set(changed).where(eq(contestCards.id, card.id));
+	await audit.record(
+		{
+			actorId: viewer.id,
+			action: status === 'submitted' ? 'card.submit' : 'card.reopen',
+			subject: cardAuditSubject(card.id),
+			detail: { contestId: contest.id, entryId: entry.id, number: entry.number, version: changed.version }
+		},
+		within(context, tx)
+	);
+	return view(contest, { ...card, ...changed }, now);
+}
+
+/** Submits the card the judge last saw (its version); every criterion needs a score. */
+export async function submitCard(viewer: Viewer, contestId: number, number: number, version: number, context: Context = {}): Promise<CardView> {
+	const { db, now } = resolve(context);
+	return cardTransaction(db, async (tx) => {
+		const reached = await access(tx, viewer, contestId, number);
+		const card = await cardRow(tx, reached.entry.id, viewer.id, true);
+		const current = view(reached.contest, card, now);
+		if (!card || card.version === 0) throw new DomainError(400, 'incomplete', 'Score every criterion first.');
 		if (card.status === 'submitted') return current;
-		if (card.version !== version) throw new VersionConflict(current);
-		const check = validateScorecard(rubricOf(contest.criteria), card.fields.scores);
-		if (!check.submittable) throw new ContestError(400, check.errors.map((e) => e.message).join(' '), 'incomplete');
-		await tx
-			.update(contestCards)
-			.set({ status: 'submitted', submittedAt: now, updatedAt: now, version: card.version + 1 })
-			.where(eq(contestCards.id, card.id));
-		return view(contest, { ...card, status: 'submitted', submittedAt: now, updatedAt: now, version: card.version + 1 }, now);
+		if (card.version !== version) throw versionConflict(current);
+		const check = validateScorecard(rubricOf(reached.contest.criteria), card.fields.scores);
+		if (!check.submittable) throw new DomainError(400, 'incomplete', check.errors.map((e) => e.message).join(' '));
+		return setStatus(tx, viewer, reached, card, 'submitted', { ...context, now });
 	});
 }
 
 /** Reopens a submitted card while the judging window lasts. */
-export async function reopenCard(viewer: Viewer, contestId: number, number: number, options: { now?: Date; database?: DbOrTx } = {}): Promise<CardView> {
-	const now = options.now ?? new Date();
-	return cardTransaction(options.database ?? appDb, async (tx) => {
-		const { contest, entry } = await access(tx, viewer, contestId, number);
-		const card = await cardRow(tx, entry.id, viewer.id, true);
+export async function reopenCard(viewer: Viewer, contestId: number, number: number, context: Context = {}): Promise<CardView> {
+	const { db, now } = resolve(context);
+	return cardTransaction(db, async (tx) => {
+		const reached = await access(tx, viewer, contestId, number);
+		const { contest } = reached;
+		const card = await cardRow(tx, reached.entry.id, viewer.id, true);
 		if (!card || card.status !== 'submitted') return view(contest, card, now);
 		if (!cardsReopenable(contest.state, windowsOf(contest), now)) {
-			throw new ContestError(409, `The judging window closed on ${contest.judgingClosesOn}; submitted cards can no longer be reopened.`, 'closed');
+			throw conflict('closed', `The judging window closed on ${contest.judgingClosesOn}; submitted cards can no longer be reopened.`);
 		}
-		await tx
-			.update(contestCards)
-			.set({ status: 'draft', submittedAt: null, updatedAt: now, version: card.version + 1 })
-			.where(eq(contestCards.id, card.id));
-		return view(contest, { ...card, status: 'draft', submittedAt: null, updatedAt: now, version: card.version + 1 }, now);
+		return setStatus(tx, viewer, reached, card, 'draft', { ...context, now });
 	});
 }
 
@@ -451,99 +453,16 @@ export const CONFLICT_REASON_MAX = 300;
  * The judge declares a conflict (they know the entrant or the tank, helped with it …): they are
  * taken off the entry for good and any card of theirs for it is deleted. The reason is for the admins.
  */
-export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, database: DbOrTx = appDb, now?: Date): Promise<void> {
-	await database.transaction(async (tx) => {
+export async function declareConflict(viewer: Viewer, contestId: number, number: number, reason: string, context: Context = {}): Promise<void> {
+	const { db } = resolve(context);
+	await db.transaction(async (tx) => {
 		const { entry } = await access(tx, viewer, contestId, number);
-		await tx
-			.insert(contestConflicts)
-			.values({ entryId: entry.id, judgeId: viewer.id, reason: reason.slice(0, CONFLICT_REASON_MAX), ...(now ? { declaredAt: now } : {}) });
+		const kept = reason.slice(0, CONFLICT_REASON_MAX);
+		await tx.insert(contestConflicts).values({ entryId: entry.id, judgeId: viewer.id, reason: kept, ...(context.now ? { declaredAt: context.now } : {}) });
 		await tx.delete(contestCards).where(and(eq(contestCards.entryId, entry.id), eq(contestCards.judgeId, viewer.id)));
-		await audit.record(tx, viewer.id, 'judge.conflict', contestId, { entryId: entry.id, number, reason: reason.slice(0, CONFLICT_REASON_MAX) }, now);
-	});
-}
-
-// ---- Reminding judges ------------------------------------------------------------------------
-
-/** Cards each judge of the panel still owes (empty or draft), for reminders. */
-export async function openDuties(contestId: number, tx: DbOrTx = appDb): Promise<Map<string, number>> {
-	const [judges, entries, conflicts, cards] = await Promise.all([
-		panelIds(contestId, tx),
-		tx.select({ entryId: contestEntries.id, entrantId: contestEntries.entrantId }).from(contestEntries).where(eq(contestEntries.contestId, contestId)),
-		tx
-			.select({ entryId: contestConflicts.entryId, judgeId: contestConflicts.judgeId })
-			.from(contestConflicts)
-			.innerJoin(contestEntries, eq(contestEntries.id, contestConflicts.entryId))
-			.where(eq(contestEntries.contestId, contestId)),
-		tx
-			.select({ entryId: contestCards.entryId, judgeId: contestCards.judgeId, status: contestCards.status })
-			.from(contestCards)
-			.where(eq(contestCards.contestId, contestId))
-	]);
-	const { duties } = judgingDuties(
-		entries.map((e) => ({ entryId: String(e.entryId), entrantId: e.entrantId })),
-		judges,
-		conflicts.map((c) => ({ entryId: String(c.entryId), judgeId: c.judgeId }))
-	);
-	const done = new Set(cards.filter((c) => c.status === 'submitted').map((c) => `${c.entryId}|${c.judgeId}`));
-	const open = new Map<string, number>(judges.map((j) => [j, 0]));
-	for (const d of duties) if (!done.has(`${d.entryId}|${d.judgeId}`)) open.set(d.judgeId, (open.get(d.judgeId) ?? 0) + 1);
-	return open;
-}
-
-export function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgingClosesOn'>, judgeName: string, open: number, lead: string) {
-	const cards = `${open} ${open === 1 ? 'card' : 'cards'}`;
-	const { html, text } = renderMail({
-		heading: `${cards} to finish for “${contest.title}”`,
-		paragraphs: [
-			`Hello ${judgeName},`,
-			`${lead} You still have ${cards} to score and submit for “${contest.title}”. The judging window ends with ${contest.judgingClosesOn} (UTC).`,
-			'Your drafts are saved as you type; a card counts once you submit it.'
-		],
-		action: { label: 'Go to your cards', url: absoluteUrl(`/judging/${contest.id}`) },
-		footer: 'You get this mail because you are on this contest’s judging panel.'
-	});
-	return { subject: `Judging: ${cards} to finish for “${contest.title}”`, html, text };
-}
-
-/**
- * The admin reminds judges (all with open cards, or the ones named) by mail through the outbox.
- * One reminder per judge per hour: a double click sends nothing twice.
- */
-export async function remindJudges(
-	viewer: Viewer,
-	contestId: number,
-	judgeIds: string[] | null,
-	options: { now?: Date; database?: DbOrTx } = {}
-): Promise<number> {
-	assertAdmin(viewer);
-	const now = options.now ?? new Date();
-	return (options.database ?? appDb).transaction(async (tx) => {
-		const contest = await load(contestId, tx);
-		if (!contest) throw new ContestNotFound('No such contest.');
-		if (contest.state !== 'judging') throw new ContestError(409, 'Judges can be reminded while the contest is being judged.');
-		const open = await openDuties(contestId, tx);
-		const targets = [...open.entries()].filter(([id, n]) => n > 0 && (!judgeIds || judgeIds.includes(id)));
-		const who = await people.byIds(
-			targets.map(([id]) => id),
-			tx
+		await audit.record(
+			{ actorId: viewer.id, action: 'judge.conflict', subject: auditSubject(contestId), detail: { entryId: entry.id, number, reason: kept } },
+			within(context, tx)
 		);
-		const hour = now.toISOString().slice(0, 13);
-		const mails = targets.flatMap(([id, n]) => {
-			const person = who.get(id);
-			if (!person?.email) return [];
-			return [
-				{
-					to: person.email,
-					...judgeReminderMail(contest, person.displayName, n, 'A reminder from the contest admins.'),
-					topic: `contest:${contestId}:nudge`,
-					dedupeKey: `contest:${contestId}:nudge:${id}:${hour}`
-				}
-			];
-		});
-		await enqueue(tx, mails, now);
-		if (mails.length) await audit.record(tx, viewer.id, 'panel.remind', contestId, { judges: targets.map(([id]) => who.get(id)?.displayName ?? id) });
-		return mails.length;
 	});
 }
-
-export type { CardFields };

@@ -1,26 +1,86 @@
-// The periodic reminders: admins hear when a window's date passed while the contest's state did
-// not move (dates never move a contest by themselves), and judges with open cards hear as the
-// judging window closes and once more if it closed with their cards still open. Each mail has a
-// dedupe key naming the day it is about, so a run every few minutes sends each one once; moving
-// the date lets a new reminder go out.
-import { inArray } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+// Reminders by mail about a contest's calendar. Periodically (the `contest-reminders` job), admins
+// hear when a window's date passed while the contest's state did not move (dates never move a
+// contest by themselves), and judges with open cards hear as the judging window closes and once
+// more if it closed with their cards still open. Each of those mails has a dedupe key naming the
+// day it is about, so a run every few minutes sends each one once; moving the date lets a new
+// reminder go out. An admin may also remind judges by hand (remindJudges), once an hour at most.
+import { eq, inArray } from 'drizzle-orm';
+import { resolve, type Context } from '../context';
+import type { Viewer } from '../club/users';
+import * as directory from '../club/directory';
+import * as audit from '../audit';
 import { absoluteUrl } from '../config';
 import { enqueue, type QueuedMail } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
+import { conflict } from '../../errors';
 import { judgeReminderKind, overdueAdminReminder } from '../../contests/lifecycle';
-import { contests } from './schema';
-import { windowsOf } from './contests';
-import { judgeReminderMail, openDuties } from './judging';
-import * as people from './people';
+import { judgingDuties } from '../../contests/readiness';
+import { contestCards, contestConflicts, contestEntries, contests } from './schema';
+import { adminChange, auditSubject, windowsOf, type ContestDetail } from './contests';
+import { panelIds } from './panel';
 
-export async function sendDueReminders(now: Date, tx: DbOrTx = appDb): Promise<number> {
-	const active = await tx
+/** Cards each judge of the panel still owes (empty or draft), by judge id. */
+async function openDuties(contestId: number, context: Context = {}): Promise<Map<string, number>> {
+	const { db } = resolve(context);
+	const [judges, entries, conflicts, cards] = await Promise.all([
+		panelIds(contestId, context),
+		db.select({ entryId: contestEntries.id, entrantId: contestEntries.entrantId }).from(contestEntries).where(eq(contestEntries.contestId, contestId)),
+		db
+			.select({ entryId: contestConflicts.entryId, judgeId: contestConflicts.judgeId })
+			.from(contestConflicts)
+			.innerJoin(contestEntries, eq(contestEntries.id, contestConflicts.entryId))
+			.where(eq(contestEntries.contestId, contestId)),
+		db
+			.select({ entryId: contestCards.entryId, judgeId: contestCards.judgeId, status: contestCards.status })
+			.from(contestCards)
+			.where(eq(contestCards.contestId, contestId))
+	]);
+	const { duties } = judgingDuties(
+		entries.map((e) => ({ entryId: String(e.entryId), entrantId: e.entrantId })),
+		judges,
+		conflicts.map((c) => ({ entryId: String(c.entryId), judgeId: c.judgeId }))
+	);
+	const done = new Set(cards.filter((c) => c.status === 'submitted').map((c) => `${c.entryId}|${c.judgeId}`));
+	const open = new Map<string, number>(judges.map((j) => [j, 0]));
+	for (const d of duties) if (!done.has(`${d.entryId}|${d.judgeId}`)) open.set(d.judgeId, (open.get(d.judgeId) ?? 0) + 1);
+	return open;
+}
+
+function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgingClosesOn'>, judgeName: string, open: number, lead: string) {
+	const cards = `${open} ${open === 1 ? 'card' : 'cards'}`;
+	const { html, text } = renderMail({
+		heading: `${cards} to finish for “${contest.title}”`,
+		paragraphs: [
+			`Hello ${judgeName},`,
+			`${lead} You still have ${cards} to score and submit for “${contest.title}”. The judging window ends with ${contest.judgingClosesOn} (UTC).`,
+			'Your drafts are saved as you type; a card counts once you submit it.'
+		],
+		action: { label: 'Go to your cards', url: absoluteUrl(`/judging/${contest.id}`) },
+		footer: 'You get this mail because you are on this contest’s judging panel.'
+	});
+	return { subject: `Judging: ${cards} to finish for “${contest.title}”`, html, text };
+}
+
+/** The judges of a contest who owe cards, with how many and their address (`only` narrows them). */
+async function owing(contestId: number, only: string[] | null, context: Context) {
+	const open = await openDuties(contestId, context);
+	const targets = [...open.entries()].filter(([id, n]) => n > 0 && (!only || only.includes(id)));
+	const who = await directory.byIds(
+		targets.map(([id]) => id),
+		context
+	);
+	return targets.map(([id, open]) => ({ id, judge: who.get(id), open }));
+}
+
+/** Queues the periodic reminders that are due at `context.now`; answers how many mails. */
+export async function sendDueReminders(context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	const active = await db
 		.select()
 		.from(contests)
 		.where(inArray(contests.state, ['draft', 'open', 'judging']));
 	if (active.length === 0) return 0;
-	const admins = await people.withRole('admin', tx);
+	const admins = await directory.withRole('admin', context);
 	const mails: QueuedMail[] = [];
 	for (const contest of active) {
 		const windows = windowsOf(contest);
@@ -45,25 +105,57 @@ export async function sendDueReminders(now: Date, tx: DbOrTx = appDb): Promise<n
 		}
 		const kind = judgeReminderKind(contest.state, windows, now);
 		if (kind) {
-			const open = await openDuties(contest.id, tx);
-			const owing = [...open.entries()].filter(([, n]) => n > 0);
-			const who = await people.byIds(
-				owing.map(([id]) => id),
-				tx
-			);
 			const lead = kind === 'closing-soon' ? 'The judging window closes soon.' : 'The judging window has closed, and the results wait for your cards.';
-			for (const [id, n] of owing) {
-				const person = who.get(id);
-				if (!person?.email || person.role !== 'judge') continue;
+			for (const { judge, open } of await owing(contest.id, null, context)) {
+				if (!judge?.email || judge.role !== 'judge') continue;
 				mails.push({
-					to: person.email,
-					...judgeReminderMail(contest, person.displayName, n, lead),
+					to: judge.email,
+					...judgeReminderMail(contest, judge.name, open, lead),
 					topic: `contest:${contest.id}:reminder`,
-					dedupeKey: `contest:${contest.id}:judge-${kind}:${contest.judgingClosesOn}:${id}`
+					dedupeKey: `contest:${contest.id}:judge-${kind}:${contest.judgingClosesOn}:${judge.id}`
 				});
 			}
 		}
 	}
-	await enqueue(tx, mails, now);
+	await enqueue(mails, { db, now });
 	return mails.length;
+}
+
+/**
+ * The admin reminds judges (all with open cards, or the ones named) by mail through the outbox.
+ * One reminder per judge per hour: a double click sends nothing twice.
+ */
+export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: string[] | null, context: Context = {}): Promise<number> {
+	const { now } = resolve(context);
+	return adminChange(viewer, contestId, context, async ({ contest, tx, context: inTx }) => {
+		if (contest.state !== 'judging') throw conflict('not-judging', 'Judges can be reminded while the contest is being judged.');
+		const targets = await owing(contestId, judgeIds, inTx);
+		// The hour (UTC) the reminder is sent in names it, so a second one within the hour is dropped.
+		const hour = now.toISOString().slice(0, 13);
+		const mails = targets.flatMap(({ judge, open }) =>
+			judge?.email
+				? [
+						{
+							to: judge.email,
+							...judgeReminderMail(contest, judge.name, open, 'A reminder from the contest admins.'),
+							topic: `contest:${contestId}:nudge`,
+							dedupeKey: `contest:${contestId}:nudge:${judge.id}:${hour}`
+						}
+					]
+				: []
+		);
+		await enqueue(mails, { db: tx, now });
+		if (mails.length) {
+			await audit.record(
+				{
+					actorId: viewer.id,
+					action: 'panel.remind',
+					subject: auditSubject(contestId),
+					detail: { judges: targets.map((t) => t.judge?.name ?? t.id) }
+				},
+				inTx
+			);
+		}
+		return mails.length;
+	});
 }

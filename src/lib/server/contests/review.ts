@@ -2,38 +2,42 @@
 // hands them to $lib/contests (computeResults) and shapes what the admin's review, the progress
 // matrix, the public results and each entrant's feedback show. Also the state transitions that
 // depend on it (publication) and the corrections admins may make after publication.
-import { and, asc, eq, inArray } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
+import { asc, eq } from 'drizzle-orm';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import * as directory from '../club/directory';
 import * as media from '../media';
 import type { Photo } from '../media';
+import * as audit from '../audit';
+import { conflict, DomainError, invalid, notFound } from '../../errors';
+import { nameOf } from '../../club/names';
 import { computeResults, type RankBasis, type ResultsInput, type ResultsReport, type EntryResult } from '../../contests/results';
 import { checkDraftFields, normaliseFields, type CardFields } from '../../contests/card';
 import { validateScorecard } from '../../contests/scoring';
-import { CORRECTION_REASON_MIN, TRANSITIONS, transitionProblems, type TransitionName } from '../../contests/lifecycle';
-import { contestCards, contestConflicts, contestEntries, contestJudges, contests, type CardRow, type ContestEntryRow } from './schema';
-import { ContestError, ContestNotFound } from './errors';
-import { assertAdmin, load, rubricOf, tieBreakOf, windowsOf, type ContestDetail } from './contests';
-import { SCOPE } from './entries';
-import * as people from './people';
-import * as audit from './audit';
+import { AUDITED_REASON_MIN, TRANSITIONS, transitionProblems, type TransitionName } from '../../contests/lifecycle';
+import type { MatrixCell, ProgressMatrix } from '../../contests/progress';
+import { contestCards, contestConflicts, contestEntries, contests, type CardRow, type ContestEntryRow } from './schema';
+import { adminChange, assertAdmin, auditSubject, load, lockedRow, rubricOf, tieBreakOf, windowsOf, type ContestDetail } from './contests';
+import { SCOPE } from './contest-entries';
+import { panelIds } from './panel';
 
 export interface ContestData {
 	contest: ContestDetail;
 	entries: ContestEntryRow[];
-	panel: people.Person[];
+	panel: directory.Member[];
 	conflicts: { entryId: number; judgeId: string; reason: string }[];
 	cards: CardRow[];
 	/** Entrants, judges, anyone with a card. */
-	people: Map<string, people.Person>;
+	people: Map<string, directory.Member>;
 }
 
-export async function loadData(contestId: number, tx: DbOrTx = appDb): Promise<ContestData | null> {
-	const contest = await load(contestId, tx);
+export async function loadData(contestId: number, context: Context = {}): Promise<ContestData | null> {
+	const { db: tx } = resolve(context);
+	const contest = await load(contestId, context);
 	if (!contest) return null;
-	const [entries, panelRows, conflicts, cards] = await Promise.all([
+	const [entries, judgeIds, conflicts, cards] = await Promise.all([
 		tx.select().from(contestEntries).where(eq(contestEntries.contestId, contestId)).orderBy(asc(contestEntries.number), asc(contestEntries.id)),
-		tx.select({ judgeId: contestJudges.judgeId }).from(contestJudges).where(eq(contestJudges.contestId, contestId)),
+		panelIds(contestId, context),
 		tx
 			.select({ entryId: contestConflicts.entryId, judgeId: contestConflicts.judgeId, reason: contestConflicts.reason })
 			.from(contestConflicts)
@@ -41,11 +45,11 @@ export async function loadData(contestId: number, tx: DbOrTx = appDb): Promise<C
 			.where(eq(contestEntries.contestId, contestId)),
 		tx.select().from(contestCards).where(eq(contestCards.contestId, contestId)).orderBy(asc(contestCards.id))
 	]);
-	const who = await people.byIds([...entries.map((e) => e.entrantId), ...panelRows.map((p) => p.judgeId), ...cards.map((c) => c.judgeId)], tx);
-	const panel = panelRows
-		.map((p) => who.get(p.judgeId))
-		.filter((p): p is people.Person => !!p)
-		.sort((a, b) => a.displayName.localeCompare(b.displayName));
+	const who = await directory.byIds([...entries.map((e) => e.entrantId), ...judgeIds, ...cards.map((c) => c.judgeId)], context);
+	const panel = judgeIds
+		.map((id) => who.get(id))
+		.filter((p): p is directory.Member => !!p)
+		.sort((a, b) => a.name.localeCompare(b.name));
 	return { contest, entries, panel, conflicts, cards: cards.filter((c) => c.version > 0), people: who };
 }
 
@@ -63,12 +67,8 @@ export function inputOf(data: ContestData, rankBy: RankBasis = data.contest.rank
 	};
 }
 
-export type MatrixCell = 'self' | 'conflicted' | 'empty' | 'draft' | 'submitted';
-
-export interface ProgressMatrix {
-	judges: { id: string; name: string; submitted: number; expected: number }[];
-	rows: { entryId: number; number: number | null; category: string; entrant: string; cells: MatrixCell[] }[];
-}
+/** A member's name in the contest's data: the entrant, a judge; "A member" for someone who left. */
+export const nameIn = (data: ContestData, id: string) => data.people.get(id)?.name ?? nameOf(null);
 
 export function progressMatrix(data: ContestData, report: ResultsReport): ProgressMatrix {
 	const excluded = new Map(report.duties.excluded.map((x) => [`${x.entryId}|${x.judgeId}`, x.reason]));
@@ -81,7 +81,7 @@ export function progressMatrix(data: ContestData, report: ResultsReport): Progre
 			entryId: e.id,
 			number: e.number,
 			category: categoryName.get(e.categoryId) ?? '',
-			entrant: data.people.get(e.entrantId)?.displayName ?? 'A member',
+			entrant: nameIn(data, e.entrantId),
 			cells: data.panel.map((j): MatrixCell => {
 				const reason = excluded.get(`${e.id}|${j.id}`);
 				if (reason) return reason === 'self-entry' ? 'self' : 'conflicted';
@@ -92,7 +92,7 @@ export function progressMatrix(data: ContestData, report: ResultsReport): Progre
 	return {
 		judges: data.panel.map((j) => ({
 			id: j.id,
-			name: j.displayName,
+			name: j.name,
 			submitted: byJudge.get(j.id)?.submitted ?? 0,
 			expected: byJudge.get(j.id)?.expected ?? 0
 		})),
@@ -101,9 +101,9 @@ export function progressMatrix(data: ContestData, report: ResultsReport): Progre
 }
 
 /** Everything the admin's review page shows. */
-export async function review(viewer: Viewer, contestId: number, tx: DbOrTx = appDb) {
+export async function review(viewer: Viewer, contestId: number, context: Context = {}) {
 	assertAdmin(viewer);
-	const data = await loadData(contestId, tx);
+	const data = await loadData(contestId, context);
 	if (!data) return null;
 	const report = computeResults(inputOf(data));
 	return { data, report, matrix: progressMatrix(data, report) };
@@ -122,19 +122,21 @@ function shuffledNumbers(n: number): number[] {
 }
 
 export interface TransitionOptions {
+	/** Why the admin publishes with cards missing (kept in the log). */
 	overrideReason?: string | null;
-	now?: Date;
-	database?: DbOrTx;
 }
 
 /** Takes one admin step in the contest's life, after the confirmation step; recorded in the audit log. */
-export async function transition(viewer: Viewer, contestId: number, name: TransitionName, options: TransitionOptions = {}): Promise<void> {
-	assertAdmin(viewer);
-	const now = options.now ?? new Date();
-	await (options.database ?? appDb).transaction(async (tx) => {
-		const [locked] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
-		if (!locked) throw new ContestNotFound('No such contest.');
-		const data = (await loadData(contestId, tx))!;
+export async function transition(
+	viewer: Viewer,
+	contestId: number,
+	name: TransitionName,
+	options: TransitionOptions = {},
+	context: Context = {}
+): Promise<void> {
+	const { now } = resolve(context);
+	await adminChange(viewer, contestId, context, async ({ contest: locked, tx, context: inTx }) => {
+		const data = (await loadData(contestId, inTx))!;
 		const report = computeResults(inputOf(data));
 		const override = report.readiness.ready ? null : (options.overrideReason ?? '').trim() || null;
 		const problems = transitionProblems(name, {
@@ -148,7 +150,7 @@ export async function transition(viewer: Viewer, contestId: number, name: Transi
 			judgingComplete: report.readiness.ready,
 			overrideReason: override
 		});
-		if (problems.length) throw new ContestError(409, problems.join(' '), 'not-ready');
+		if (problems.length) throw conflict('not-ready', problems.join(' '));
 		const to = TRANSITIONS[name].to;
 		const stamp =
 			name === 'open-entries'
@@ -176,12 +178,12 @@ export async function transition(viewer: Viewer, contestId: number, name: Transi
 				detail.overrideReason = override;
 				detail.missing = report.readiness.missing.map((m) => ({
 					number: data.entries.find((e) => String(e.id) === m.entryId)?.number ?? null,
-					judge: data.people.get(m.judgeId)?.displayName ?? m.judgeId,
+					judge: data.people.get(m.judgeId)?.name ?? m.judgeId,
 					state: m.state
 				}));
 			}
 		}
-		await audit.record(tx, viewer.id, `contest.${name}`, contestId, detail, now);
+		await audit.record({ actorId: viewer.id, action: `contest.${name}`, subject: auditSubject(contestId), detail }, { ...inTx, now });
 	});
 }
 
@@ -231,7 +233,7 @@ function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo
 		number: entry.number,
 		categoryId: entry.categoryId,
 		entrantId: entry.entrantId,
-		entrantName: data.people.get(entry.entrantId)?.displayName ?? 'A member',
+		entrantName: nameIn(data, entry.entrantId),
 		place: result.place,
 		placeRaw: result.placeRaw,
 		placeStandardised: result.placeStandardised,
@@ -264,8 +266,9 @@ export interface PublicResults {
 }
 
 /** The published results: ranked entries with names revealed; null before publication. */
-export async function publicResults(contestId: number, tx: DbOrTx = appDb): Promise<PublicResults | null> {
-	const data = await loadData(contestId, tx);
+export async function publicResults(contestId: number, context: Context = {}): Promise<PublicResults | null> {
+	const { db: tx } = resolve(context);
+	const data = await loadData(contestId, context);
 	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
 	const report = computeResults(inputOf(data));
 	const photos = await media.listForMany(
@@ -285,8 +288,8 @@ export async function publicResults(contestId: number, tx: DbOrTx = appDb): Prom
 				entries: cat.entries.map((r) => shape(data, r, photos))
 			};
 		}),
-		panel: data.panel.map((p) => p.displayName),
-		corrections: await audit.trail(contestId, PUBLIC_CORRECTION_ACTIONS, tx),
+		panel: data.panel.map((p) => p.name),
+		corrections: await audit.trail(auditSubject(contestId), PUBLIC_CORRECTION_ACTIONS, context),
 		unevenPanel: report.unevenPanel
 	};
 }
@@ -305,10 +308,11 @@ export interface Feedback {
 }
 
 /** An entrant's full feedback on their entry (or an admin's view of it), after publication. */
-export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = appDb): Promise<Feedback | null> {
+export async function feedback(viewer: Viewer, entryId: number, context: Context = {}): Promise<Feedback | null> {
+	const { db: tx } = resolve(context);
 	const [entry] = await tx.select().from(contestEntries).where(eq(contestEntries.id, entryId)).limit(1);
 	if (!entry || (entry.entrantId !== viewer.id && viewer.role !== 'admin')) return null;
-	const data = await loadData(entry.contestId, tx);
+	const data = await loadData(entry.contestId, context);
 	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
 	const report = computeResults(inputOf(data));
 	const index = data.contest.categories.findIndex((c) => c.id === entry.categoryId);
@@ -342,78 +346,90 @@ export async function feedback(viewer: Viewer, entryId: number, tx: DbOrTx = app
 
 function requireReason(reason: string | null | undefined): string {
 	const r = (reason ?? '').trim();
-	if (r.length < CORRECTION_REASON_MIN)
-		throw new ContestError(400, `Give a reason of at least ${CORRECTION_REASON_MIN} characters; it is shown with the results.`, 'reason', {
-			reason: 'Give a reason.'
-		});
+	if (r.length < AUDITED_REASON_MIN) {
+		throw invalid({ reason: 'Give a reason.' }, `Give a reason of at least ${AUDITED_REASON_MIN} characters; it is shown with the results.`, 'reason');
+	}
 	return r;
 }
 
 /** Ranking basis: before publication a setting; after it a correction with a reason, shown publicly. */
-export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankBasis, reason: string | null, database: DbOrTx = appDb): Promise<void> {
-	assertAdmin(viewer);
-	await database.transaction(async (tx) => {
-		const [c] = await tx.select().from(contests).where(eq(contests.id, contestId)).for('update');
-		if (!c) throw new ContestNotFound('No such contest.');
+export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankBasis, reason: string | null, context: Context = {}): Promise<void> {
+	const { now } = resolve(context);
+	await adminChange(viewer, contestId, context, async ({ contest: c, tx, context: inTx }) => {
 		if (c.rankBy === rankBy) return;
-		if (c.state === 'archived') throw new ContestError(409, 'An archived contest cannot be changed.');
+		if (c.state === 'archived') throw conflict('archived', 'An archived contest cannot be changed.');
 		const published = c.state === 'published';
 		const why = published ? requireReason(reason) : null;
 		await tx
 			.update(contests)
-			.set({ rankBy, updatedAt: new Date(), ...(published ? { resultsRevision: c.resultsRevision + 1 } : {}) })
+			.set({ rankBy, updatedAt: now, ...(published ? { resultsRevision: c.resultsRevision + 1 } : {}) })
 			.where(eq(contests.id, contestId));
-		await audit.record(tx, viewer.id, published ? 'results.rank-by' : 'contest.rank-by', contestId, {
-			from: c.rankBy,
-			to: rankBy,
-			...(why ? { reason: why } : {})
-		});
+		await audit.record(
+			{
+				actorId: viewer.id,
+				action: published ? 'results.rank-by' : 'contest.rank-by',
+				subject: auditSubject(contestId),
+				detail: { from: c.rankBy, to: rankBy, ...(why ? { reason: why } : {}) }
+			},
+			inTx
+		);
 	});
+}
+
+/** A card of the contest as the admin's correction form shows it; null when there is no such card. */
+export async function cardToCorrect(viewer: Viewer, contestId: number, cardId: number, context: Context = {}) {
+	assertAdmin(viewer);
+	const data = await loadData(contestId, context);
+	const card = data?.cards.find((c) => c.id === cardId);
+	if (!data || !card) return null;
+	const entry = data.entries.find((e) => e.id === card.entryId)!;
+	return {
+		contest: data.contest,
+		card,
+		fields: normaliseFields(rubricOf(data.contest.criteria), card.fields),
+		judge: nameIn(data, card.judgeId),
+		number: entry.number,
+		entrant: nameIn(data, entry.entrantId)
+	};
 }
 
 /** An admin corrects a submitted card after publication (say a judge reports a slip), with a reason. */
-export async function amendCard(viewer: Viewer, cardId: number, fields: CardFields, reason: string, database: DbOrTx = appDb): Promise<number> {
+export async function amendCard(viewer: Viewer, cardId: number, fields: CardFields, reason: string, context: Context = {}): Promise<number> {
 	assertAdmin(viewer);
-	return database.transaction(async (tx) => {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
 		const [card] = await tx.select().from(contestCards).where(eq(contestCards.id, cardId)).for('update');
-		if (!card) throw new ContestNotFound('No such card.');
-		const [c] = await tx.select().from(contests).where(eq(contests.id, card.contestId)).for('update');
-		if (!c || c.state !== 'published')
-			throw new ContestError(409, 'Cards can be corrected only while the results are published (not before, and not once archived).');
-		if (card.status !== 'submitted') throw new ContestError(409, 'Only submitted cards count, so only they can be corrected.');
+		if (!card) throw notFound('No such card.');
+		const c = await lockedRow(card.contestId, { db: tx });
+		if (!c || c.state !== 'published') {
+			throw conflict('not-published', 'Cards can be corrected only while the results are published (not before, and not once archived).');
+		}
+		if (card.status !== 'submitted') throw conflict('not-submitted', 'Only submitted cards count, so only they can be corrected.');
 		const why = requireReason(reason);
-		const detail = (await load(c.id, tx))!;
+		const detail = (await load(c.id, { db: tx }))!;
 		const rubric = rubricOf(detail.criteria);
 		const checked = checkDraftFields(rubric, fields);
-		if (!checked.ok) throw new ContestError(400, checked.message, 'invalid');
-		if (!validateScorecard(rubric, checked.fields.scores).submittable) throw new ContestError(400, 'Every criterion needs a score.', 'incomplete');
+		if (!checked.ok) throw new DomainError(400, 'invalid', checked.message);
+		if (!validateScorecard(rubric, checked.fields.scores).submittable) throw new DomainError(400, 'incomplete', 'Every criterion needs a score.');
 		const before = normaliseFields(rubric, card.fields);
 		await tx
 			.update(contestCards)
-			.set({ fields: { ...checked.fields, panelNote: before.panelNote }, version: card.version + 1, updatedAt: new Date() })
+			.set({ fields: { ...checked.fields, panelNote: before.panelNote }, version: card.version + 1, updatedAt: now })
 			.where(eq(contestCards.id, cardId));
 		await tx
 			.update(contests)
-			.set({ resultsRevision: c.resultsRevision + 1, updatedAt: new Date() })
+			.set({ resultsRevision: c.resultsRevision + 1, updatedAt: now })
 			.where(eq(contests.id, c.id));
 		const [entry] = await tx.select({ number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.id, card.entryId));
-		await audit.record(tx, viewer.id, 'results.amend-card', c.id, {
-			reason: why,
-			cardId,
-			entryNumber: entry?.number ?? null,
-			before: before.scores,
-			after: checked.fields.scores
-		});
+		await audit.record(
+			{
+				actorId: viewer.id,
+				action: 'results.amend-card',
+				subject: auditSubject(c.id),
+				detail: { reason: why, cardId, entryNumber: entry?.number ?? null, before: before.scores, after: checked.fields.scores }
+			},
+			within(context, tx)
+		);
 		return c.id;
 	});
-}
-
-/** Cards of several entries with their judge, for the admin's correction form and the CSV. */
-export async function cardsOf(contestId: number, entryIds: number[], tx: DbOrTx = appDb): Promise<CardRow[]> {
-	if (entryIds.length === 0) return [];
-	return tx
-		.select()
-		.from(contestCards)
-		.where(and(eq(contestCards.contestId, contestId), inArray(contestCards.entryId, entryIds)))
-		.orderBy(asc(contestCards.id));
 }

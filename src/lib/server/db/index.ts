@@ -2,6 +2,7 @@ import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import mysql from 'mysql2/promise';
 import { config } from '../config';
 import * as schema from './schema';
+import { countStatements } from './query-count';
 
 export type Database = MySql2Database<typeof schema>;
 /** A transaction handle; domain functions that must join the caller's transaction take one. */
@@ -21,6 +22,7 @@ function createPool(url: string) {
 	pool.pool.on('connection', (conn) => {
 		conn.query("SET time_zone = '+00:00'");
 	});
+	if (config().BENCH) countStatements(pool);
 	return pool;
 }
 

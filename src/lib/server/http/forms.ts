@@ -8,10 +8,9 @@
 // A 404 becomes the not-found page. Anything else (a redirect, a bug) passes through untouched.
 import { error, fail, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { isDomainError, parseOrThrow, type FieldErrors } from '$lib/errors';
+import { FORM_ERROR, isDomainError, parseOrThrow, type FieldErrors } from '$lib/errors';
 
-/** The key of a message about the whole form rather than one field. */
-export const FORM_ERROR = '_form';
+export { FORM_ERROR };
 
 export interface FormRefusal<V = Record<string, string>> {
 	form?: string;

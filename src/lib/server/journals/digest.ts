@@ -3,8 +3,8 @@
 // transaction as the mail, and the mail's dedupe key says the same, so a second run adds nothing.
 import { and, desc, eq, gte, inArray } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
-import * as members from '../club/members';
-import type { DigestReader } from '../club/members';
+import * as directory from '../club/directory';
+import type { DigestReader } from '../club/directory';
 import { enqueue } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
 import { unsubscribeHeaders, unsubscribeUrl } from '../mail/unsubscribe';
@@ -55,7 +55,7 @@ async function readersDue(week: string, limit: number, context: Context): Promis
 	const due: DigestReader[] = [];
 	let afterId: string | undefined;
 	while (due.length < limit) {
-		const page = await members.weeklyDigestReaders({ afterId, limit }, context);
+		const page = await directory.weeklyDigestReaders({ afterId, limit }, context);
 		if (page.length === 0) break;
 		const considered = new Set(
 			(
@@ -104,7 +104,6 @@ export async function sendWeeklyDigests(context: Context = {}): Promise<number> 
 				unsubscribeUrl: unsubscribe
 			});
 			await enqueue(
-				tx,
 				{
 					to: member.email,
 					subject: content.subject,
@@ -115,7 +114,7 @@ export async function sendWeeklyDigests(context: Context = {}): Promise<number> 
 					bulk: true,
 					dedupeKey: `journal-digest:${member.id}:${week}`
 				},
-				now
+				{ db: tx, now }
 			);
 			return true;
 		});

@@ -9,7 +9,7 @@ import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
 import type { Viewer } from '../club/users';
-import * as members from '../club/members';
+import * as directory from '../club/directory';
 import * as audit from '../audit';
 import * as catalogue from '../species/catalogue';
 import { renderMarkdown } from '../markdown';
@@ -237,7 +237,7 @@ export async function update(
 		await tanks.touch(tankId, inTx);
 		return keys;
 	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[entries] removing dropped photos of entry ${entryId} failed:`, error));
+	await media.purgeAfterCommit(purge, { entryId, what: 'dropped photos' });
 }
 
 /** Deletes an entry with its events, comments and photos (objects after the commit). */
@@ -267,7 +267,7 @@ async function hydrate(rows: EntryRow[], context: Context): Promise<Entry[]> {
 	const [photos, events, names, comments] = await Promise.all([
 		media.listForMany('entry', ids, context),
 		db.select().from(journalEvents).where(inArray(journalEvents.entryId, ids)).orderBy(asc(journalEvents.position), asc(journalEvents.id)),
-		members.names(
+		directory.names(
 			rows.map((r) => r.authorId),
 			context
 		),
@@ -342,7 +342,7 @@ export async function comments(
 		.from(entryComments)
 		.where(eq(entryComments.entryId, entryId))
 		.orderBy(asc(entryComments.createdAt), asc(entryComments.id));
-	const names = await members.names(
+	const names = await directory.names(
 		rows.map((c) => c.authorId),
 		context
 	);

@@ -3,7 +3,7 @@ import { and, count, desc, eq, gte, isNull, lt, sql, type SQL } from 'drizzle-or
 import { resolve, type Context } from '../context';
 import * as media from '../media';
 import type { Photo } from '../media';
-import * as members from '../club/members';
+import * as directory from '../club/directory';
 import { UNNAMED_MEMBER } from '../../club/names';
 import { VOLUME_BANDS, type ShowcaseSort, type VolumeBand } from '../../journals/showcase-filters';
 import { tankAdmires, tanks } from './schema';
@@ -73,7 +73,7 @@ export async function list(filter: ShowcaseFilter, context: Context = {}): Promi
 			rows.map((r) => r.id),
 			context
 		),
-		members.names(
+		directory.names(
 			rows.map((r) => r.ownerId),
 			context
 		)

@@ -3,7 +3,7 @@
 import { and, count, eq, isNull, lte, ne, or, sql } from 'drizzle-orm';
 import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
-import * as members from '../club/members';
+import * as directory from '../club/directory';
 import { enqueue } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
 import { absoluteUrl } from '../config';
@@ -122,7 +122,7 @@ export async function notifyFollowers(tank: TankRow, entry: { id: number; title:
 			.where(and(eq(tankFollows.tankId, tank.id), ne(tankFollows.userId, tank.ownerId)))
 	).map((f) => f.userId);
 	if (followerIds.length === 0) return 0;
-	const people = await members.contacts([tank.ownerId, ...followerIds], context);
+	const people = await directory.byIds([tank.ownerId, ...followerIds], context);
 	let queued = 0;
 	for (const userId of followerIds) {
 		const email = people.get(userId)?.email;
@@ -147,14 +147,13 @@ export async function notifyFollowers(tank: TankRow, entry: { id: number; title:
 			tankUrl: absoluteUrl(`/journals/${tank.id}`)
 		});
 		await enqueue(
-			db,
 			{
 				to: email,
 				...mail,
 				topic: `tank-follow:${tank.id}`,
 				dedupeKey: `tank-follow:${tank.id}:${userId}:${today('UTC', now)}`
 			},
-			now
+			{ db, now }
 		);
 		queued++;
 	}

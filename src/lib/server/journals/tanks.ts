@@ -8,7 +8,7 @@ import * as media from '../media';
 import type { Photo, Purge } from '../media';
 import type { PhotoField } from '../../media/form';
 import type { Viewer } from '../club/users';
-import * as members from '../club/members';
+import * as directory from '../club/directory';
 import * as catalogue from '../species/catalogue';
 import { notFound } from '../../errors';
 import { UNNAMED_MEMBER } from '../../club/names';
@@ -69,7 +69,7 @@ async function row(id: number, db: DbOrTx): Promise<TankRow | undefined> {
 async function load(found: TankRow, context: Context): Promise<Tank> {
 	const { db } = resolve(context);
 	const [owner, lights, filters, fertilisers, plants, livestock, photos] = await Promise.all([
-		members.names([found.ownerId], context),
+		directory.names([found.ownerId], context),
 		db.select().from(tankLights).where(eq(tankLights.tankId, found.id)).orderBy(asc(tankLights.position), asc(tankLights.id)),
 		db.select().from(tankFilters).where(eq(tankFilters.tankId, found.id)).orderBy(asc(tankFilters.position), asc(tankFilters.id)),
 		db.select().from(tankFertilisers).where(eq(tankFertilisers.tankId, found.id)).orderBy(asc(tankFertilisers.position), asc(tankFertilisers.id)),
@@ -329,7 +329,7 @@ export async function update(viewer: Pick<Viewer, 'id'>, id: number, input: Tank
 		await writeChildren(tx, id, input);
 		return media.setPhotos(viewer.id, 'tank', id, cover, COVER_RULES, within(context, tx));
 	});
-	await media.purge(purge).catch((error: unknown) => console.error(`[tanks] removing replaced photos of tank ${id} failed:`, error));
+	await media.purgeAfterCommit(purge, { tankId: id, what: 'replaced photos' });
 }
 
 /** Retires a running tank: it stays on the profile with all its history, marked as taken down. */

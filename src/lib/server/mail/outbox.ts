@@ -2,9 +2,15 @@ import { hostname } from 'node:os';
 import pLimit from 'p-limit';
 import { and, eq, inArray, lte, or, sql } from 'drizzle-orm';
 import { config } from '../config';
-import { db as appDb, type Database, type DbOrTx } from '../db';
-import { outbox, outboxAttempts } from './schema';
+import { resolve, type Context } from '../context';
+import { recordHeartbeat } from '../jobs/runner';
+import { component, reason as reasonOf } from '../ops/log';
+import { outboxDeliveries } from '../ops/metrics';
+import { maskAddress, maskAddresses } from '../../ops/mask';
+import { OUTBOX_STATES, outbox, outboxAttempts, type OutboxState } from './schema';
 import { defaultTransport, type MailTransport } from './transport';
+
+const log = component('outbox');
 
 export interface QueuedMail {
 	to: string;
@@ -40,14 +46,15 @@ function messageIdFor(domainFrom: string) {
 }
 
 /**
- * Queues mail inside the caller's transaction, so the mail exists exactly when the change that
- * caused it commits.
+ * Queues mail inside the caller's transaction (`{ db: tx }`), so the mail exists exactly when the
+ * change that caused it commits.
  */
-export async function enqueue(tx: DbOrTx, mails: QueuedMail | QueuedMail[], now = new Date()): Promise<void> {
+export async function enqueue(mails: QueuedMail | QueuedMail[], context: Context = {}): Promise<void> {
 	const list = Array.isArray(mails) ? mails : [mails];
 	if (list.length === 0) return;
+	const { db, now } = resolve(context);
 	const from = config().MAIL_FROM;
-	await tx
+	await db
 		.insert(outbox)
 		.values(
 			list.map((m) => ({
@@ -68,10 +75,8 @@ export async function enqueue(tx: DbOrTx, mails: QueuedMail | QueuedMail[], now 
 }
 
 export interface DeliveryOptions {
-	db?: Database;
 	transport?: MailTransport;
 	worker?: string;
-	now?: Date;
 	batchSize?: number;
 }
 
@@ -80,11 +85,10 @@ export interface DeliveryOptions {
  * `sending` with a lease, then delivers them outside the transaction. A claimed row is never
  * claimed again unless its lease runs out, which the SMTP timeouts keep from happening.
  */
-export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent: number; failed: number }> {
-	const db = options.db ?? appDb;
+export async function deliverDue(options: DeliveryOptions = {}, context: Context = {}): Promise<{ sent: number; failed: number }> {
+	const { db, now } = resolve(context);
 	const transport = options.transport ?? defaultTransport();
 	const worker = options.worker ?? `${hostname()}:${process.pid}`;
-	const now = options.now ?? new Date();
 	const batchSize = options.batchSize ?? 20;
 
 	const claimed = await db.transaction(async (tx) => {
@@ -110,6 +114,8 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 
 	let sent = 0;
 	let failed = 0;
+	/** What went out, by the topic's kind ("swap-thread:42" counts as swap-thread), for the log. */
+	const topics: Record<string, number> = {};
 	const deliverOne = async (message: (typeof claimed)[number]) => {
 		const attempt = message.attempts + 1;
 		try {
@@ -126,8 +132,12 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 				await tx.insert(outboxAttempts).values({ outboxId: message.id, worker, ok: true, at: new Date() });
 			});
 			sent++;
+			const kind = message.topic?.split(':')[0] ?? 'other';
+			topics[kind] = (topics[kind] ?? 0) + 1;
+			outboxDeliveries.inc({ result: 'sent' });
+			log.debug({ mailId: message.id, topic: message.topic, to: maskAddress(message.toAddress), attempt }, 'mail sent');
 		} catch (error) {
-			const reason = error instanceof Error ? error.message : String(error);
+			const reason = reasonOf(error);
 			const giveUp = attempt >= MAX_ATTEMPTS;
 			await db.transaction(async (tx) => {
 				await tx
@@ -142,36 +152,93 @@ export async function deliverDue(options: DeliveryOptions = {}): Promise<{ sent:
 				await tx.insert(outboxAttempts).values({ outboxId: message.id, worker, ok: false, error: reason.slice(0, 2000), at: new Date() });
 			});
 			failed++;
+			outboxDeliveries.inc({ result: giveUp ? 'failed' : 'retry' });
+			// The server's reply can quote the address: mask it like the recipient.
+			const fields = { mailId: message.id, topic: message.topic, to: maskAddress(message.toAddress), attempt, reason: maskAddresses(reason) };
+			if (giveUp) log.error(fields, `mail given up after ${attempt} attempts`);
+			else log.warn({ ...fields, retryInSeconds: backoffMs(attempt) / 1000 }, 'mail not delivered; will retry');
 		}
 	};
 	const limit = pLimit(SEND_CONCURRENCY);
 	await Promise.all(claimed.map((message) => limit(() => deliverOne(message))));
+	if (claimed.length > 0) log.info({ worker, sent, failed, topics }, 'outbox batch delivered');
 	return { sent, failed };
 }
 
-/** Polls the outbox until stopped. Several of these may run at once, in one process or many. */
+/** This process's worker, for /readyz: when it started and when a round last finished. */
+let workerState: { startedAt: number; lastRoundAt: number | null } | null = null;
+
+export function workerStatus(): { runsHere: boolean; startedAt: number | null; lastRoundAt: number | null } {
+	return { runsHere: workerState !== null, startedAt: workerState?.startedAt ?? null, lastRoundAt: workerState?.lastRoundAt ?? null };
+}
+
+/** The job_run row the workers' heartbeat is written to (never claimed as a job). */
+export const WORKER_HEARTBEAT = 'outbox-worker';
+/** A heartbeat row written at most this often per process, so idle polling does not write every round. */
+const HEARTBEAT_EVERY_MS = 15_000;
+
+/**
+ * Polls the outbox until stopped. Several of these may run at once, in one process or many. The
+ * function it returns stops polling and resolves once a round in progress has finished.
+ */
 export function startWorker(options: { intervalMs?: number; onError?: (e: unknown) => void } = {}) {
 	const interval = options.intervalMs ?? config().OUTBOX_POLL_MS;
+	const worker = `${hostname()}:${process.pid}`;
+	const state = { startedAt: Date.now(), lastRoundAt: null as number | null };
+	workerState = state;
+	let lastHeartbeat = 0;
 	let stopped = false;
 	let timer: ReturnType<typeof setTimeout> | undefined;
-	const tick = async () => {
+	let round: Promise<void> = Promise.resolve();
+	const tick = () => (round = deliverRounds());
+	const deliverRounds = async () => {
 		if (stopped) return;
 		try {
 			// A full batch means more may be waiting: keep draining before the pause.
 			const batchSize = 20;
 			let handled: number;
 			do {
-				const result = await deliverDue({ batchSize });
+				const result = await deliverDue({ batchSize, worker });
 				handled = result.sent + result.failed;
+				state.lastRoundAt = Date.now();
 			} while (!stopped && handled === batchSize);
+			if (state.lastRoundAt - lastHeartbeat >= HEARTBEAT_EVERY_MS) {
+				await recordHeartbeat(WORKER_HEARTBEAT, worker, { now: new Date(state.lastRoundAt) });
+				lastHeartbeat = state.lastRoundAt;
+			}
 		} catch (error) {
+			log.error({ reason: reasonOf(error) }, 'outbox round failed');
 			options.onError?.(error);
 		}
 		if (!stopped) timer = setTimeout(() => void tick(), interval);
 	};
 	timer = setTimeout(() => void tick(), 500);
-	return () => {
+	return (): Promise<void> => {
 		stopped = true;
 		if (timer) clearTimeout(timer);
+		if (workerState === state) workerState = null;
+		return round;
 	};
+}
+
+/**
+ * The outbox at a glance for the metrics, in one query: messages per state (answered from the
+ * (state, next_attempt_at) index) and how long the oldest undelivered one has waited (reads only
+ * the few undelivered rows; measured on the database's clock, which also stamped it).
+ */
+export async function queueStats(context: Context = {}): Promise<{ byState: Record<OutboxState, number>; oldestUndeliveredSeconds: number | null }> {
+	const { db } = resolve(context);
+	const [rows] = (await db.execute(sql`
+		SELECT ${outbox.state} AS state, COUNT(*) AS n, NULL AS waited FROM ${outbox} GROUP BY ${outbox.state}
+		UNION ALL
+		SELECT 'oldest', 0, TIMESTAMPDIFF(MICROSECOND, MIN(${outbox.createdAt}), UTC_TIMESTAMP(3)) / 1000000
+		FROM ${outbox} WHERE ${outbox.state} IN ('queued', 'sending')`)) as unknown as [{ state: string; n: number | string; waited: number | string | null }[]];
+	const byState = Object.fromEntries(OUTBOX_STATES.map((s) => [s, 0])) as Record<OutboxState, number>;
+	let oldestUndeliveredSeconds: number | null = null;
+	for (const row of rows) {
+		// COUNT and the division come back as strings (DECIMAL) or numbers depending on the driver's settings.
+		if (row.state === 'oldest') oldestUndeliveredSeconds = row.waited === null ? null : Math.max(0, Number(row.waited));
+		else if ((OUTBOX_STATES as readonly string[]).includes(row.state)) byState[row.state as OutboxState] = Number(row.n);
+	}
+	return { byState, oldestUndeliveredSeconds };
 }

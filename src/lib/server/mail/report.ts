@@ -1,13 +1,16 @@
 import { and, count, desc, eq, like, type SQL } from 'drizzle-orm';
-import { db } from '../db';
+import { resolve, type Context } from '../context';
 import { outbox, type OutboxState } from './schema';
+
+export { OUTBOX_STATES, type OutboxState } from './schema';
 
 export const OUTBOX_PAGE_SIZE = 25;
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => '\\' + c);
 
 /** The outbox as admins see it: what was queued, for whom, and how delivery went. */
-export async function listOutbox(filter: { state?: OutboxState; topic?: string; address?: string; page: number }) {
+export async function listOutbox(filter: { state?: OutboxState; topic?: string; address?: string; page: number }, context: Context = {}) {
+	const { db } = resolve(context);
 	const conditions: SQL[] = [];
 	if (filter.state) conditions.push(eq(outbox.state, filter.state));
 	if (filter.topic) conditions.push(like(outbox.topic, `${escapeLike(filter.topic)}%`));
@@ -37,7 +40,8 @@ export async function listOutbox(filter: { state?: OutboxState; topic?: string; 
 }
 
 /** Per-recipient delivery state for everything queued under a topic prefix (e.g. "contest:7:"). */
-export async function deliverySummary(topicPrefix: string) {
+export async function deliverySummary(topicPrefix: string, context: Context = {}) {
+	const { db } = resolve(context);
 	const rows = await db
 		.select({ state: outbox.state, n: count() })
 		.from(outbox)

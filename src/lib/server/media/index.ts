@@ -1,7 +1,7 @@
 // The media pipeline: uploads, the photos attached to things, and their removal. Features that
 // own photos (tanks, journal entries, swap listings, contest entries) call these functions inside
 // their own transactions (`{ db: tx }`) and register who may see their photos (./access.ts).
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { and, asc, count, eq, inArray, isNull, lt } from 'drizzle-orm';
 import { mediaUrls, RENDITION_SIZES, type RenditionSize } from '../../media/urls';
 import { readPhotoFields, type PhotoField, type UploaderPhoto } from '../../media/form';
@@ -11,6 +11,10 @@ import { media, type MediaRow, type StoredRendition } from './schema';
 import { prepareImage } from './process';
 import { store as defaultStore, type ObjectStore } from './storage';
 import { requireScope, type MediaScope } from './access';
+import { component, reason } from '../ops/log';
+import { uploadSeconds } from '../ops/metrics';
+
+const log = component('media');
 
 export { registerScope, type MediaScope, type MediaAudience, type ScopeAccess } from './access';
 
@@ -66,6 +70,21 @@ export function toPhoto(row: MediaRow): Photo {
  * insert fails.
  */
 export async function upload(ownerId: string, bytes: Uint8Array, context: MediaContext = {}): Promise<UploadResult> {
+	const started = performance.now();
+	let outcome = 'error';
+	try {
+		const result = await storeUpload(ownerId, bytes, context);
+		outcome = 'ok';
+		return result;
+	} catch (error) {
+		if (error instanceof DomainError) outcome = 'rejected';
+		throw error;
+	} finally {
+		uploadSeconds.observe({ outcome }, (performance.now() - started) / 1000);
+	}
+}
+
+async function storeUpload(ownerId: string, bytes: Uint8Array, context: MediaContext): Promise<UploadResult> {
 	const { db } = resolve(context);
 	const bucket = context.store ?? defaultStore();
 	const [pending] = await db
@@ -111,7 +130,7 @@ export async function upload(ownerId: string, bytes: Uint8Array, context: MediaC
 		return { id: result.insertId, width: prepared.width, height: prepared.height, urls: mediaUrls(result.insertId) };
 	} catch (error) {
 		await bucket.remove(written).catch((cleanup: unknown) => {
-			console.error(`[media] could not remove ${written.length} objects of a failed upload under ${storageKey}:`, cleanup);
+			log.error({ objects: written.length, storageKey, reason: reason(cleanup) }, 'objects of a failed upload could not be removed');
 		});
 		throw error;
 	}
@@ -124,6 +143,14 @@ export type Purge = string[];
 export async function purge(keys: Purge, context: MediaContext = {}): Promise<void> {
 	if (keys.length === 0) return;
 	await (context.store ?? defaultStore()).remove(keys);
+}
+
+/**
+ * purge() after a member's change has committed: a failure is logged with what it was about
+ * (e.g. `{ tankId: 4, what: 'replaced photos' }`) and does not undo or fail the change.
+ */
+export async function purgeAfterCommit(keys: Purge, about: Record<string, string | number>): Promise<void> {
+	await purge(keys).catch((error: unknown) => log.error({ ...about, objects: keys.length, reason: reason(error) }, 'removing photos from the bucket failed'));
 }
 
 /** The photos of one thing, in order. */
@@ -283,10 +310,47 @@ export async function sweepPending(options: { batch?: number } = {}, context: Me
 			await db.delete(media).where(and(eq(media.id, row.id), isNull(media.scope)));
 			removed++;
 		} catch (error) {
-			console.error(`[media] sweeping pending upload ${row.id} failed:`, error instanceof Error ? error.message : error);
+			log.error({ mediaId: row.id, reason: reason(error) }, 'sweeping a pending upload failed');
 		}
 	}
 	return removed;
+}
+
+/** One rendition of one photo, ready to serve: an entity tag for it and a way to read its bytes. */
+export interface RenditionHandle {
+	etag: string;
+	open(): ReturnType<ObjectStore['get']>;
+}
+
+/** A rendition of a photo known by its row, served at /media/<id>/<size>. */
+export function renditionOfRow(row: Pick<MediaRow, 'id' | 'storageKey'>, size: RenditionSize, context: MediaContext = {}): RenditionHandle {
+	return { etag: `"${row.id}-${size}"`, open: () => (context.store ?? defaultStore()).get(objectKey(row.storageKey, size)) };
+}
+
+/**
+ * A rendition of the photo at `index` (0-based, in display order) of a thing, for a feature that
+ * serves a thing's photos under addresses of its own rather than /media/<id> (blind judging). Its
+ * entity tag is a digest of the file's key, so it names neither the photo's id nor its owner.
+ */
+export async function renditionAt(
+	scope: MediaScope,
+	scopeId: number,
+	index: number,
+	size: RenditionSize,
+	context: MediaContext = {}
+): Promise<RenditionHandle | null> {
+	if (!Number.isInteger(index) || index < 0) return null;
+	const { db } = resolve(context);
+	const [row] = await db
+		.select({ storageKey: media.storageKey })
+		.from(media)
+		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
+		.orderBy(asc(media.position), asc(media.id))
+		.limit(1)
+		.offset(index);
+	if (!row) return null;
+	const digest = createHash('sha256').update(objectKey(row.storageKey, size)).digest('base64url').slice(0, 32);
+	return { etag: `"${digest}"`, open: () => (context.store ?? defaultStore()).get(objectKey(row.storageKey, size)) };
 }
 
 export async function getRow(id: number, context: Context = {}): Promise<MediaRow | undefined> {

@@ -1,4 +1,4 @@
-import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, NoSuchKey, PutObjectCommand, S3Client, S3ServiceException } from '@aws-sdk/client-s3';
 import { config } from '../config';
 
 /** The bucket as the media pipeline sees it; tests pass a wrapper to simulate failures. */
@@ -68,3 +68,8 @@ export function bucketStore(bucket = config().S3_BUCKET, s3Client: S3Client = s3
 
 let defaultStore: ObjectStore | undefined;
 export const store = () => (defaultStore ??= bucketStore());
+
+/** Resolves when the bucket answers (HeadBucket: it exists and the keys may use it); for /readyz. */
+export async function checkBucket(signal: AbortSignal, bucket = config().S3_BUCKET, s3Client: S3Client = s3()): Promise<void> {
+	await s3Client.send(new HeadBucketCommand({ Bucket: bucket }), { abortSignal: signal });
+}

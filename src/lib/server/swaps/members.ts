@@ -1,13 +1,13 @@
 // A member's small profile as other members see it: name, roughly where (an area name, or "near"
 // the nearest area for a point of their own, never the point), completed swaps.
-import { eq } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
-import { users } from '../club/schema';
+import { and, count, eq, or } from 'drizzle-orm';
+import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import * as users from '../club/users';
 import * as areas from '../club/areas';
 import { nearestArea } from '../../swaps/places';
+import { listings } from './schema';
 import * as blocks from './blocks';
-import { completedSwaps } from './listings';
 
 export interface MemberProfile {
 	id: string;
@@ -21,11 +21,8 @@ export interface MemberProfile {
 }
 
 /** The label for where a member is: their area, "near" the area nearest their point, or null. */
-export async function areaLabelOf(
-	user: { homeAreaId: number | null; homeLat: number | null; homeLng: number | null },
-	database: DbOrTx = appDb
-): Promise<string | null> {
-	const all = await areas.list(database);
+async function areaLabelOf(user: { homeAreaId: number | null; homeLat: number | null; homeLng: number | null }, context: Context): Promise<string | null> {
+	const all = await areas.list({ db: context.db });
 	const own = user.homeAreaId !== null ? all.find((a) => a.id === user.homeAreaId) : undefined;
 	if (own) return own.name;
 	if (user.homeLat === null || user.homeLng === null) return null;
@@ -33,13 +30,24 @@ export async function areaLabelOf(
 	return near ? `near ${near.name}` : null;
 }
 
-export async function profile(viewer: Viewer, memberId: string, database: DbOrTx = appDb): Promise<MemberProfile | null> {
-	const [user] = await database.select().from(users).where(eq(users.id, memberId));
+/** Swaps a member has completed, as giver or receiver. */
+export async function completedSwaps(userId: string, context: Context = {}): Promise<number> {
+	const { db } = resolve(context);
+	const [row] = await db
+		.select({ n: count() })
+		.from(listings)
+		.where(and(eq(listings.state, 'handed-over'), or(eq(listings.ownerId, userId), eq(listings.reservedRequesterId, userId))));
+	return row?.n ?? 0;
+}
+
+/** A member as other members see them; null for no such member, or one who has not named themselves yet. */
+export async function profile(viewer: Viewer, memberId: string, context: Context = {}): Promise<MemberProfile | null> {
+	const user = await users.getById(memberId, { db: context.db });
 	if (!user || !user.displayName) return null;
 	const [area, completed, relation] = await Promise.all([
-		areaLabelOf(user, database),
-		completedSwaps(user.id, database),
-		blocks.between(viewer.id, user.id, database)
+		areaLabelOf(user, context),
+		completedSwaps(user.id, context),
+		blocks.between(viewer.id, user.id, context)
 	]);
 	return {
 		id: user.id,

@@ -4,22 +4,15 @@
 // what is still unread once the hour has passed. Everything is queued through the outbox inside
 // the transaction that causes it, for delivery straight away (`now` only decides the batching).
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
-import { db as appDb, type Database, type DbOrTx } from '../db';
-import { users } from '../club/schema';
+import { resolve, type Context } from '../context';
+import * as users from '../club/users';
+import * as directory from '../club/directory';
 import { enqueue, type QueuedMail } from '../mail/outbox';
+import { nameOf } from '../../club/names';
+import { SITE_SENDER } from '../../swaps/conversation';
 import { onMessagePosted, planMails, type NotifySetting, type PendingThread } from '../../swaps/notify';
 import { listings, swapMailState, swapMessages, swapThreads, type ThreadRow } from './schema';
 import { summaryMail, threadMail } from './mail';
-
-async function person(tx: DbOrTx, id: string) {
-	const [row] = await tx
-		.select({ email: users.email, displayName: users.displayName, notifyMessages: users.notifyMessages })
-		.from(users)
-		.where(eq(users.id, id));
-	return row;
-}
-
-export const displayName = (row: { displayName: string | null } | undefined) => row?.displayName ?? 'A member';
 
 const sideOf = (thread: Pick<ThreadRow, 'ownerId'>, userId: string) => (thread.ownerId === userId ? 'ownerMailedAt' : 'requesterMailedAt');
 
@@ -28,28 +21,28 @@ const sideOf = (thread: Pick<ThreadRow, 'ownerId'>, userId: string) => (thread.o
  * now, leave it for the job, or settle that no mail will go.
  */
 export async function afterPost(
-	tx: DbOrTx,
 	thread: ThreadRow,
 	message: { id: number; senderId: string; recipientId: string; body: string },
-	now: Date
+	context: Context = {}
 ): Promise<void> {
-	const recipient = await person(tx, message.recipientId);
+	const { db: tx, now } = resolve(context);
+	const recipient = await users.getById(message.recipientId, { db: tx });
 	if (!recipient?.email) return;
 	const side = sideOf(thread, message.recipientId);
 	const decision = onMessagePosted(recipient.notifyMessages as NotifySetting, thread[side], now);
 	if (decision === 'later') return;
 	if (decision === 'mail-now') {
 		const [listing] = await tx.select({ title: listings.title }).from(listings).where(eq(listings.id, thread.listingId));
-		const sender = displayName(await person(tx, message.senderId));
+		const sender = nameOf((await directory.names([message.senderId], { db: tx })).get(message.senderId));
 		await enqueue(
-			tx,
 			threadMail(recipient.email, {
 				threadId: thread.id,
 				recipientId: message.recipientId,
 				title: listing?.title ?? 'your swap',
 				otherName: sender,
 				messages: [{ senderName: sender, body: message.body }]
-			})
+			}),
+			{ db: tx }
 		);
 		await tx
 			.update(swapThreads)
@@ -60,17 +53,19 @@ export async function afterPost(
 }
 
 /** A change the member hears about at once (accepted, withdrawn…), unless they turned swap mail off. */
-export async function queueNotice(tx: DbOrTx, userId: string, build: (email: string) => QueuedMail): Promise<void> {
-	const recipient = await person(tx, userId);
+export async function queueNotice(userId: string, build: (email: string) => QueuedMail, context: Context = {}): Promise<void> {
+	const { db } = resolve(context);
+	const recipient = await users.getById(userId, { db });
 	if (!recipient?.email || recipient.notifyMessages === 'off') return;
-	await enqueue(tx, build(recipient.email));
+	await enqueue(build(recipient.email), { db });
 }
 
 /**
  * The periodic job: mails what is due of the messages still unread and unmailed. Returns how
  * many mails it queued.
  */
-export async function sendDue(now: Date = new Date(), database: Database = appDb): Promise<number> {
+export async function sendDue(context: Context = {}): Promise<number> {
+	const { db: database, now } = resolve(context);
 	const pending = await database
 		.select({ id: swapMessages.id, threadId: swapMessages.threadId, recipientId: swapMessages.recipientId })
 		.from(swapMessages)
@@ -86,7 +81,7 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 	let queued = 0;
 	for (const [recipientId, threadMessages] of byRecipient) {
 		queued += await database.transaction(async (tx) => {
-			const recipient = await person(tx, recipientId);
+			const recipient = await users.getById(recipientId, { db: tx });
 			if (!recipient) return 0;
 			const threadIds = [...threadMessages.keys()];
 			// Locked, so a message posted meanwhile sees this run's mail times.
@@ -140,9 +135,7 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 				).map((l) => [l.id, l.title])
 			);
 			const partyIds = [...new Set(threads.flatMap((t) => [t.ownerId, t.requesterId]))];
-			const senders = new Map(
-				(await tx.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, partyIds))).map((u) => [u.id, displayName(u)])
-			);
+			const senders = await directory.names(partyIds, { db: tx });
 			const otherOf = (t: ThreadRow) => senders.get(t.ownerId === recipientId ? t.requesterId : t.ownerId) ?? 'The other member';
 			let mails = 0;
 			for (const p of plan) {
@@ -152,14 +145,14 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 				if (p.kind === 'thread') {
 					const t = byId.get(p.threadId)!;
 					await enqueue(
-						tx,
 						threadMail(recipient.email!, {
 							threadId: t.id,
 							recipientId,
 							title: titles.get(t.listingId) ?? 'your swap',
 							otherName: otherOf(t),
-							messages: included.map((r) => ({ senderName: r.senderId ? (senders.get(r.senderId) ?? 'A member') : 'Riparia', body: r.body }))
-						})
+							messages: included.map((r) => ({ senderName: r.senderId ? nameOf(senders.get(r.senderId)) : SITE_SENDER, body: r.body }))
+						}),
+						{ db: tx }
 					);
 					await tx
 						.update(swapThreads)
@@ -171,7 +164,7 @@ export async function sendDue(now: Date = new Date(), database: Database = appDb
 						const count = included.filter((r) => r.threadId === id).length;
 						return count ? [{ threadId: id, title: titles.get(t.listingId) ?? 'your swap', otherName: otherOf(t), count }] : [];
 					});
-					await enqueue(tx, summaryMail(recipient.email!, { recipientId, threads: summary }));
+					await enqueue(summaryMail(recipient.email!, { recipientId, threads: summary }), { db: tx });
 					await tx
 						.insert(swapMailState)
 						.values({ userId: recipientId, summaryMailedAt: now })

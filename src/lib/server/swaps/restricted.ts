@@ -1,78 +1,106 @@
 // The restricted species list and the club's jurisdictions. Which entries apply is decided here
 // and nowhere else: entries of the jurisdictions the club has chosen (the `jurisdictions` setting).
-import { and, asc, eq, inArray, or, sql } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
-import { auditLog } from '../audit/schema';
+// Changes are the admins' (or the system's, for the reference seed: actor null), and audited.
+import { and, eq, inArray } from 'drizzle-orm';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
-import { species } from '../species/schema';
-import type { SpeciesKind } from '../../species/kinds';
-import { ANIMAL_KINDS } from '../../species/kinds';
+import * as catalogue from '../species/catalogue';
+import * as audit from '../audit';
+import { DomainError, forbidden, invalid, notFound } from '../../errors';
 import { assess, jurisdictionsOf, type Assessment, type CheckBasis, type Restriction, type RestrictionLevel } from '../../swaps/restrictions';
 import { restrictedSpecies, swapSettings } from './schema';
-import { SwapError } from './errors';
 
 export type { Restriction, Assessment };
 
+/** Who changes the list: an admin, or null for the system (the reference seed). */
+type Actor = Pick<Viewer, 'id' | 'role'> | null;
+
 const JURISDICTIONS_SETTING = 'jurisdictions';
 
+function assertAdmin(actor: Actor): void {
+	if (actor && actor.role !== 'admin') throw forbidden('Only the club’s admins change the restricted species list.');
+}
+
 /** The jurisdictions whose entries apply to this club (none until an admin picks). */
-export async function clubJurisdictions(database: DbOrTx = appDb): Promise<string[]> {
-	const [row] = await database.select().from(swapSettings).where(eq(swapSettings.name, JURISDICTIONS_SETTING));
+export async function clubJurisdictions(context: Context = {}): Promise<string[]> {
+	const { db } = resolve(context);
+	const [row] = await db.select().from(swapSettings).where(eq(swapSettings.name, JURISDICTIONS_SETTING));
 	const value = row?.value;
 	return Array.isArray(value) ? value.filter((v): v is string => typeof v === 'string') : [];
 }
 
-export async function setClubJurisdictions(actor: Pick<Viewer, 'id'> | null, list: string[], database: DbOrTx = appDb): Promise<void> {
+export async function setClubJurisdictions(actor: Actor, list: string[], context: Context = {}): Promise<void> {
+	assertAdmin(actor);
+	const { db } = resolve(context);
 	const value = [...new Set(list.map((j) => j.trim()).filter(Boolean))].sort((a, b) => a.localeCompare(b, 'en'));
-	await database.transaction(async (tx) => {
+	await db.transaction(async (tx) => {
 		await tx.insert(swapSettings).values({ name: JURISDICTIONS_SETTING, value }).onDuplicateKeyUpdate({ set: { value } });
 		if (actor)
-			await tx
-				.insert(auditLog)
-				.values({ actorId: actor.id, action: 'swaps.jurisdictions', subjectType: 'swap_setting', subjectId: JURISDICTIONS_SETTING, detail: { value } });
+			await audit.record(
+				{ actorId: actor.id, action: 'swaps.jurisdictions', subject: { type: 'swap_setting', id: JURISDICTIONS_SETTING }, detail: { value } },
+				{ db: tx }
+			);
 	});
 }
 
-const columns = {
-	id: restrictedSpecies.id,
-	speciesId: restrictedSpecies.speciesId,
-	scientificName: species.scientificName,
-	commonName: species.commonName,
-	jurisdiction: restrictedSpecies.jurisdiction,
-	level: restrictedSpecies.level,
-	source: restrictedSpecies.source,
-	note: restrictedSpecies.note,
-	checkedOn: restrictedSpecies.checkedOn,
-	checkBasis: restrictedSpecies.checkBasis
-};
+type EntryRow = typeof restrictedSpecies.$inferSelect;
+
+/** Entries with their species' names from the catalogue (one look-up for all of them). */
+async function named(rows: EntryRow[], context: Context): Promise<Restriction[]> {
+	if (rows.length === 0) return [];
+	const species = await catalogue.getMany([...new Set(rows.map((r) => r.speciesId))], context);
+	return rows.flatMap((r) => {
+		const s = species.get(r.speciesId);
+		if (!s) return [];
+		return [
+			{
+				id: r.id,
+				speciesId: r.speciesId,
+				scientificName: s.scientificName,
+				commonName: s.commonName,
+				jurisdiction: r.jurisdiction,
+				level: r.level,
+				source: r.source,
+				note: r.note,
+				checkedOn: r.checkedOn,
+				checkBasis: r.checkBasis
+			}
+		];
+	});
+}
+
+const byJurisdictionThenName = (a: Restriction, b: Restriction) =>
+	a.jurisdiction.localeCompare(b.jurisdiction, 'en', { sensitivity: 'base' }) ||
+	a.scientificName.localeCompare(b.scientificName, 'en', { sensitivity: 'base' });
 
 /** Every entry, by jurisdiction then name. */
-export async function list(database: DbOrTx = appDb): Promise<Restriction[]> {
-	return database
-		.select(columns)
-		.from(restrictedSpecies)
-		.innerJoin(species, eq(species.id, restrictedSpecies.speciesId))
-		.orderBy(asc(restrictedSpecies.jurisdiction), asc(species.scientificName));
+export async function list(context: Context = {}): Promise<Restriction[]> {
+	const { db } = resolve(context);
+	return (await named(await db.select().from(restrictedSpecies), context)).sort(byJurisdictionThenName);
 }
 
 /** The jurisdictions the list has entries for, for the club's setting. */
-export async function jurisdictionsPresent(database: DbOrTx = appDb): Promise<string[]> {
-	const rows = await database.selectDistinct({ jurisdiction: restrictedSpecies.jurisdiction }).from(restrictedSpecies);
+export async function jurisdictionsPresent(context: Context = {}): Promise<string[]> {
+	const { db } = resolve(context);
+	const rows = await db.selectDistinct({ jurisdiction: restrictedSpecies.jurisdiction }).from(restrictedSpecies);
 	return jurisdictionsOf(rows);
 }
 
 /** What applies to each of these species in the club's jurisdictions. */
-export async function assessMany(speciesIds: number[], database: DbOrTx = appDb): Promise<Map<number, Assessment>> {
+export async function assessMany(speciesIds: number[], context: Context = {}): Promise<Map<number, Assessment>> {
 	const result = new Map<number, Assessment>();
 	const ids = [...new Set(speciesIds)];
 	if (ids.length === 0) return result;
-	const jurisdictions = await clubJurisdictions(database);
+	const { db } = resolve(context);
+	const jurisdictions = await clubJurisdictions(context);
 	if (jurisdictions.length === 0) return result;
-	const rows = await database
-		.select(columns)
-		.from(restrictedSpecies)
-		.innerJoin(species, eq(species.id, restrictedSpecies.speciesId))
-		.where(and(inArray(restrictedSpecies.speciesId, ids), inArray(restrictedSpecies.jurisdiction, jurisdictions)));
+	const rows = await named(
+		await db
+			.select()
+			.from(restrictedSpecies)
+			.where(and(inArray(restrictedSpecies.speciesId, ids), inArray(restrictedSpecies.jurisdiction, jurisdictions))),
+		context
+	);
 	for (const id of ids) {
 		const assessment = assess(
 			rows.filter((r) => r.speciesId === id),
@@ -83,39 +111,9 @@ export async function assessMany(speciesIds: number[], database: DbOrTx = appDb)
 	return result;
 }
 
-export async function assessOne(speciesId: number | null, database: DbOrTx = appDb): Promise<Assessment> {
+export async function assessOne(speciesId: number | null, context: Context = {}): Promise<Assessment> {
 	if (speciesId === null) return { banned: [], cautioned: [] };
-	return (await assessMany([speciesId], database)).get(speciesId) ?? { banned: [], cautioned: [] };
-}
-
-/**
- * The catalogue entry a listing names: the picked id (if it is of the right kind), else a
- * catalogue species whose scientific or common name is exactly what was typed (so typing a
- * restricted plant's name instead of picking it is caught too), else free text.
- */
-export async function resolveSpecies(
-	pick: { speciesId: number | null; speciesName: string },
-	kind: 'plant' | 'animal',
-	database: DbOrTx = appDb
-): Promise<{ speciesId: number | null; speciesName: string }> {
-	const kinds: SpeciesKind[] = kind === 'plant' ? ['plant'] : ANIMAL_KINDS;
-	if (pick.speciesId !== null) {
-		const [row] = await database
-			.select({ id: species.id, scientificName: species.scientificName })
-			.from(species)
-			.where(and(eq(species.id, pick.speciesId), inArray(species.kind, kinds)));
-		if (row) return { speciesId: row.id, speciesName: row.scientificName };
-	}
-	const typed = pick.speciesName.trim();
-	if (!typed) return { speciesId: null, speciesName: '' };
-	// The collation compares without regard to case.
-	const [match] = await database
-		.select({ id: species.id, scientificName: species.scientificName })
-		.from(species)
-		.where(and(inArray(species.kind, kinds), or(eq(species.scientificName, typed), eq(species.commonName, typed))))
-		.orderBy(sql`${species.scientificName} = ${typed} DESC`)
-		.limit(1);
-	return match ? { speciesId: match.id, speciesName: match.scientificName } : { speciesId: null, speciesName: typed };
+	return (await assessMany([speciesId], context)).get(speciesId) ?? { banned: [], cautioned: [] };
 }
 
 export interface RestrictionInput {
@@ -128,42 +126,53 @@ export interface RestrictionInput {
 	checkBasis: CheckBasis;
 }
 
-export async function add(actor: Pick<Viewer, 'id'> | null, input: RestrictionInput, database: DbOrTx = appDb): Promise<number> {
-	return database.transaction(async (tx) => {
-		const [plant] = await tx.select({ id: species.id }).from(species).where(eq(species.id, input.speciesId));
-		if (!plant) throw new SwapError(400, 'no-species', 'Pick the species from the catalogue.', 'speciesName');
+export async function add(actor: Actor, input: RestrictionInput, context: Context = {}): Promise<number> {
+	assertAdmin(actor);
+	const { db } = resolve(context);
+	return db.transaction(async (tx) => {
+		if (!(await catalogue.get(input.speciesId, within(context, tx))))
+			throw invalid({ speciesName: 'Pick the species from the catalogue.' }, undefined, 'no-species');
 		const [existing] = await tx
 			.select({ id: restrictedSpecies.id })
 			.from(restrictedSpecies)
 			.where(and(eq(restrictedSpecies.speciesId, input.speciesId), eq(restrictedSpecies.jurisdiction, input.jurisdiction)));
-		if (existing) throw new SwapError(409, 'duplicate', 'This species already has an entry for that jurisdiction; change that one instead.', 'speciesName');
+		if (existing) {
+			const message = 'This species already has an entry for that jurisdiction; change that one instead.';
+			throw new DomainError(409, 'duplicate', message, { speciesName: message });
+		}
 		const [result] = await tx.insert(restrictedSpecies).values(input);
 		if (actor)
-			await tx
-				.insert(auditLog)
-				.values({ actorId: actor.id, action: 'restricted.add', subjectType: 'restricted_species', subjectId: String(result.insertId), detail: { ...input } });
+			await audit.record(
+				{ actorId: actor.id, action: 'restricted.add', subject: { type: 'restricted_species', id: result.insertId }, detail: { ...input } },
+				within(context, tx)
+			);
 		return result.insertId;
 	});
 }
 
 export async function update(
-	actor: Pick<Viewer, 'id'>,
+	actor: Pick<Viewer, 'id' | 'role'>,
 	id: number,
 	changes: Pick<RestrictionInput, 'level' | 'note' | 'source' | 'checkedOn' | 'checkBasis'>,
-	database: DbOrTx = appDb
+	context: Context = {}
 ): Promise<void> {
-	await database.transaction(async (tx) => {
+	assertAdmin(actor);
+	const { db } = resolve(context);
+	await db.transaction(async (tx) => {
 		const [result] = await tx.update(restrictedSpecies).set(changes).where(eq(restrictedSpecies.id, id));
-		if (result.affectedRows === 0) throw new SwapError(404, 'not-found', 'That entry no longer exists.');
-		await tx
-			.insert(auditLog)
-			.values({ actorId: actor.id, action: 'restricted.update', subjectType: 'restricted_species', subjectId: String(id), detail: { ...changes } });
+		if (result.affectedRows === 0) throw notFound('That entry no longer exists.');
+		await audit.record(
+			{ actorId: actor.id, action: 'restricted.update', subject: { type: 'restricted_species', id }, detail: { ...changes } },
+			within(context, tx)
+		);
 	});
 }
 
-export async function remove(actor: Pick<Viewer, 'id'>, id: number, database: DbOrTx = appDb): Promise<void> {
-	await database.transaction(async (tx) => {
+export async function remove(actor: Pick<Viewer, 'id' | 'role'>, id: number, context: Context = {}): Promise<void> {
+	assertAdmin(actor);
+	const { db } = resolve(context);
+	await db.transaction(async (tx) => {
 		await tx.delete(restrictedSpecies).where(eq(restrictedSpecies.id, id));
-		await tx.insert(auditLog).values({ actorId: actor.id, action: 'restricted.remove', subjectType: 'restricted_species', subjectId: String(id) });
+		await audit.record({ actorId: actor.id, action: 'restricted.remove', subject: { type: 'restricted_species', id } }, within(context, tx));
 	});
 }

@@ -2,11 +2,13 @@
 // listing's owner and the other member. Only those two may read it, and an admin while a report
 // about one of its messages is open; to everyone else it does not exist (404).
 import { and, asc, count, desc, eq, gt, inArray, isNull, type SQL } from 'drizzle-orm';
-import { db as appDb, type DbOrTx } from '../db';
-import { users } from '../club/schema';
+import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
+import * as directory from '../club/directory';
+import { nameOf } from '../../club/names';
+import { conflict, DomainError, invalid, notFound } from '../../errors';
 import { effectiveState, type Listing, type ListingState } from '../../swaps/listing-state';
-import { canArrangePickup, canWrite, conversationStatus, type ConversationStatus } from '../../swaps/conversation';
+import { canArrangePickup, canWrite, conversationStatus, SITE_SENDER, type ConversationStatus } from '../../swaps/conversation';
 import { checkPickup, type PickupProposal } from '../../swaps/pickup';
 import { refusalMessage, type Assessment } from '../../swaps/restrictions';
 import { CATEGORY_CAUTIONS, type ListingCategory, type ListingKind } from '../../swaps/listing';
@@ -14,15 +16,12 @@ import { listings, swapMessages, swapReports, swapThreads, type MessageKind, typ
 import { canView, toPure } from './listings';
 import * as blocks from './blocks';
 import * as restricted from './restricted';
-import { afterPost, displayName } from './notifications';
-import { notFound, SwapError } from './errors';
+import { afterPost } from './notifications';
 
-export const MESSAGE_MAX = 2000;
-
-interface Options {
-	now?: Date;
-	database?: DbOrTx;
-}
+const MESSAGE_MAX = 2000;
+const NOT_FOUND = 'We could not find that conversation.';
+const CLOSED = 'This listing is not taking requests now.';
+const NOT_RESERVED = 'A pickup is arranged once the request has been accepted.';
 
 export interface MessageView {
 	id: number;
@@ -75,15 +74,17 @@ export interface ThreadView {
 	pure: Listing;
 }
 
-async function threadRow(id: number, tx: DbOrTx, lock = false): Promise<ThreadRow | undefined> {
-	const query = tx.select().from(swapThreads).where(eq(swapThreads.id, id));
+async function threadRow(id: number, context: Context, lock = false): Promise<ThreadRow | undefined> {
+	const { db } = resolve(context);
+	const query = db.select().from(swapThreads).where(eq(swapThreads.id, id));
 	const [row] = lock ? await query.for('update') : await query;
 	return row;
 }
 
 /** Whether an admin may read this thread: an open report about one of its messages. */
-async function reportedOpen(threadId: number, tx: DbOrTx): Promise<boolean> {
-	const [row] = await tx
+async function reportedOpen(threadId: number, context: Context): Promise<boolean> {
+	const { db } = resolve(context);
+	const [row] = await db
 		.select({ n: count() })
 		.from(swapReports)
 		.where(and(eq(swapReports.threadId, threadId), eq(swapReports.state, 'open')));
@@ -91,22 +92,23 @@ async function reportedOpen(threadId: number, tx: DbOrTx): Promise<boolean> {
 }
 
 /** The viewer's part in a thread, or null when it does not exist for them. */
-export async function roleIn(viewer: Viewer | null, thread: ThreadRow | undefined, tx: DbOrTx): Promise<ThreadView['role'] | null> {
+async function roleIn(viewer: Viewer | null, thread: ThreadRow | undefined, context: Context): Promise<ThreadView['role'] | null> {
 	if (!viewer || !thread) return null;
 	if (viewer.id === thread.ownerId) return 'owner';
 	if (viewer.id === thread.requesterId) return 'requester';
-	if (viewer.role === 'admin' && (await reportedOpen(thread.id, tx))) return 'admin';
+	if (viewer.role === 'admin' && (await reportedOpen(thread.id, context))) return 'admin';
 	return null;
 }
 
-function toViews(rows: (MessageRow & { senderName: string | null })[]): MessageView[] {
+/** The messages as the page shows them; `names` holds the two members' names. */
+function toViews(rows: MessageRow[], names: Map<string, string>): MessageView[] {
 	const confirmed = new Set(rows.filter((r) => r.kind === 'confirm' && r.refersTo !== null).map((r) => r.refersTo!));
 	const lastProposal = rows.filter((r) => r.kind === 'proposal').at(-1)?.id ?? null;
 	return rows.map((r) => ({
 		id: r.id,
 		kind: r.kind,
 		senderId: r.senderId,
-		senderName: r.senderId ? (r.senderName ?? 'A member') : 'Riparia',
+		senderName: r.senderId ? nameOf(names.get(r.senderId)) : SITE_SENDER,
 		body: r.body,
 		pickup:
 			r.kind === 'proposal' || r.kind === 'confirm'
@@ -120,46 +122,42 @@ function toViews(rows: (MessageRow & { senderName: string | null })[]): MessageV
 	}));
 }
 
-async function messageRows(threadId: number, tx: DbOrTx, afterId = 0) {
-	const rows = await tx
-		.select({ message: swapMessages, senderName: users.displayName })
+async function messageRows(threadId: number, context: Context, afterId = 0): Promise<MessageRow[]> {
+	const { db } = resolve(context);
+	return db
+		.select()
 		.from(swapMessages)
-		.leftJoin(users, eq(users.id, swapMessages.senderId))
 		.where(and(eq(swapMessages.threadId, threadId), gt(swapMessages.id, afterId)))
 		.orderBy(asc(swapMessages.id))
 		.limit(1000);
-	return rows.map((r) => ({ ...r.message, senderName: r.senderName }));
 }
 
-async function writeBlockFor(viewerId: string, otherId: string, tx: DbOrTx): Promise<string | null> {
-	try {
-		await blocks.assertMayWrite(viewerId, otherId, tx);
-		return null;
-	} catch (error) {
-		if (error instanceof SwapError) return error.message;
-		throw error;
-	}
+/** The two members' names, by id. */
+const namesOf = (thread: ThreadRow, context: Context) => directory.names([thread.ownerId, thread.requesterId], context);
+
+/** The thread and its listing when the viewer may read it, with their part in it. */
+async function readable(viewer: Viewer | null, id: number, context: Context) {
+	const { db } = resolve(context);
+	const thread = await threadRow(id, context);
+	const role = await roleIn(viewer, thread, context);
+	if (!thread || !role || !viewer) return null;
+	const [listing] = await db.select().from(listings).where(eq(listings.id, thread.listingId));
+	return listing ? { viewer, thread, role, listing } : null;
 }
 
 /** A conversation with its messages, or null when it does not exist or the viewer may not read it. */
-export async function get(viewer: Viewer | null, id: number, options: Options = {}): Promise<ThreadView | null> {
-	const tx = options.database ?? appDb;
-	const now = options.now ?? new Date();
-	const thread = await threadRow(id, tx);
-	const role = await roleIn(viewer, thread, tx);
-	if (!thread || !role || !viewer) return null;
-	const [listing] = await tx.select().from(listings).where(eq(listings.id, thread.listingId));
-	if (!listing) return null;
+export async function get(viewer: Viewer | null, id: number, context: Context = {}): Promise<ThreadView | null> {
+	const { db, now } = resolve(context);
+	const found = await readable(viewer, id, { db });
+	if (!found) return null;
+	const { thread, role, listing } = found;
 	const pure = toPure(listing);
 	const [names, rows, restrictions] = await Promise.all([
-		tx
-			.select({ id: users.id, displayName: users.displayName })
-			.from(users)
-			.where(inArray(users.id, [thread.ownerId, thread.requesterId])),
-		messageRows(thread.id, tx),
-		restricted.assessOne(listing.speciesId, tx)
+		namesOf(thread, { db }),
+		messageRows(thread.id, { db }),
+		restricted.assessOne(listing.speciesId, { db })
 	]);
-	const name = (uid: string) => displayName(names.find((n) => n.id === uid));
+	const name = (uid: string) => nameOf(names.get(uid));
 	const status = conversationStatus(pure, String(thread.id), now);
 	const otherId = role === 'owner' ? thread.requesterId : role === 'requester' ? thread.ownerId : null;
 	const writeBlock =
@@ -167,8 +165,8 @@ export async function get(viewer: Viewer | null, id: number, options: Options = 
 			? 'Admins read a reported conversation; they do not write in it.'
 			: !canWrite(status)
 				? 'This conversation is closed.'
-				: await writeBlockFor(viewer.id, otherId!, tx);
-	const messages = toViews(rows);
+				: await blocks.writeBlock(found.viewer.id, otherId!, { db });
+	const messages = toViews(rows, names);
 	const agreed = [...messages].reverse().find((m) => m.kind === 'proposal' && m.proposalState === 'confirmed');
 	const open = messages.find((m) => m.kind === 'proposal' && m.proposalState === 'open');
 	return {
@@ -196,7 +194,7 @@ export async function get(viewer: Viewer | null, id: number, options: Options = 
 		canArrangePickup: writeBlock === null && canArrangePickup(status),
 		writeBlock,
 		agreedPickup: agreed?.pickup ? { ...agreed.pickup, messageId: agreed.id } : null,
-		openProposal: open?.pickup ? { ...open.pickup, messageId: open.id, fromViewer: open.senderId === viewer.id } : null,
+		openProposal: open?.pickup ? { ...open.pickup, messageId: open.id, fromViewer: open.senderId === found.viewer.id } : null,
 		messages,
 		restrictions,
 		cautions: CATEGORY_CAUTIONS[listing.category],
@@ -210,19 +208,16 @@ const versionOf = (l: typeof listings.$inferSelect) =>
 	`${l.state}:${l.reservedThreadId ?? ''}:${l.ownerConfirmedAt?.getTime() ?? ''}:${l.requesterConfirmedAt?.getTime() ?? ''}:${l.availableUntil.getTime()}`;
 
 /** Messages after `afterId` for the poller, marking those to the viewer read. Null when not visible. */
-export async function poll(viewer: Viewer | null, id: number, afterId: number, options: Options = {}) {
-	const tx = options.database ?? appDb;
-	const now = options.now ?? new Date();
-	const thread = await threadRow(id, tx);
-	const role = await roleIn(viewer, thread, tx);
-	if (!thread || !role || !viewer) return null;
-	const [listing] = await tx.select().from(listings).where(eq(listings.id, thread.listingId));
-	if (!listing) return null;
-	const rows = await messageRows(id, tx, afterId);
-	if (role !== 'admin') await markRead(viewer, id, now, tx);
+export async function poll(viewer: Viewer | null, id: number, afterId: number, context: Context = {}) {
+	const { db, now } = resolve(context);
+	const found = await readable(viewer, id, { db });
+	if (!found) return null;
+	const { thread, role, listing } = found;
+	const [rows, names] = await Promise.all([messageRows(id, { db }, afterId), namesOf(thread, { db })]);
+	if (role !== 'admin') await markRead(found.viewer, id, { db, now });
 	const pure = toPure(listing);
 	return {
-		messages: toViews(rows),
+		messages: toViews(rows, names),
 		status: conversationStatus(pure, String(id), now),
 		listingState: effectiveState(pure, now),
 		version: versionOf(listing)
@@ -230,8 +225,9 @@ export async function poll(viewer: Viewer | null, id: number, afterId: number, o
 }
 
 /** Marks every message to the viewer in this thread as read. */
-export async function markRead(viewer: Pick<Viewer, 'id'>, threadId: number, now: Date = new Date(), tx: DbOrTx = appDb): Promise<number> {
-	const [result] = await tx
+export async function markRead(viewer: Pick<Viewer, 'id'>, threadId: number, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
+	const [result] = await db
 		.update(swapMessages)
 		.set({ readAt: now })
 		.where(and(eq(swapMessages.threadId, threadId), eq(swapMessages.recipientId, viewer.id), isNull(swapMessages.readAt)));
@@ -239,8 +235,9 @@ export async function markRead(viewer: Pick<Viewer, 'id'>, threadId: number, now
 }
 
 /** Unread messages to a member, for the header: one COUNT on the (recipient, read) index. */
-export async function unreadCount(userId: string, database: DbOrTx = appDb): Promise<number> {
-	const [row] = await database
+export async function unreadCount(userId: string, context: Context = {}): Promise<number> {
+	const { db } = resolve(context);
+	const [row] = await db
 		.select({ n: count() })
 		.from(swapMessages)
 		.where(and(eq(swapMessages.recipientId, userId), isNull(swapMessages.readAt)));
@@ -249,17 +246,18 @@ export async function unreadCount(userId: string, database: DbOrTx = appDb): Pro
 
 function cleanBody(body: string): string {
 	const text = body.replace(/\r\n?/g, '\n').trim();
-	if (text.length === 0) throw new SwapError(400, 'empty', 'Write a message first.', 'body');
-	if (text.length > MESSAGE_MAX) throw new SwapError(400, 'too-long', `Keep a message to ${MESSAGE_MAX} characters.`, 'body');
+	if (text.length === 0) throw invalid({ body: 'Write a message first.' }, undefined, 'empty');
+	if (text.length > MESSAGE_MAX) throw invalid({ body: `Keep a message to ${MESSAGE_MAX} characters.` }, undefined, 'too-long');
 	return text;
 }
 
+/** Stores a member's message in the caller's transaction, and mails or schedules it. */
 async function insertMessage(
-	tx: DbOrTx,
 	thread: ThreadRow,
 	values: { senderId: string; recipientId: string; kind: MessageKind; body: string; pickup?: PickupProposal; refersTo?: number },
-	now: Date
+	context: Context
 ): Promise<number> {
+	const { db: tx, now } = resolve(context);
 	const [result] = await tx.insert(swapMessages).values({
 		threadId: thread.id,
 		senderId: values.senderId,
@@ -274,7 +272,7 @@ async function insertMessage(
 		createdAt: now
 	});
 	await tx.update(swapThreads).set({ lastMessageAt: now }).where(eq(swapThreads.id, thread.id));
-	await afterPost(tx, thread, { id: result.insertId, senderId: values.senderId, recipientId: values.recipientId, body: values.body }, now);
+	await afterPost(thread, { id: result.insertId, senderId: values.senderId, recipientId: values.recipientId, body: values.body }, { db: tx, now });
 	return result.insertId;
 }
 
@@ -282,16 +280,17 @@ async function insertMessage(
  * Asks for an offer (or answers a wanted post) with a first message; this opens the conversation.
  * Asking again writes into the same conversation. Returns the thread id.
  */
-export async function request(viewer: Viewer, listingId: number, body: string, options: Options = {}): Promise<number> {
-	const now = options.now ?? new Date();
+export async function request(viewer: Viewer, listingId: number, body: string, context: Context = {}): Promise<number> {
+	const { db, now } = resolve(context);
 	const text = cleanBody(body);
-	return (options.database ?? appDb).transaction(async (tx) => {
+	return db.transaction(async (tx) => {
+		const inTx = within({ ...context, now }, tx);
 		const [listing] = await tx.select().from(listings).where(eq(listings.id, listingId)).for('update');
-		if (!listing || !canView(viewer, listing)) throw notFound();
-		if (listing.ownerId === viewer.id) throw new SwapError(400, 'own', 'This is your own listing.');
-		await blocks.assertMayWrite(viewer.id, listing.ownerId, tx);
-		const assessment = await restricted.assessOne(listing.speciesId, tx);
-		if (assessment.banned.length) throw new SwapError(409, 'banned', assessment.banned.map(refusalMessage).join(' '));
+		if (!listing || !canView(viewer, listing)) throw notFound('We could not find that listing.');
+		if (listing.ownerId === viewer.id) throw invalid({}, 'This is your own listing.', 'own');
+		await blocks.assertMayWrite(viewer.id, listing.ownerId, inTx);
+		const assessment = await restricted.assessOne(listing.speciesId, inTx);
+		if (assessment.banned.length) throw new DomainError(409, 'banned', assessment.banned.map(refusalMessage).join(' '));
 		const [existing] = await tx
 			.select()
 			.from(swapThreads)
@@ -299,80 +298,83 @@ export async function request(viewer: Viewer, listingId: number, body: string, o
 			.for('update');
 		const pure = toPure(listing);
 		if (existing) {
-			if (!canWrite(conversationStatus(pure, String(existing.id), now))) throw new SwapError(409, 'closed', 'This listing is not taking requests now.');
-			await insertMessage(tx, existing, { senderId: viewer.id, recipientId: listing.ownerId, kind: 'text', body: text }, now);
+			if (!canWrite(conversationStatus(pure, String(existing.id), now))) throw conflict('closed', CLOSED);
+			await insertMessage(existing, { senderId: viewer.id, recipientId: listing.ownerId, kind: 'text', body: text }, inTx);
 			return existing.id;
 		}
-		if (effectiveState(pure, now) !== 'open') throw new SwapError(409, 'closed', 'This listing is not taking requests now.');
+		if (effectiveState(pure, now) !== 'open') throw conflict('closed', CLOSED);
 		const [result] = await tx.insert(swapThreads).values({ listingId, ownerId: listing.ownerId, requesterId: viewer.id, createdAt: now, lastMessageAt: now });
 		const [thread] = await tx.select().from(swapThreads).where(eq(swapThreads.id, result.insertId)).for('update');
-		await insertMessage(tx, thread!, { senderId: viewer.id, recipientId: listing.ownerId, kind: 'text', body: text }, now);
+		await insertMessage(thread!, { senderId: viewer.id, recipientId: listing.ownerId, kind: 'text', body: text }, inTx);
 		return thread!.id;
 	});
 }
 
 /** Locks the thread and its listing for a member's write, checking that writing is allowed. */
-async function forWriting(tx: DbOrTx, viewer: Viewer, threadId: number, now: Date) {
-	const thread = await threadRow(threadId, tx, true);
-	if (!thread || (viewer.id !== thread.ownerId && viewer.id !== thread.requesterId)) throw notFound('conversation');
-	const [listing] = await tx.select().from(listings).where(eq(listings.id, thread.listingId)).for('update');
-	if (!listing) throw notFound('conversation');
-	const otherId = viewer.id === thread.ownerId ? thread.requesterId : thread.ownerId;
-	await blocks.assertMayWrite(viewer.id, otherId, tx);
-	const status = conversationStatus(toPure(listing), String(thread.id), now);
-	if (!canWrite(status)) throw new SwapError(409, 'closed', 'This conversation is closed.');
-	return { thread, listing, otherId, status };
-}
-
-export async function post(viewer: Viewer, threadId: number, body: string, options: Options = {}): Promise<number> {
-	const now = options.now ?? new Date();
-	const text = cleanBody(body);
-	return (options.database ?? appDb).transaction(async (tx) => {
-		const { thread, otherId } = await forWriting(tx, viewer, threadId, now);
-		return insertMessage(tx, thread, { senderId: viewer.id, recipientId: otherId, kind: 'text', body: text }, now);
+/**
+ * Runs `write` in a transaction with the thread and its listing locked, for one of its two members,
+ * once it is checked that writing is allowed.
+ */
+async function whileWriting<T>(
+	viewer: Viewer,
+	threadId: number,
+	context: Context,
+	write: (found: { thread: ThreadRow; otherId: string; status: ConversationStatus }, inTx: Context) => Promise<T>
+): Promise<T> {
+	const { db, now } = resolve(context);
+	return db.transaction(async (tx) => {
+		const inTx = within({ ...context, now }, tx);
+		const thread = await threadRow(threadId, inTx, true);
+		if (!thread || (viewer.id !== thread.ownerId && viewer.id !== thread.requesterId)) throw notFound(NOT_FOUND);
+		const [listing] = await tx.select().from(listings).where(eq(listings.id, thread.listingId)).for('update');
+		if (!listing) throw notFound(NOT_FOUND);
+		const otherId = viewer.id === thread.ownerId ? thread.requesterId : thread.ownerId;
+		await blocks.assertMayWrite(viewer.id, otherId, inTx);
+		const status = conversationStatus(toPure(listing), String(thread.id), now);
+		if (!canWrite(status)) throw conflict('closed', 'This conversation is closed.');
+		return write({ thread, otherId, status }, inTx);
 	});
 }
 
-export class PickupInvalid extends Error {
-	constructor(readonly errors: Partial<Record<keyof PickupProposal, string>>) {
-		super('Check the pickup proposal.');
-	}
+export async function post(viewer: Viewer, threadId: number, body: string, context: Context = {}): Promise<number> {
+	const text = cleanBody(body);
+	return whileWriting(viewer, threadId, context, ({ thread, otherId }, inTx) =>
+		insertMessage(thread, { senderId: viewer.id, recipientId: otherId, kind: 'text', body: text }, inTx)
+	);
 }
 
 /** Proposes (or counter-proposes) a pickup day, time window and meeting point. */
-export async function propose(viewer: Viewer, threadId: number, pickup: PickupProposal, note: string, options: Options = {}): Promise<number> {
-	const now = options.now ?? new Date();
+export async function propose(viewer: Viewer, threadId: number, pickup: PickupProposal, note: string, context: Context = {}): Promise<number> {
+	const { now } = resolve(context);
 	const errors = checkPickup(pickup, now);
-	if (Object.keys(errors).length) throw new PickupInvalid(errors);
+	if (Object.keys(errors).length) throw invalid(errors, undefined, 'pickup');
 	const extra = note.trim().slice(0, 500);
-	return (options.database ?? appDb).transaction(async (tx) => {
-		const { thread, otherId, status } = await forWriting(tx, viewer, threadId, now);
-		if (!canArrangePickup(status)) throw new SwapError(409, 'not-reserved', 'A pickup is arranged once the request has been accepted.');
-		return insertMessage(tx, thread, { senderId: viewer.id, recipientId: otherId, kind: 'proposal', body: extra, pickup }, now);
+	return whileWriting(viewer, threadId, { ...context, now }, ({ thread, otherId, status }, inTx) => {
+		if (!canArrangePickup(status)) throw conflict('not-reserved', NOT_RESERVED);
+		return insertMessage(thread, { senderId: viewer.id, recipientId: otherId, kind: 'proposal', body: extra, pickup }, inTx);
 	});
 }
 
 /** The other member confirms the latest proposal. */
-export async function confirmPickup(viewer: Viewer, threadId: number, proposalId: number, options: Options = {}): Promise<number> {
-	const now = options.now ?? new Date();
-	return (options.database ?? appDb).transaction(async (tx) => {
-		const { thread, otherId, status } = await forWriting(tx, viewer, threadId, now);
-		if (!canArrangePickup(status)) throw new SwapError(409, 'not-reserved', 'A pickup is arranged once the request has been accepted.');
+export async function confirmPickup(viewer: Viewer, threadId: number, proposalId: number, context: Context = {}): Promise<number> {
+	return whileWriting(viewer, threadId, context, async ({ thread, otherId, status }, inTx) => {
+		const { db: tx } = resolve(inTx);
+		if (!canArrangePickup(status)) throw conflict('not-reserved', NOT_RESERVED);
 		const [latest] = await tx
 			.select()
 			.from(swapMessages)
 			.where(and(eq(swapMessages.threadId, thread.id), eq(swapMessages.kind, 'proposal')))
 			.orderBy(desc(swapMessages.id))
 			.limit(1);
-		if (!latest || latest.id !== proposalId) throw new SwapError(409, 'stale', 'That proposal has been replaced by a newer one.');
-		if (latest.senderId === viewer.id) throw new SwapError(409, 'own-proposal', 'The other member confirms your proposal.');
+		if (!latest || latest.id !== proposalId) throw conflict('stale', 'That proposal has been replaced by a newer one.');
+		if (latest.senderId === viewer.id) throw conflict('own-proposal', 'The other member confirms your proposal.');
 		const [already] = await tx
 			.select({ id: swapMessages.id })
 			.from(swapMessages)
 			.where(and(eq(swapMessages.threadId, thread.id), eq(swapMessages.kind, 'confirm'), eq(swapMessages.refersTo, latest.id)));
-		if (already) throw new SwapError(409, 'confirmed', 'This pickup is already agreed.');
+		if (already) throw conflict('confirmed', 'This pickup is already agreed.');
 		const pickup = { on: latest.pickupOn ?? '', from: latest.pickupFrom ?? '', to: latest.pickupTo ?? '', place: latest.pickupPlace ?? '' };
-		return insertMessage(tx, thread, { senderId: viewer.id, recipientId: otherId, kind: 'confirm', body: '', pickup, refersTo: latest.id }, now);
+		return insertMessage(thread, { senderId: viewer.id, recipientId: otherId, kind: 'confirm', body: '', pickup, refersTo: latest.id }, inTx);
 	});
 }
 
@@ -389,18 +391,17 @@ export interface ThreadSummary {
 }
 
 /** Conversations the viewer started (their requests and answers), newest activity first. */
-export async function listRequests(viewer: Viewer, options: Options = {}): Promise<ThreadSummary[]> {
-	return summaries(viewer, eq(swapThreads.requesterId, viewer.id), options);
+export async function listRequests(viewer: Viewer, context: Context = {}): Promise<ThreadSummary[]> {
+	return summaries(viewer, eq(swapThreads.requesterId, viewer.id), context);
 }
 
 /** Conversations about one of the viewer's listings. */
-export async function listForListing(viewer: Viewer, listingId: number, options: Options = {}): Promise<ThreadSummary[]> {
-	return summaries(viewer, and(eq(swapThreads.listingId, listingId), eq(swapThreads.ownerId, viewer.id))!, options);
+export async function listForListing(viewer: Viewer, listingId: number, context: Context = {}): Promise<ThreadSummary[]> {
+	return summaries(viewer, and(eq(swapThreads.listingId, listingId), eq(swapThreads.ownerId, viewer.id))!, context);
 }
 
-async function summaries(viewer: Viewer, where: SQL, options: Options): Promise<ThreadSummary[]> {
-	const tx = options.database ?? appDb;
-	const now = options.now ?? new Date();
+async function summaries(viewer: Viewer, where: SQL, context: Context): Promise<ThreadSummary[]> {
+	const { db: tx, now } = resolve(context);
 	const rows = await tx
 		.select({ thread: swapThreads, listing: listings })
 		.from(swapThreads)
@@ -412,7 +413,7 @@ async function summaries(viewer: Viewer, where: SQL, options: Options): Promise<
 	const ids = rows.map((r) => r.thread.id);
 	const otherIds = [...new Set(rows.map((r) => (r.thread.ownerId === viewer.id ? r.thread.requesterId : r.thread.ownerId)))];
 	const [names, unread] = await Promise.all([
-		tx.select({ id: users.id, displayName: users.displayName }).from(users).where(inArray(users.id, otherIds)),
+		directory.names(otherIds, { db: tx }),
 		tx
 			.select({ threadId: swapMessages.threadId, n: count() })
 			.from(swapMessages)
@@ -430,7 +431,7 @@ async function summaries(viewer: Viewer, where: SQL, options: Options): Promise<
 			listingState: effectiveState(pure, now),
 			status: conversationStatus(pure, String(thread.id), now),
 			otherId,
-			otherName: displayName(names.find((n) => n.id === otherId)),
+			otherName: nameOf(names.get(otherId)),
 			lastMessageAt: thread.lastMessageAt,
 			unread: unreadBy.get(thread.id) ?? 0
 		};
@@ -438,8 +439,9 @@ async function summaries(viewer: Viewer, where: SQL, options: Options): Promise<
 }
 
 /** The viewer's own conversation about a listing, if they have one. */
-export async function ownThreadFor(viewer: Pick<Viewer, 'id'>, listingId: number, database: DbOrTx = appDb): Promise<number | null> {
-	const [row] = await database
+export async function ownThreadFor(viewer: Pick<Viewer, 'id'>, listingId: number, context: Context = {}): Promise<number | null> {
+	const { db } = resolve(context);
+	const [row] = await db
 		.select({ id: swapThreads.id })
 		.from(swapThreads)
 		.where(and(eq(swapThreads.listingId, listingId), eq(swapThreads.requesterId, viewer.id)));

@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
-import { listOutbox } from '$lib/server/mail/report';
-import { OUTBOX_STATES } from '$lib/server/mail/schema';
+import { listOutbox, OUTBOX_STATES } from '$lib/server/mail/report';
 import type { PageServerLoad } from './$types';
 
 const query = z.object({

@@ -1,7 +1,8 @@
-import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import { parseOrThrow } from '$lib/errors';
 import { requireRole } from '$lib/server/club/guards';
 import * as users from '$lib/server/club/users';
+import { formAction, valuesOf } from '$lib/server/http/forms';
 import { ROLES } from '$lib/club/roles';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -12,25 +13,19 @@ const query = z.object({
 });
 
 export const load = (async (event) => {
-	requireRole(event, 'admin');
+	const admin = requireRole(event, 'admin');
 	const params = query.parse(Object.fromEntries(event.url.searchParams));
-	const result = await users.listMembers({ search: params.q || undefined, role: params.role, page: params.page });
+	const result = await users.listMembers(admin, { search: params.q || undefined, role: params.role, page: params.page });
 	return { ...result, params };
 }) satisfies PageServerLoad;
 
 const change = z.object({ userId: z.string().min(1).max(255), role: z.enum(ROLES) });
 
 export const actions = {
-	role: async (event) => {
+	role: formAction(async (event, data) => {
 		const admin = requireRole(event, 'admin');
-		const parsed = change.safeParse(Object.fromEntries(await event.request.formData()));
-		if (!parsed.success) return fail(400, { error: 'Choose a member and a role.' });
-		try {
-			await users.changeRole(admin, parsed.data.userId, parsed.data.role);
-		} catch (error) {
-			if (error instanceof users.LastAdminError) return fail(409, { error: error.message, userId: parsed.data.userId });
-			throw error;
-		}
-		return { changed: parsed.data };
-	}
+		const input = parseOrThrow(change, valuesOf(data), 'Choose a member and a role.');
+		await users.changeRole(admin, input.userId, input.role);
+		return { changed: input };
+	})
 } satisfies Actions;

@@ -1,9 +1,8 @@
-import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
+import { formAction, parseForm } from '$lib/server/http/forms';
 import * as reports from '$lib/server/swaps/reports';
 import * as threads from '$lib/server/swaps/threads';
-import { SwapError } from '$lib/server/swaps/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 const query = z.object({
@@ -14,7 +13,7 @@ const query = z.object({
 export const load = (async (event) => {
 	const admin = requireRole(event, 'admin');
 	const params = query.parse(Object.fromEntries(event.url.searchParams));
-	const result = await reports.list(admin, params.show, params.page);
+	const [result, openCount] = await Promise.all([reports.list(admin, params.show, params.page), reports.openCount(admin)]);
 	// An open report about a message lets the admin read that conversation.
 	const conversations = Object.fromEntries(
 		await Promise.all(
@@ -43,34 +42,28 @@ export const load = (async (event) => {
 				})
 		)
 	);
-	return { ...result, params, conversations };
+	return { ...result, openCount, params, conversations };
 }) satisfies PageServerLoad;
 
-const decision = z.discriminatedUnion('decision', [
-	z.object({ decision: z.literal('resolve'), reportId: z.coerce.number().int().positive(), note: z.string().max(500).default('') }),
-	z.object({ decision: z.literal('dismiss'), reportId: z.coerce.number().int().positive(), note: z.string().max(500).default('') }),
-	z.object({
-		decision: z.literal('withdraw'),
-		reportId: z.coerce.number().int().positive(),
-		reason: z.string().max(300, 'Keep the reason to 300 characters.').default('')
-	})
-]);
+const reportId = z.coerce.number().int().positive();
+const decision = z.discriminatedUnion(
+	'decision',
+	[
+		z.object({ decision: z.literal('resolve'), reportId, note: z.string().max(500).default('') }),
+		z.object({ decision: z.literal('dismiss'), reportId, note: z.string().max(500).default('') }),
+		z.object({ decision: z.literal('withdraw'), reportId, reason: z.string().max(300, 'Keep the reason to 300 characters.').default('') })
+	],
+	{ error: 'Choose what to do with the report.' }
+);
 
 export const actions = {
-	decide: async (event) => {
-		const admin = requireRole(event, 'admin');
-		const parsed = decision.safeParse(Object.fromEntries(await event.request.formData()));
-		if (!parsed.success) return fail(400, { error: parsed.error.issues[0]?.message ?? 'Choose what to do with the report.' });
-		const d = parsed.data;
-		try {
+	decide: formAction(
+		async (event, data) => {
+			const admin = requireRole(event, 'admin');
+			const d = parseForm(decision, data);
 			await reports.decide(admin, d.reportId, d.decision === 'withdraw' ? { kind: 'withdraw', reason: d.reason } : { kind: d.decision, note: d.note });
-		} catch (e) {
-			if (e instanceof SwapError) {
-				if (e.status === 404) error(404, e.message);
-				return fail(e.status, { error: e.message, reportId: d.reportId });
-			}
-			throw e;
-		}
-		return { decided: d.decision, reportId: d.reportId };
-	}
+			return { decided: d.decision, reportId: d.reportId };
+		},
+		{ id: 'decide' }
+	)
 } satisfies Actions;

@@ -1,10 +1,9 @@
 import { error } from '@sveltejs/kit';
 import * as contests from '$lib/server/contests/contests';
-import * as entries from '$lib/server/contests/entries';
+import * as contestEntries from '$lib/server/contests/contest-entries';
 import { publicResults } from '$lib/server/contests/review';
 import { renderMarkdown } from '$lib/server/markdown';
 import { describeRule } from '$lib/contests/eligibility';
-import { entriesAccepted } from '$lib/contests/lifecycle';
 import type { PageServerLoad } from './$types';
 
 // Public once the contest has opened; a contest in preparation is the admins' (404 for others).
@@ -12,8 +11,8 @@ export const load = (async (event) => {
 	const viewer = event.locals.user;
 	const contest = await contests.get(viewer, Number(event.params.id));
 	if (!contest) error(404, 'We could not find that contest.');
-	const accepting = entriesAccepted(contest.state, contests.windowsOf(contest), new Date());
-	const mine = viewer ? await entries.listOwn(viewer, contest.id) : [];
+	const accepting = contests.acceptingEntries(contest);
+	const mine = viewer ? await contestEntries.listOwn(viewer, contest.id) : [];
 	const results = contest.state === 'published' || contest.state === 'archived' ? await publicResults(contest.id) : null;
 	return {
 		contest: {

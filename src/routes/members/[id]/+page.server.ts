@@ -1,10 +1,10 @@
 import { error, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
 import * as members from '$lib/server/swaps/members';
-import * as listings from '$lib/server/swaps/listings';
+import * as listings from '$lib/server/swaps/listing-cards';
 import * as blocks from '$lib/server/swaps/blocks';
 import * as tanks from '$lib/server/journals/tanks';
-import { SwapError } from '$lib/server/swaps/errors';
+import { formAction } from '$lib/server/http/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 // Member ids are the sign-in system's UUIDs.
@@ -30,21 +30,16 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	block: async (event) => {
+	block: formAction(async (event) => {
 		const viewer = requireUser(event);
 		const id = memberId(event.params.id);
-		try {
-			await blocks.block(viewer, id);
-		} catch (e) {
-			if (e instanceof SwapError) error(e.status === 400 ? 400 : 404, e.message);
-			throw e;
-		}
+		await blocks.block(viewer, id);
 		redirect(303, `/members/${id}`);
-	},
-	unblock: async (event) => {
+	}),
+	unblock: formAction(async (event) => {
 		const viewer = requireUser(event);
 		const id = memberId(event.params.id);
 		await blocks.unblock(viewer, id);
 		redirect(303, `/members/${id}`);
-	}
+	})
 } satisfies Actions;

@@ -1,26 +1,28 @@
-import { error, fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
-import * as listings from '$lib/server/swaps/listings';
+import { formAction } from '$lib/server/http/forms';
+import * as detail from '$lib/server/swaps/listing-detail';
+import * as transitions from '$lib/server/swaps/listing-transitions';
 import * as threads from '$lib/server/swaps/threads';
 import * as reports from '$lib/server/swaps/reports';
 import * as blocks from '$lib/server/swaps/blocks';
-import { SwapError } from '$lib/server/swaps/errors';
 import { renderMarkdown } from '$lib/server/markdown';
-import { availableActions } from '$lib/swaps/listing-state';
+import { invalid } from '$lib/errors';
+import { availableActions, isReservationOverdue } from '$lib/swaps/listing-state';
 import { DAY_MS } from '$lib/swaps/listing';
 import { untilEndOf } from '$lib/swaps/listing-form';
-import type { Actions, PageServerLoad } from './$types';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load = (async (event) => {
 	const viewer = requireUser(event);
 	const now = new Date();
-	const listing = await listings.get(viewer, Number(event.params.id), { now });
+	const listing = await detail.get(viewer, Number(event.params.id), { now });
 	if (!listing) error(404, 'We could not find that listing.');
 	const own = listing.ownerId === viewer.id;
 	const [threadId, requests, history, relation] = await Promise.all([
 		own ? null : threads.ownThreadFor(viewer, listing.id),
 		own ? threads.listForListing(viewer, listing.id, { now }) : [],
-		own ? listings.history(viewer, listing.id) : [],
+		own ? detail.history(viewer, listing.id) : [],
 		own ? { aBlockedB: false, bBlockedA: false } : blocks.between(viewer.id, listing.ownerId)
 	]);
 	const { pure, ...rest } = listing;
@@ -31,6 +33,7 @@ export const load = (async (event) => {
 		listing: shown,
 		descriptionHtml: listing.description ? renderMarkdown(listing.description) : '',
 		own,
+		overdue: own && isReservationOverdue(pure, now),
 		threadId,
 		requests,
 		history,
@@ -41,57 +44,43 @@ export const load = (async (event) => {
 	};
 }) satisfies PageServerLoad;
 
-function refusal(e: unknown, key: string, values: Record<string, unknown> = {}) {
-	if (e instanceof SwapError) {
-		if (e.status === 404) error(404, e.message);
-		return fail(e.status, { [key]: e.message, ...values });
-	}
-	throw e;
-}
-
-async function act(event: RequestEvent, action: listings.OwnerAction) {
-	const viewer = requireUser(event);
-	const id = Number(event.params.id);
-	try {
-		await listings.act(viewer, id, action);
-	} catch (e) {
-		return refusal(e, 'actionError');
-	}
-	redirect(303, `/swaps/${id}`);
-}
+/** A step of the owner (or of either member of the reserved swap): the page's buttons share one form id. */
+const step = (action: (data: FormData) => transitions.OwnerAction) =>
+	formAction(
+		async (event: RequestEvent, data) => {
+			const viewer = requireUser(event);
+			const id = Number(event.params.id);
+			await transitions.act(viewer, id, action(data));
+			redirect(303, `/swaps/${id}`);
+		},
+		{ id: 'step' }
+	);
 
 export const actions = {
-	request: async (event) => {
-		const viewer = requireUser(event);
-		const body = String((await event.request.formData()).get('body') ?? '');
-		let threadId: number;
-		try {
-			threadId = await threads.request(viewer, Number(event.params.id), body);
-		} catch (e) {
-			return refusal(e, 'requestError', { body });
-		}
-		redirect(303, `/swaps/threads/${threadId}`);
-	},
-	withdraw: (event) => act(event, { type: 'withdraw' }),
-	release: (event) => act(event, { type: 'release' }),
-	confirm: (event) => act(event, { type: 'confirm-handover' }),
-	extend: async (event) => {
-		requireUser(event);
-		const form = await event.request.formData();
+	request: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const threadId = await threads.request(viewer, Number(event.params.id), String(data.get('body') ?? ''));
+			redirect(303, `/swaps/threads/${threadId}`);
+		},
+		{ id: 'request' }
+	),
+	withdraw: step(() => ({ type: 'withdraw' })),
+	release: step(() => ({ type: 'release' })),
+	confirm: step(() => ({ type: 'confirm-handover' })),
+	extend: step((data) => {
 		const now = new Date();
-		const day = String(form.get('availableUntil') ?? '');
+		const day = String(data.get('availableUntil') ?? '');
 		const until = day ? untilEndOf(day, now) : new Date(now.getTime() + 7 * DAY_MS);
-		if (!until) return fail(400, { actionError: 'Give the day as YYYY-MM-DD.' });
-		return act(event, { type: 'extend', availableUntil: until });
-	},
-	report: async (event) => {
-		const viewer = requireUser(event);
-		const reason = String((await event.request.formData()).get('reason') ?? '');
-		try {
-			await reports.reportListing(viewer, Number(event.params.id), reason);
-		} catch (e) {
-			return refusal(e, 'reportError', { reason });
-		}
-		return { reported: true };
-	}
+		if (!until) throw invalid({ availableUntil: 'Give the day as YYYY-MM-DD.' });
+		return { type: 'extend', availableUntil: until };
+	}),
+	report: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			await reports.reportListing(viewer, Number(event.params.id), String(data.get('reason') ?? ''));
+			return { reported: true };
+		},
+		{ id: 'report' }
+	)
 } satisfies Actions;

@@ -1,9 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
-import * as listings from '$lib/server/swaps/listings';
+import * as edits from '$lib/server/swaps/listing-edits';
 import { emptyDraft } from '$lib/swaps/listing-form';
 import { LISTING_CATEGORIES, type ListingCategory } from '$lib/swaps/listing';
-import { failed, formChoices, readListingForm } from '../form.server';
+import { formChoices, listingFormAction } from '../form.server';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -17,16 +17,11 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const viewer = requireUser(event);
-		const read = await readListingForm(event.request, viewer, null);
-		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, photos: read.photos });
-		let id: number;
-		try {
-			id = await listings.create(viewer, read.input, read.photos);
-		} catch (error) {
-			return failed(error, viewer, read, null);
+	default: listingFormAction(
+		async () => null,
+		async (viewer, input, photos) => {
+			const id = await edits.create(viewer, input, photos);
+			redirect(303, `/swaps/${id}`);
 		}
-		redirect(303, `/swaps/${id}`);
-	}
+	)
 } satisfies Actions;

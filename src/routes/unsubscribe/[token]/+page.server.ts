@@ -1,20 +1,20 @@
-import { error, fail } from '@sveltejs/kit';
-import * as unsubscribe from '$lib/server/mail/unsubscribe';
+import { error } from '@sveltejs/kit';
+import * as subscriptions from '$lib/server/club/subscriptions';
+import { formAction } from '$lib/server/http/forms';
 import type { Actions, PageServerLoad } from './$types';
 
 // Reached from a link in mail, without signing in: the unguessable token is the credential.
 export const load = (async ({ params, url }) => {
-	const row = await unsubscribe.findByToken(params.token);
-	if (!row) error(404, 'That unsubscribe link is not valid any more. You can change your mail settings on your account page.');
+	const settings = await subscriptions.byToken(params.token);
+	if (!settings) error(404, subscriptions.INVALID_LINK);
 	const kind = url.searchParams.get('kind') === 'digest' ? 'digest' : 'announcements';
-	return { email: unsubscribe.maskEmail(row.email ?? ''), announcements: row.announcements, weeklyDigest: row.weeklyDigest, kind };
+	return { ...settings, kind };
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async ({ params, request }) => {
-		const form = await request.formData();
-		const settings = { announcements: form.get('announcements') === 'on', weeklyDigest: form.get('weeklyDigest') === 'on' };
-		if (!(await unsubscribe.setSubscriptions(params.token, settings))) return fail(404, { error: 'That link is not valid any more.' });
+	default: formAction(async ({ params }, data) => {
+		const settings = { announcements: data.get('announcements') === 'on', weeklyDigest: data.get('weeklyDigest') === 'on' };
+		await subscriptions.update(params.token, settings);
 		return { saved: settings };
-	}
+	})
 } satisfies Actions;

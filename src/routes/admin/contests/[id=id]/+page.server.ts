@@ -1,7 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/club/guards';
 import * as contests from '$lib/server/contests/contests';
-import * as audit from '$lib/server/contests/audit';
 import { review } from '$lib/server/contests/review';
 import { describeRule } from '$lib/contests/eligibility';
 import { nextTransition, transitionProblems } from '$lib/contests/lifecycle';
@@ -28,7 +27,7 @@ export const load = (async (event) => {
 				judgingComplete: report.readiness.ready
 			})
 		: [];
-	const trail = await audit.trail(id);
+	const trail = await contests.log(viewer, id, 30);
 	return {
 		contest: {
 			id: c.id,
@@ -51,15 +50,12 @@ export const load = (async (event) => {
 			entries: data.entries.filter((e) => e.categoryId === k.id).length
 		})),
 		criteria: c.criteria.map((k) => ({ id: k.id, label: k.label, maxPoints: k.maxPoints, weight: k.weight })),
-		panel: data.panel.map((p) => p.displayName),
+		panel: data.panel.map((p) => p.name),
 		progress: report.readiness.overall,
-		trail: trail
-			.reverse()
-			.slice(0, 30)
-			.map((t) => ({ id: t.id, action: t.action, actorName: t.actorName, createdAt: t.createdAt, detail: t.detail }))
+		trail: trail.map((t) => ({ id: t.id, action: t.action, actorName: t.actorName, createdAt: t.createdAt, detail: t.detail }))
 	};
 }) satisfies PageServerLoad;
 
 export const actions = {
-	step: (event) => takeStep(event, `/admin/contests/${event.params.id}`)
+	step: takeStep((id) => `/admin/contests/${id}`)
 } satisfies Actions;

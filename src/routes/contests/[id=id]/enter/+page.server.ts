@@ -1,19 +1,20 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
+import { formAction } from '$lib/server/http/forms';
 import * as contests from '$lib/server/contests/contests';
-import * as entries from '$lib/server/contests/entries';
-import { entriesAccepted } from '$lib/contests/lifecycle';
-import { entryChoices, readEntryForm, refused } from '../entry-form.server';
+import * as contestEntries from '$lib/server/contests/contest-entries';
+import { readContestEntryForm } from '$lib/contests/contest-entry-form';
+import { entryChoices, entryFormAgain } from '../contest-entry-form.server';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const viewer = requireUser(event);
 	const contest = await contests.get(viewer, Number(event.params.id));
 	if (!contest) error(404, 'We could not find that contest.');
-	const mine = await entries.listOwn(viewer, contest.id);
+	const mine = await contestEntries.listOwn(viewer, contest.id);
 	return {
 		contest: { id: contest.id, title: contest.title, entryClosesOn: contest.entryClosesOn, entriesPerMember: contest.entriesPerMember },
-		accepting: entriesAccepted(contest.state, contests.windowsOf(contest), new Date()),
+		accepting: contests.acceptingEntries(contest),
 		full: mine.length >= contest.entriesPerMember,
 		...(await entryChoices(viewer, contest)),
 		draft: { categoryId: contest.categories.length === 1 ? String(contest.categories[0]!.id) : '', tankId: '', statement: '' }
@@ -21,17 +22,13 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const viewer = requireUser(event);
-		const contestId = Number(event.params.id);
-		const read = await readEntryForm(event.request, viewer, null);
-		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, photos: read.photos });
-		let id: number;
-		try {
-			id = await entries.create(viewer, contestId, read.input);
-		} catch (e) {
-			return refused(e, viewer, read, null);
-		}
-		redirect(303, `/contests/${contestId}/entries/${id}?entered=1`);
-	}
+	default: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const contestId = Number(event.params.id);
+			const id = await contestEntries.create(viewer, contestId, readContestEntryForm(data));
+			redirect(303, `/contests/${contestId}/entries/${id}?entered=1`);
+		},
+		{ values: entryFormAgain(() => null) }
+	)
 } satisfies Actions;

@@ -1,13 +1,16 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
-import * as listings from '$lib/server/swaps/listings';
-import { draftOf, failed, formChoices, readListingForm } from '../../form.server';
-import type { Actions, PageServerLoad } from './$types';
+import * as detail from '$lib/server/swaps/listing-detail';
+import * as edits from '$lib/server/swaps/listing-edits';
+import { draftOf, formChoices, listingFormAction } from '../../form.server';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
+
+const NOT_FOUND = 'We could not find that listing.';
 
 export const load = (async (event) => {
 	const viewer = requireUser(event);
-	const listing = await listings.getOwn(viewer, Number(event.params.id));
-	if (!listing) error(404, 'We could not find that listing.');
+	const listing = await detail.getOwn(viewer, Number(event.params.id));
+	if (!listing) error(404, NOT_FOUND);
 	if (listing.state === 'handed-over' || listing.state === 'withdrawn') redirect(303, `/swaps/${listing.id}`);
 	return {
 		...(await formChoices(viewer)),
@@ -18,17 +21,15 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const viewer = requireUser(event);
-		const id = Number(event.params.id);
-		if (!(await listings.getOwn(viewer, id))) error(404, 'We could not find that listing.');
-		const read = await readListingForm(event.request, viewer, id);
-		if (!read.ok) return fail(400, { errors: read.errors, draft: read.draft, photos: read.photos });
-		try {
-			await listings.update(viewer, id, read.input, read.photos);
-		} catch (e) {
-			return failed(e, viewer, read, id);
+	default: listingFormAction(
+		async (viewer, event: RequestEvent) => {
+			const id = Number(event.params.id);
+			if (!(await detail.getOwn(viewer, id))) error(404, NOT_FOUND);
+			return id;
+		},
+		async (viewer, input, photos, id) => {
+			await edits.update(viewer, id!, input, photos);
+			redirect(303, `/swaps/${id}?saved=1`);
 		}
-		redirect(303, `/swaps/${id}?saved=1`);
-	}
+	)
 } satisfies Actions;

@@ -1,9 +1,10 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
+import { formAction } from '$lib/server/http/forms';
 import * as contests from '$lib/server/contests/contests';
 import * as announce from '$lib/server/contests/announce';
-import { ContestError } from '$lib/server/contests/errors';
+import { invalid } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 const query = z.object({ page: z.coerce.number().int().min(1).max(10_000).catch(1), address: z.string().trim().max(200).catch('') });
@@ -24,17 +25,10 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	send: async (event) => {
+	send: formAction(async (event, data) => {
 		const viewer = requireRole(event, 'admin');
-		const form = await event.request.formData();
-		if (form.get('confirm') !== 'yes') return fail(400, { sendError: 'Tick the box to confirm that you have read the preview.' });
-		let queued = 0;
-		try {
-			queued = (await announce.send(viewer, Number(event.params.id))).queued;
-		} catch (e) {
-			if (e instanceof ContestError) return fail(e.status === 404 ? 404 : 409, { sendError: e.message });
-			throw e;
-		}
+		if (data.get('confirm') !== 'yes') throw invalid({ confirm: 'Tick the box to confirm that you have read the preview.' });
+		const { queued } = await announce.send(viewer, Number(event.params.id));
 		redirect(303, `/admin/contests/${event.params.id}/announce?sent=${queued}`);
-	}
+	})
 } satisfies Actions;

@@ -1,8 +1,9 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/club/guards';
+import { formAction } from '$lib/server/http/forms';
 import * as contests from '$lib/server/contests/contests';
-import { ContestError } from '$lib/server/contests/errors';
-import { draftFromForm, parseContestDraft } from '$lib/contests/contest-form';
+import { notFound } from '$lib/errors';
+import { draftFromForm, readContestForm } from '$lib/contests/contest-form';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -19,20 +20,15 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const viewer = requireRole(event, 'admin');
-		const id = Number(event.params.id);
-		const contest = await contests.get(viewer, id);
-		if (!contest) error(404, 'We could not find that contest.');
-		const draft = draftFromForm(await event.request.formData());
-		const parsed = parseContestDraft(draft, { locked: contest.state !== 'draft' });
-		if (!parsed.ok) return fail(400, { errors: parsed.errors, draft });
-		try {
-			await contests.update(viewer, id, parsed.input);
-		} catch (e) {
-			if (e instanceof ContestError) return fail(e.status, { errors: { form: e.message }, draft });
-			throw e;
-		}
-		redirect(303, `/admin/contests/${id}?saved=1`);
-	}
+	default: formAction(
+		async (event, data) => {
+			const viewer = requireRole(event, 'admin');
+			const id = Number(event.params.id);
+			const contest = await contests.get(viewer, id);
+			if (!contest) throw notFound('We could not find that contest.');
+			await contests.update(viewer, id, readContestForm(data, { locked: contest.state !== 'draft' }));
+			redirect(303, `/admin/contests/${id}?saved=1`);
+		},
+		{ values: draftFromForm }
+	)
 } satisfies Actions;

@@ -1,8 +1,8 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
-import { ContestError } from '$lib/server/contests/errors';
-import { review, setRankBy } from '$lib/server/contests/review';
+import { formAction, parseForm } from '$lib/server/http/forms';
+import { nameIn, review, setRankBy } from '$lib/server/contests/review';
 import { RANK_BASES } from '$lib/contests/results';
 import { TRANSITIONS } from '$lib/contests/lifecycle';
 import { takeStep } from '../../transition.server';
@@ -13,7 +13,7 @@ export const load = (async (event) => {
 	const found = await review(viewer, Number(event.params.id));
 	if (!found) error(404, 'We could not find that contest.');
 	const { data, report } = found;
-	const name = (id: string) => data.people.get(id)?.displayName ?? 'A member';
+	const name = (id: string) => nameIn(data, id);
 	const entryOf = (id: string) => data.entries.find((e) => String(e.id) === id)!;
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
 	const c = data.contest;
@@ -100,20 +100,20 @@ export const load = (async (event) => {
 	};
 }) satisfies PageServerLoad;
 
-const rankSchema = z.object({ rankBy: z.enum(RANK_BASES), reason: z.string().trim().max(500).optional() });
+const rankForm = z.object({
+	rankBy: z.enum(RANK_BASES, { message: 'Choose how places are decided.' }),
+	reason: z.string().trim().max(500, 'Keep the reason to 500 characters.').optional()
+});
 
 export const actions = {
-	rankBy: async (event) => {
-		const viewer = requireRole(event, 'admin');
-		const parsed = rankSchema.safeParse(Object.fromEntries(await event.request.formData()));
-		if (!parsed.success) return fail(400, { rankError: 'Choose how places are decided.' });
-		try {
-			await setRankBy(viewer, Number(event.params.id), parsed.data.rankBy, parsed.data.reason ?? null);
-		} catch (e) {
-			if (e instanceof ContestError) return fail(e.status === 404 ? 404 : 400, { rankError: e.message });
-			throw e;
-		}
-		redirect(303, `/admin/contests/${event.params.id}/results?ranked=1`);
-	},
-	step: (event) => takeStep(event, `/admin/contests/${event.params.id}/results`)
+	rankBy: formAction(
+		async (event, data) => {
+			const viewer = requireRole(event, 'admin');
+			const input = parseForm(rankForm, data);
+			await setRankBy(viewer, Number(event.params.id), input.rankBy, input.reason ?? null);
+			redirect(303, `/admin/contests/${event.params.id}/results?ranked=1`);
+		},
+		{ id: 'rankBy' }
+	),
+	step: takeStep((id) => `/admin/contests/${id}/results`)
 } satisfies Actions;

@@ -1,17 +1,17 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/club/guards';
-import * as entries from '$lib/server/contests/entries';
-import { ContestError } from '$lib/server/contests/errors';
+import { formAction } from '$lib/server/http/forms';
+import * as contests from '$lib/server/contests/contests';
+import * as contestEntries from '$lib/server/contests/contest-entries';
+import * as judging from '$lib/server/contests/judging';
 import { feedback } from '$lib/server/contests/review';
-import { renderMarkdown } from '$lib/server/markdown';
-import { windowsOf } from '$lib/server/contests/contests';
-import { entriesAccepted } from '$lib/contests/lifecycle';
+import { invalid } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
 // The entrant's own entry (admins may look too): status, what was entered, feedback once published.
 export const load = (async (event) => {
 	const viewer = requireUser(event);
-	const found = await entries.getOwn(viewer, Number(event.params.entry));
+	const found = await contestEntries.getOwn(viewer, Number(event.params.entry));
 	if (!found || found.contest.id !== Number(event.params.id)) error(404, 'We could not find that entry.');
 	const { entry, contest } = found;
 	return {
@@ -22,10 +22,12 @@ export const load = (async (event) => {
 			categoryName: entry.categoryName,
 			tankName: entry.tankName,
 			tankId: entry.entrantId === viewer.id ? entry.tankId : null,
-			litres: entry.litres,
-			volumeSource: entry.volumeSource,
-			ageWeeks: entry.ageWeeks,
-			statementHtml: renderMarkdown(entry.statement),
+			// What the judges read: the statement without pictures, the figures as the rule and bands.
+			judged: judging.blindText(
+				entry,
+				contest.categories.find((c) => c.id === entry.categoryId)!,
+				viewer.units
+			),
 			photos: entry.photos.map((p) => ({
 				id: p.id,
 				alt: p.alt,
@@ -36,25 +38,16 @@ export const load = (async (event) => {
 			}))
 		},
 		own: entry.entrantId === viewer.id,
-		changeable: entry.entrantId === viewer.id && entriesAccepted(contest.state, windowsOf(contest), new Date()),
+		changeable: entry.entrantId === viewer.id && contests.acceptingEntries(contest),
 		feedback: await feedback(viewer, entry.id)
 	};
 }) satisfies PageServerLoad;
 
 export const actions = {
-	withdraw: async (event) => {
+	withdraw: formAction(async (event, data) => {
 		const viewer = requireUser(event);
-		const form = await event.request.formData();
-		if (form.get('confirm') !== 'withdraw') return fail(400, { withdrawError: 'Tick the box to confirm that you withdraw this entry.' });
-		try {
-			const contestId = await entries.withdraw(viewer, Number(event.params.entry));
-			redirect(303, `/contests/${contestId}?withdrawn=1`);
-		} catch (e) {
-			if (e instanceof ContestError) {
-				if (e.status === 404) error(404, 'We could not find that entry.');
-				return fail(e.status, { withdrawError: e.message });
-			}
-			throw e;
-		}
-	}
+		if (data.get('confirm') !== 'withdraw') throw invalid({ confirm: 'Tick the box to confirm that you withdraw this entry.' });
+		const contestId = await contestEntries.withdraw(viewer, Number(event.params.entry));
+		redirect(303, `/contests/${contestId}?withdrawn=1`);
+	})
 } satisfies Actions;

@@ -1,20 +1,16 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
+import { endpoint, readJson } from '$lib/server/http/api';
 import * as judging from '$lib/server/contests/judging';
-import { refusal } from '$lib/server/contests/api';
 import type { RequestHandler } from './$types';
 
-const body = z.object({ version: z.number().int().min(1) });
+const SAY_WHICH = 'Say which version of the card you submit.';
+const body = z.object({ version: z.number({ message: SAY_WHICH }).int(SAY_WHICH).min(1, SAY_WHICH) }, { message: SAY_WHICH });
 
 /** Submits the card as last saved: { version } must be the version the judge is looking at. */
-export const POST: RequestHandler = async (event) => {
+export const POST: RequestHandler = endpoint(async (event) => {
 	const viewer = requireRole(event, 'judge', 'admin');
-	const parsed = body.safeParse(await event.request.json().catch(() => null));
-	if (!parsed.success) return json({ code: 'bad-request', message: 'Say which version of the card you submit.' }, { status: 400 });
-	try {
-		return json(await judging.submitCard(viewer, Number(event.params.contest), Number(event.params.number), parsed.data.version));
-	} catch (error) {
-		return refusal(error);
-	}
-};
+	const { version } = await readJson(event, body);
+	return json(await judging.submitCard(viewer, Number(event.params.contest), Number(event.params.number), version));
+});

@@ -1,0 +1,87 @@
+// What other features may know of members and club areas, read in batches (one query for any
+// number of ids, so a page of cards costs the same as one card): the name others see, where to
+// mail them, their role, whether they take club announcements or the weekly digest, and areas' names. Features never
+// read the member or area tables themselves.
+import { and, asc, eq, gt, inArray, isNotNull, type SQL } from 'drizzle-orm';
+import { resolve, type Context } from '../context';
+import { nameOf } from '../../club/names';
+import type { Role } from '../../club/roles';
+import { clubAreas, users } from './schema';
+
+export interface Member {
+	id: string;
+	/** As others see it (nameOf). */
+	name: string;
+	/** Empty when the member has no address (nothing may be sent). */
+	email: string;
+	role: Role;
+	unsubscribeToken: string;
+	announcements: boolean;
+}
+
+const columns = {
+	id: users.id,
+	displayName: users.displayName,
+	email: users.email,
+	role: users.role,
+	unsubscribeToken: users.unsubscribeToken,
+	announcements: users.announcements
+};
+
+async function select(where: SQL | undefined, context: Context): Promise<Member[]> {
+	const { db } = resolve(context);
+	const rows = await db.select(columns).from(users).where(where);
+	return rows.map(({ displayName, email, ...r }) => ({ ...r, name: nameOf(displayName), email: email ?? '' }));
+}
+
+const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
+
+/** The members with these ids, by id (ids of former members are missing). */
+export async function byIds(ids: Iterable<string>, context: Context = {}): Promise<Map<string, Member>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	return new Map((await select(inArray(users.id, unique), context)).map((m) => [m.id, m]));
+}
+
+/** The name each member is shown under, by id. */
+export async function names(ids: Iterable<string>, context: Context = {}): Promise<Map<string, string>> {
+	return new Map([...(await byIds(ids, context))].map(([id, m]) => [id, m.name]));
+}
+
+/** Members with a role and an address, by name. */
+export async function withRole(role: Role, context: Context = {}): Promise<Member[]> {
+	return (await select(and(eq(users.role, role), isNotNull(users.email)), context)).sort(byName);
+}
+
+/** Everyone with an address who takes club announcements. */
+export async function announcementReaders(context: Context = {}): Promise<Member[]> {
+	return select(and(eq(users.announcements, true), isNotNull(users.email)), context);
+}
+
+/** Club areas' names, by id. An id of no area (e.g. one removed since) is not in the map. */
+export async function areaNames(ids: Iterable<number>, context: Context = {}): Promise<Map<number, string>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	const { db } = resolve(context);
+	const rows = await db.select({ id: clubAreas.id, name: clubAreas.name }).from(clubAreas).where(inArray(clubAreas.id, unique));
+	return new Map(rows.map((r) => [r.id, r.name]));
+}
+
+export interface DigestReader {
+	id: string;
+	email: string;
+	displayName: string | null;
+	unsubscribeToken: string;
+}
+
+/** Members who asked for the weekly digest and have an address, in id order after `afterId`, `limit` at a time. */
+export async function weeklyDigestReaders(page: { afterId?: string; limit: number }, context: Context = {}): Promise<DigestReader[]> {
+	const { db } = resolve(context);
+	const rows = await db
+		.select({ id: users.id, email: users.email, displayName: users.displayName, unsubscribeToken: users.unsubscribeToken })
+		.from(users)
+		.where(and(eq(users.weeklyDigest, true), isNotNull(users.email), page.afterId === undefined ? undefined : gt(users.id, page.afterId)))
+		.orderBy(asc(users.id))
+		.limit(page.limit);
+	return rows.map((r) => ({ ...r, email: r.email ?? '' }));
+}

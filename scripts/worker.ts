@@ -10,6 +10,10 @@ import { jobs } from '../src/lib/server/jobs';
 import { startJobs } from '../src/lib/server/jobs/runner';
 import { startWorker } from '../src/lib/server/mail/outbox';
 import { defaultTransport } from '../src/lib/server/mail/transport';
+import { registerMediaScopes } from '../src/lib/server/media-scopes';
+
+// Jobs read and remove photos of every feature; the features say who owns which first.
+registerMediaScopes();
 
 const name = `${hostname()}:${process.pid}`;
 const stopOutbox = startWorker({ onError: (e) => console.error('[outbox] delivery round failed:', e instanceof Error ? e.message : e) });

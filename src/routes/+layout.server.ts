@@ -7,6 +7,8 @@ export const load = (async ({ locals, depends }) => {
 	depends('swaps:unread');
 	return {
 		viewer: user ? { id: user.id, displayName: user.displayName, role: user.role, units: user.units } : null,
+		// Signed in but not (yet) a member: the header links to their membership page instead.
+		applicant: !user && locals.account ? { state: locals.account.state } : null,
 		unreadSwaps: user ? await unreadCount(user.id) : 0
 	};
 }) satisfies LayoutServerLoad;

@@ -9,21 +9,7 @@
 import { dayNumber, isoDay } from '../journals/calc';
 import { TASK_KIND_LABELS, type TaskKind } from '../journals/journal-vocabulary';
 import type { Co2Method } from '../journals/tank-vocabulary';
-
-export const FEEDING_CHOICES = ['none', 'reduced', 'usual'] as const;
-export type FeedingChoice = (typeof FEEDING_CHOICES)[number];
-export const FEEDING_LABELS: Record<FeedingChoice, string> = {
-	none: 'No feeding while I am away',
-	reduced: 'A small pinch every other visit',
-	usual: 'As I feed them now'
-};
-
-export const LIGHTING_CHOICES = ['keep', 'shorten'] as const;
-export type LightingChoice = (typeof LIGHTING_CHOICES)[number];
-export const LIGHTING_LABELS: Record<LightingChoice, string> = {
-	keep: 'Keep the lights as they are',
-	shorten: 'Shorten the lighting day while nobody trims'
-};
+import type { FeedingChoice, LightingChoice } from './vocabulary';
 
 /** Hours of light a day suggested while nobody trims (the same short day keepers give a new tank). */
 export const AWAY_PHOTOPERIOD_HOURS = 6;

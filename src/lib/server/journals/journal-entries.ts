@@ -17,6 +17,7 @@ import { invalid, notFound } from '../../errors';
 import { UNNAMED_MEMBER } from '../../club/names';
 import type { EntryInput, EventInput } from '../../journals/journal-entry-form';
 import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
+import { doneEventKind } from '../../journals/schedule';
 import {
 	entryComments,
 	journalEntries,
@@ -174,6 +175,47 @@ export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: 
 		await social.notifyFollowers(tank, { id: entryId, title: input.title, entryOn: input.entryOn }, inTx);
 		return entryId;
 	});
+}
+
+/**
+ * An entry written on someone else's tank by a member the keeper asked to look in while away (the
+ * caller, away care, has checked that they may). Ticked schedule tasks are logged as done by this
+ * visit, so the schedule resets them; the photos are the sitter's own uploads.
+ */
+export async function createVisit(
+	sitter: Pick<Viewer, 'id'>,
+	tankId: number,
+	input: { entryOn: string; title: string; body: string; taskIds: number[] },
+	photos: PhotoField[],
+	context: Context = {}
+): Promise<number> {
+	const { db, now } = resolve(context);
+	const write = async (tx: DbOrTx) => {
+		const inTx = within({ ...context, now }, tx);
+		const tasks = (await upkeep.listForTank(tankId, inTx)).filter((t) => input.taskIds.includes(t.id));
+		const [result] = await tx
+			.insert(journalEntries)
+			.values({ tankId, authorId: sitter.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
+		const entryId = result.insertId;
+		await media.setPhotos(sitter.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
+		for (const [position, task] of tasks.entries()) {
+			const kind = doneEventKind(task.kind);
+			await tx.insert(journalEvents).values({
+				tankId,
+				entryId,
+				kind,
+				occurredOn: input.entryOn,
+				position,
+				filterPart: kind === 'filter-clean' ? task.filterPart : null,
+				what: kind === 'upkeep' ? task.label : '',
+				taskId: task.id
+			});
+		}
+		await upkeep.recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+		return entryId;
+	};
+	return db.transaction(write);
 }
 
 /**

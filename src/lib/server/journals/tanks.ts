@@ -1,7 +1,7 @@
 // Tank profiles. Every read takes the viewer and goes through canView, so who may see a tank
 // (and its photos, see ./photo-access.ts) is decided here and nowhere else. Deleting a tank,
 // which takes its journal with it, is ./tank-deletion.ts.
-import { and, asc, desc, eq, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
 import { resolve, within, type Context } from '../context';
 import * as media from '../media';
@@ -118,6 +118,17 @@ export async function lockOwn(viewer: Pick<Viewer, 'id'>, id: number, context: C
 }
 
 /** Notes new journal activity (an entry, event or test) for "recently updated". */
+/**
+ * Tanks' names by id, for a feature that has already decided the viewer may know them (away care
+ * names the tank to the member asked to look in). Ids of no tank are missing.
+ */
+export async function namesOf(ids: Iterable<number>, context: Context = {}): Promise<Map<number, string>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	const rows = await resolve(context).db.select({ id: tanks.id, name: tanks.name }).from(tanks).where(inArray(tanks.id, unique));
+	return new Map(rows.map((r) => [r.id, r.name]));
+}
+
 export async function touch(id: number, context: Context = {}): Promise<void> {
 	const { db, now } = resolve(context);
 	await db.update(tanks).set({ activityAt: now }).where(eq(tanks.id, id));

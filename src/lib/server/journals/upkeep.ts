@@ -25,6 +25,15 @@ export async function listForTank(tankId: number, context: Context = {}): Promis
 		.orderBy(asc(maintenanceTasks.position), asc(maintenanceTasks.id));
 }
 
+/** The top-ups logged for a tank (day and litres), for the evaporation estimate of away care. */
+export async function topUpsOf(tankId: number, context: Context = {}): Promise<{ on: string; litres: number }[]> {
+	const rows = await resolve(context)
+		.db.select({ on: journalEvents.occurredOn, litres: journalEvents.amount })
+		.from(journalEvents)
+		.where(and(eq(journalEvents.tankId, tankId), eq(journalEvents.kind, 'top-up')));
+	return rows.flatMap((r) => (r.litres === null ? [] : [{ on: r.on, litres: r.litres }]));
+}
+
 /** Everything logged for a tank that can count as doing a task. */
 async function loggedFor(tx: DbOrTx, tankId: number): Promise<LoggedUpkeep[]> {
 	const [events, tests] = await Promise.all([

@@ -1,6 +1,17 @@
 import { describe, expect, test } from 'vitest';
 import { scheduleTask } from '../journals/calc';
-import { carePlanMarkdown, daysAway, doseAdvice, draftCarePlan, dueOn, tasksInPeriod, topUpFor, type CarePlanInput, type PlanTask } from './care-plan';
+import {
+	carePlanMarkdown,
+	checklistOf,
+	daysAway,
+	doseAdvice,
+	draftCarePlan,
+	dueOn,
+	tasksInPeriod,
+	topUpFor,
+	type CarePlanInput,
+	type PlanTask
+} from './care-plan';
 
 // Day counts are checked against the JavaScript Date (ECMA-262 time values: 86,400,000 ms a day),
 // which the plan does not use. The decisions themselves are our own rules of thumb (common
@@ -28,12 +39,12 @@ const base: CarePlanInput = {
 
 describe('days away', () => {
 	test('agree with Date across a month end and a leap day', () => {
-		for (const [a, b] of [
+		const pairs: [string, string][] = [
 			['2026-07-04', '2026-07-14'],
 			['2026-01-25', '2026-02-03'],
 			['2028-02-25', '2028-03-02']
-		])
-			expect(daysAway(a, b)).toBe(dateDays(a, b));
+		];
+		for (const [a, b] of pairs) expect(daysAway(a, b)).toBe(dateDays(a, b));
 	});
 });
 
@@ -41,7 +52,7 @@ describe('which tasks fall due while away, and which can wait', () => {
 	test('a task falls due its interval after it was last done, as the upkeep schedule has it', () => {
 		const t = task('Water change', 'water-change', 7, '2026-07-01');
 		expect(dueOn(t, base.leaving)).toBe(
-			scheduleTask({ id: 1, tankId: 1, label: t.label, intervalDays: 7, lastDoneOn: '2026-07-01' }, new Date('2026-07-01T12:00:00Z')).nextDueOn
+			scheduleTask({ id: '1', tankId: '1', label: t.label, intervalDays: 7, lastDoneOn: '2026-07-01' }, new Date('2026-07-01T12:00:00Z')).nextDueOn
 		);
 		expect(dateDays('2026-07-01', dueOn(t, base.leaving))).toBe(7);
 	});
@@ -112,5 +123,17 @@ describe('the draft', () => {
 	});
 	test('what the keeper typed cannot add markup to the plan', () => {
 		expect(carePlanMarkdown({ ...base, tankName: '<img src=x onerror=alert(1)> *bold*' })).toContain('\\<img src=x onerror=alert(1)\\> \\*bold\\*');
+	});
+});
+
+describe('the checklist a sitter ticks', () => {
+	test('is the plan’s tick-box lines, as they read, once each', () => {
+		const text = carePlanMarkdown({ ...base, tankName: 'Tank *one*', tasks: [task('Water change', 'water-change', 7, '2026-07-01')] });
+		const list = checklistOf(text + '\n- [ ] Water change (due Wed 8 Jul)\n* [ ] Feed the snails\n- plain line\n');
+		expect(list).toContain('Water change (due Wed 8 Jul)');
+		expect(list).toContain('Feed the snails');
+		expect(list).not.toContain('plain line');
+		expect(list.filter((l) => l.startsWith('Water change'))).toHaveLength(1);
+		expect(list.some((l) => l.includes('heater is on'))).toBe(true);
 	});
 });

@@ -222,3 +222,13 @@ export function carePlanMarkdown(input: CarePlanInput, draft: CarePlanDraft = dr
 	push(input.keeperPhone ? `- ${md(input.keeperPhone)}` : '- Through the club site’s messages.');
 	return lines.join('\n') + '\n';
 }
+
+/** The tick-box lines of a plan ("- [ ] …"), as the sitter ticks them on a visit, without markdown escapes. */
+export function checklistOf(body: string): string[] {
+	const lines: string[] = [];
+	for (const line of body.split('\n')) {
+		const match = /^\s*[-*]\s+\[\s?\]\s+(.+)$/.exec(line);
+		if (match?.[1]) lines.push(match[1].replace(/\\([\\`*_[\]#<>|])/g, '$1').trim());
+	}
+	return [...new Set(lines)];
+}

@@ -23,8 +23,10 @@ export function evaporationPerDay(topUps: readonly LoggedTopUp[], today: string)
 		.map((t) => ({ day: dayNumber(t.on), litres: t.litres }))
 		.filter((t) => t.day <= end && t.day > end - EVAPORATION_WINDOW_DAYS)
 		.sort((a, b) => a.day - b.day);
-	if (recent.length < 2) return null;
-	const span = recent[recent.length - 1].day - recent[0].day;
+	const first = recent[0];
+	const last = recent[recent.length - 1];
+	if (!first || !last || recent.length < 2) return null;
+	const span = last.day - first.day;
 	if (span <= 0) return null;
 	const added = recent.slice(1).reduce((sum, t) => sum + t.litres, 0);
 	return added / span;

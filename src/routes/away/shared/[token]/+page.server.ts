@@ -1,0 +1,8 @@
+import * as plans from '$lib/server/away/plans';
+import type { PageServerLoad } from './$types';
+
+// A private link the keeper made for someone without an account: the plan only, while it runs.
+export const load = (async ({ params, setHeaders }) => {
+	setHeaders({ 'referrer-policy': 'no-referrer', 'x-robots-tag': 'noindex' });
+	return plans.byShareToken(params.token);
+}) satisfies PageServerLoad;

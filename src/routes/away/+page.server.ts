@@ -4,9 +4,10 @@ import { requireUser } from '$lib/server/club/guards';
 import { formAction, parseForm } from '$lib/server/http/forms';
 import * as plans from '$lib/server/away/plans';
 import * as sitters from '$lib/server/away/sitters';
+import { pageLoad } from '$lib/server/http/loads';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async (event) => {
+export const load = pageLoad(async (event) => {
 	const viewer = requireUser(event);
 	return { away: await plans.mine(viewer) };
 }) satisfies PageServerLoad;

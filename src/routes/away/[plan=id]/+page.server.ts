@@ -10,11 +10,12 @@ import { invalid, parseOrThrow } from '$lib/errors';
 import { checklistOf } from '$lib/away/care-plan';
 import { readPhotoFields } from '$lib/media/form';
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
+import { pageLoad } from '$lib/server/http/loads';
 import type { Actions, PageServerLoad } from './$types';
 
 const RADII = sitters.HELPER_RADII_KM;
 
-export const load = (async (event) => {
+export const load = pageLoad(async (event) => {
 	const viewer = requireUser(event);
 	const planId = Number(event.params.plan);
 	const shown = await plans.get(viewer, planId);

@@ -4,9 +4,10 @@ import * as plans from '$lib/server/away/plans';
 import { today } from '$lib/dates';
 import { awayPlanForm } from '$lib/away/plan-form';
 import { ownTankRow } from '../own-tank.server';
+import { pageLoad } from '$lib/server/http/loads';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async (event) => {
+export const load = pageLoad(async (event) => {
 	const { viewer, tank } = await ownTankRow(event);
 	return {
 		tank: { id: tank.id, name: tank.name },

@@ -9,7 +9,7 @@ import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as tanks from '../journals/tanks';
 import * as upkeep from '../journals/upkeep';
-import { renderMarkdown } from '../markdown';
+import { renderMarkdown, storedHtml } from '../markdown';
 import { conflict, invalid, notFound } from '../../errors';
 import { today } from '../../dates';
 import { carePlanMarkdown, daysAway, MAX_AWAY_DAYS, type CarePlanInput } from '../../away/care-plan';
@@ -131,6 +131,7 @@ export async function start(viewer: Pick<Viewer, 'id'>, tankId: number, input: A
 			lighting: input.lighting,
 			keeperPhone: input.keeperPhone,
 			body,
+			bodyHtml: renderMarkdown(body),
 			createdAt: now,
 			updatedAt: now
 		});
@@ -147,7 +148,10 @@ export async function saveBody(viewer: Pick<Viewer, 'id'>, planId: number, body:
 	const text = body.replace(/\r\n/g, '\n').trim();
 	if (!text) throw invalid({ body: 'The plan needs some words for whoever looks in.' });
 	if (text.length > PLAN_BODY_MAX) throw invalid({ body: `Keep the plan to ${PLAN_BODY_MAX.toLocaleString('en-GB')} characters.` });
-	await db.update(awayPlans).set({ body: text, updatedAt: now }).where(eq(awayPlans.id, plan.id));
+	await db
+		.update(awayPlans)
+		.set({ body: text, bodyHtml: renderMarkdown(text), updatedAt: now })
+		.where(eq(awayPlans.id, plan.id));
 }
 
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
@@ -205,7 +209,7 @@ export interface VisitView {
 }
 
 export interface PlanView {
-	plan: Omit<AwayPlanRow, 'shareTokenHash'> & { hasShareLink: boolean };
+	plan: Omit<AwayPlanRow, 'shareTokenHash' | 'bodyHtml'> & { hasShareLink: boolean };
 	html: string;
 	tank: { id: number; name: string; coverUrl: string | null; coverAlt: string };
 	keeperName: string;
@@ -214,10 +218,10 @@ export interface PlanView {
 async function view(plan: AwayPlanRow, _role: PlanRole | null, context: Context): Promise<PlanView> {
 	const [tank, names] = await Promise.all([tanks.getOwn({ id: plan.keeperId }, plan.tankId, context), directory.names([plan.keeperId], context)]);
 	if (!tank) throw planNotFound();
-	const { shareTokenHash, ...rest } = plan;
+	const { shareTokenHash, bodyHtml: _html, ...rest } = plan;
 	return {
 		plan: { ...rest, hasShareLink: shareTokenHash !== null },
-		html: renderMarkdown(plan.body),
+		html: storedHtml(plan.bodyHtml, plan.body),
 		tank: { id: tank.id, name: tank.name, coverUrl: tank.cover?.urls.medium ?? null, coverAlt: tank.cover?.alt ?? '' },
 		keeperName: names.get(plan.keeperId) ?? ''
 	};

@@ -27,6 +27,8 @@ export const awayPlans = mysqlTable(
 		keeperPhone: varchar({ length: 40 }).notNull().default(''),
 		/** The plan as the keeper edited it (markdown). */
 		body: mediumtext().notNull(),
+		/** The plan rendered once when written (see ../markdown-fields.ts). */
+		bodyHtml: mediumtext(),
 		/** SHA-256 of the private link's token, hex; null when no link was made. */
 		shareTokenHash: char({ length: 64 }),
 		/** When the keeper was sent the summary after the period. */

@@ -14,6 +14,7 @@ CREATE TABLE `away_plan` (
 	`lighting` enum('keep','shorten') NOT NULL,
 	`keeper_phone` varchar(40) NOT NULL DEFAULT '',
 	`body` mediumtext NOT NULL,
+	`body_html` mediumtext,
 	`share_token_hash` char(64),
 	`summary_sent_at` datetime(3),
 	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),

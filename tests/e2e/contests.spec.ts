@@ -80,7 +80,9 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 		await expect(page.locator('input[type=hidden][name="photos[0][id]"]')).toHaveCount(1, { timeout: 15_000 });
 		await page.getByLabel('Statement for the judges', { exact: true }).fill('Stems behind a low lawn.');
 		await page.getByRole('button', { name: 'Enter this tank' }).click();
-		await expect(page.getByText('Your tank is entered.')).toBeVisible();
+		// One notice says both what happened and what may still be done.
+		await expect(page.getByTestId('entry-status')).toHaveText(/^Your tank is entered\. You can change or withdraw it until /);
+		await expect(page.locator('.notice')).toHaveCount(1);
 		await page.context().close();
 	}
 

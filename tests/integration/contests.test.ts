@@ -602,5 +602,22 @@ test('the review computes the same results as the pure functions on the stored c
 	expect(report.unevenPanel).toBe(true);
 	const page = await (await request(`/admin/contests/${f.contestId}/results`, { cookie: f.admin.cookie })).text();
 	expect(page).toContain('Ranking basis');
-	expect(page).toContain('Kendall’s W');
+	expect(page).toContain('Kendall’s coefficient of concordance W');
+
+	// Members read the results in the club's words: places adjusted for each judge's strictness,
+	// the method folded away, and no signed standardised figure (nor in the page's data).
+	await transition(viewerOf(f.admin), f.contestId, 'publish');
+	const signed = /[−+-]\d+\.\d{3}\b/;
+	for (const path of [`/contests/${f.contestId}`, `/contests/${f.contestId}/results/${f.categories[1]}`]) {
+		const html = await (await request(path)).text();
+		expect(html).toContain('How places are worked out');
+		expect(html).not.toMatch(signed);
+		expect(html).not.toContain('standardised');
+		expect(html).not.toContain('Kendall');
+	}
+	const category = await (await request(`/contests/${f.contestId}/results/${f.categories[1]}`)).text();
+	expect(category).toContain('Adjusted for each judge’s strictness:');
+	const review = await (await request(`/admin/contests/${f.contestId}/results`, { cookie: f.admin.cookie })).text();
+	const empty = review.slice(review.indexOf('data-testid="agreement"'), review.indexOf('</p>', review.indexOf('data-testid="agreement"')));
+	expect(empty.replace(/<!--.*?-->/g, '')).toContain('No entries in this category, so there is nothing to compare.');
 });

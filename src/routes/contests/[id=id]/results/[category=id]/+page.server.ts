@@ -13,6 +13,7 @@ export const load = (async (event) => {
 	const viewerId = event.locals.user?.id;
 	return {
 		contest: { id: contest.id, title: contest.title, aggregation: contest.aggregation, rankBy: contest.rankBy },
+		tieBreak: [...contest.criteria].sort((a, b) => a.tieBreakRank - b.tieBreakRank).map((k) => k.label),
 		category: {
 			id: category.id,
 			name: category.name,
@@ -28,7 +29,6 @@ export const load = (async (event) => {
 				tieBrokenBy: e.tieBrokenBy,
 				entrantName: e.entrantName,
 				score: e.score,
-				standardised: e.standardised,
 				cardCount: e.cardCount,
 				methodNote: e.methodNote,
 				criteria: e.criteria,

@@ -76,7 +76,7 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 		await page.getByLabel(new RegExp(`${member.displayName}'s tank`)).check();
 		await expect(page.getByLabel(/Any size/)).toBeChecked();
 		await page.locator('input[type=file]').setInputFiles({ name: 'front.jpg', mimeType: 'image/jpeg', buffer: photo });
-		await expect(page.getByTestId('first-photo-label')).toHaveText('Full-front view');
+		await expect(page.getByTestId('first-photo-label')).toHaveText('Whole tank, from the front');
 		await expect(page.locator('input[type=hidden][name="photos[0][id]"]')).toHaveCount(1, { timeout: 15_000 });
 		await page.getByLabel('Statement for the judges', { exact: true }).fill('Stems behind a low lawn.');
 		await page.getByRole('button', { name: 'Enter this tank' }).click();

@@ -67,6 +67,7 @@ const rows: Row[] = [
 	{ path: '/admin', expect: adminOnly(200) },
 	{ path: '/admin/members', expect: adminOnly(200) },
 	{ path: '/admin/mail', expect: adminOnly(200) },
+	{ path: '/admin/mail/999999999', expect: adminOnly(404) },
 	{
 		method: 'POST',
 		path: '/admin/members?/role',

@@ -158,6 +158,8 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 	await adminPage.getByRole('checkbox').check();
 	await adminPage.getByRole('button', { name: 'Send the announcement' }).click();
 	await expect(adminPage.getByTestId('announce-sent')).toBeVisible();
+	// The page follows delivery by itself while mail waits: no reload here.
+	await expect(adminPage.getByTestId('delivery-summary')).toHaveText(/^\d+ delivered · 0 waiting · 0 gave up$/, { timeout: 60_000 });
 	const first = await waitForMail(members[0]!.email, { subject: /Your result/, timeoutMs: 60_000 });
 	expect(first.text).toContain('placed 1st of 2 with 76.00 %');
 	const second = await waitForMail(members[1]!.email, { subject: /Your result/, timeoutMs: 60_000 });

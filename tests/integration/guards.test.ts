@@ -234,6 +234,7 @@ const rows: Row[] = [
 	{ path: '/admin/contests/:contest/cards/:card', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/contests/:contest/cards/:card', form: () => ({ reason: '' }), expect: adminOnly(400) },
 	{ path: '/admin/contests/:contest/announce', expect: adminOnly(200) },
+	{ path: '/admin/contests/:contest/announce/status', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/contests/:contest/announce?/send', form: () => ({}), expect: adminOnly(400) },
 	{ path: '/admin/contests/:contest/export/results', expect: adminOnly(200) },
 	{ path: '/admin/contests/:contest/export/cards', expect: adminOnly(200) }

@@ -39,7 +39,9 @@ export const load = (async (event) => {
 					caption: p.caption,
 					urls: p.urls,
 					width: p.renditions.medium.width,
-					height: p.renditions.medium.height
+					height: p.renditions.medium.height,
+					largeWidth: p.renditions.large.width,
+					largeHeight: p.renditions.large.height
 				})),
 				litres: e.litres,
 				ageWeeks: e.ageWeeks,

@@ -6,7 +6,8 @@ import { parse } from 'csv-parse/sync';
 import { db } from '../../src/lib/server/db';
 import { auditLog } from '../../src/lib/server/audit/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
-import { contestCards } from '../../src/lib/server/contests/schema';
+import { contestCards, contestEntries } from '../../src/lib/server/contests/schema';
+import { tanks } from '../../src/lib/server/journals/schema';
 import * as contests from '../../src/lib/server/contests/contests';
 import * as entries from '../../src/lib/server/contests/contest-entries';
 import * as judging from '../../src/lib/server/contests/judging';
@@ -620,4 +621,30 @@ test('the review computes the same results as the pure functions on the stored c
 	const review = await (await request(`/admin/contests/${f.contestId}/results`, { cookie: f.admin.cookie })).text();
 	const empty = review.slice(review.indexOf('data-testid="agreement"'), review.indexOf('</p>', review.indexOf('data-testid="agreement"')));
 	expect(empty.replace(/<!--.*?-->/g, '')).toContain('No entries in this category, so there is nothing to compare.');
+});
+
+test('after publication a results row links to the tank only while its journal is public', async () => {
+	const f = await contestFixture({ judges: 2, entrantNames: ['Linked Entrant', 'Private Entrant'] });
+	const entryRows = await db
+		.select({ id: contestEntries.id, tankId: contestEntries.tankId })
+		.from(contestEntries)
+		.where(eq(contestEntries.contestId, f.contestId));
+	const tankOf = (entryId: number) => entryRows.find((r) => r.id === entryId)!.tankId!;
+	const publicTank = tankOf(f.entries[0]!.entryId);
+	const clubTank = tankOf(f.entries[1]!.entryId);
+	await db.update(tanks).set({ visibility: 'public' }).where(eq(tanks.id, publicTank));
+	await scoreAll(f, (j, e) => [6 + e, 3]);
+
+	// Before publication there are no results, and no page names the tanks.
+	expect(await publicResults(f.contestId)).toBeNull();
+	await transition(viewerOf(f.admin), f.contestId, 'publish');
+	const results = (await publicResults(f.contestId))!;
+	const open = results.categories.find((c) => c.id === f.categories[1])!;
+	const linkOf = (entryId: number) => open.entries.find((e) => e.entryId === entryId)!.publicTankId;
+	expect(linkOf(f.entries[0]!.entryId)).toBe(publicTank);
+	expect(linkOf(f.entries[1]!.entryId)).toBeNull();
+
+	const page = await (await request(`/contests/${f.contestId}/results/${f.categories[1]}`)).text();
+	expect(page).toContain(`href="/journals/${publicTank}"`);
+	expect(page).not.toContain(`/journals/${clubTank}`);
 });

@@ -7,6 +7,7 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as media from '../media';
+import * as tanks from '../journals/tanks';
 import type { Photo } from '../media';
 import * as audit from '../audit';
 import { conflict, DomainError, invalid, notFound } from '../../errors';
@@ -211,6 +212,8 @@ export interface PublicEntry {
 	photos: Photo[];
 	litres: number | null;
 	ageWeeks: number | null;
+	/** The entered tank, only while its journal is public (for a link from the results). */
+	publicTankId: number | null;
 }
 
 export interface PublicCategory {
@@ -223,7 +226,7 @@ export interface PublicCategory {
 
 export const PUBLIC_CORRECTION_ACTIONS = ['results.amend-card', 'results.rank-by'];
 
-function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo[]>): PublicEntry {
+function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo[]>, publicTanks: Set<number>): PublicEntry {
 	const entry = data.entries.find((e) => String(e.id) === result.entryId)!;
 	const criteria = data.contest.criteria;
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
@@ -253,7 +256,8 @@ function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo
 		comments: result.cards.map((c) => cards.get(c.cardId)?.fields.entrantComment.trim() ?? '').filter(Boolean),
 		photos: photos.get(entry.id) ?? [],
 		litres: entry.litres,
-		ageWeeks: entry.ageWeeks
+		ageWeeks: entry.ageWeeks,
+		publicTankId: entry.tankId !== null && publicTanks.has(entry.tankId) ? entry.tankId : null
 	};
 }
 
@@ -271,11 +275,17 @@ export async function publicResults(contestId: number, context: Context = {}): P
 	const data = await loadData(contestId, context);
 	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
 	const report = computeResults(inputOf(data));
-	const photos = await media.listForMany(
-		SCOPE,
-		data.entries.map((e) => e.id),
-		{ db: tx }
-	);
+	const [photos, publicTanks] = await Promise.all([
+		media.listForMany(
+			SCOPE,
+			data.entries.map((e) => e.id),
+			{ db: tx }
+		),
+		tanks.publicIds(
+			data.entries.flatMap((e) => (e.tankId === null ? [] : [e.tankId])),
+			{ db: tx }
+		)
+	]);
 	return {
 		contest: data.contest,
 		categories: data.contest.categories.map((category, i) => {
@@ -285,7 +295,7 @@ export async function publicResults(contestId: number, context: Context = {}): P
 				name: category.name,
 				description: category.description,
 				unevenPanel: cat.unevenPanel,
-				entries: cat.entries.map((r) => shape(data, r, photos))
+				entries: cat.entries.map((r) => shape(data, r, photos, publicTanks))
 			};
 		}),
 		panel: data.panel.map((p) => p.name),
@@ -318,10 +328,13 @@ export async function feedback(viewer: Viewer, entryId: number, context: Context
 	const index = data.contest.categories.findIndex((c) => c.id === entry.categoryId);
 	const cat = report.categories[index]!;
 	const result = cat.entries.find((e) => e.entryId === String(entryId))!;
-	const photos = await media.listForMany(SCOPE, [entryId], { db: tx });
+	const [photos, publicTanks] = await Promise.all([
+		media.listForMany(SCOPE, [entryId], { db: tx }),
+		tanks.publicIds(entry.tankId === null ? [] : [entry.tankId], { db: tx })
+	]);
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
 	return {
-		entry: shape(data, result, photos),
+		entry: shape(data, result, photos, publicTanks),
 		categoryName: data.contest.categories[index]!.name,
 		entriesInCategory: cat.entries.length,
 		cards: result.cards.map((c, i) => {

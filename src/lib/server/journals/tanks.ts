@@ -1,7 +1,7 @@
 // Tank profiles. Every read takes the viewer and goes through canView, so who may see a tank
 // (and its photos, see ./photo-access.ts) is decided here and nowhere else. Deleting a tank,
 // which takes its journal with it, is ./tank-deletion.ts.
-import { and, asc, desc, eq, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
 import { resolve, within, type Context } from '../context';
 import * as media from '../media';
@@ -92,6 +92,16 @@ async function load(found: TankRow, context: Context): Promise<Tank> {
 		plants: plants.map((p) => ({ ...p, commonName: commonName(p.speciesId) })),
 		livestock: livestock.map((a) => ({ ...a, commonName: commonName(a.speciesId) }))
 	};
+}
+
+/** Which of these tanks anyone may see (public ones), for other features' links; one query. */
+export async function publicIds(ids: number[], context: Context = {}): Promise<Set<number>> {
+	if (ids.length === 0) return new Set();
+	const rows = await resolve(context)
+		.db.select({ id: tanks.id })
+		.from(tanks)
+		.where(and(inArray(tanks.id, ids), eq(tanks.visibility, 'public')));
+	return new Set(rows.map((r) => r.id));
 }
 
 /** The bare row of a tank the viewer may see (no lists or photos), or null. */

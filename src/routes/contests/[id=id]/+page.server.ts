@@ -60,6 +60,7 @@ export const load = (async (event) => {
 					place: e.place,
 					shared: e.sharedWith > 0,
 					entrantName: e.entrantName,
+					publicTankId: e.publicTankId,
 					score: e.score,
 					thumb: e.photos[0]?.urls.thumb ?? null,
 					alt: e.photos[0]?.alt ?? ''

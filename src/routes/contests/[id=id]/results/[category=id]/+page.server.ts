@@ -45,6 +45,7 @@ export const load = (async (event) => {
 				})),
 				litres: e.litres,
 				ageWeeks: e.ageWeeks,
+				publicTankId: e.publicTankId,
 				mine: e.entrantId === viewerId
 			}))
 		},

@@ -648,3 +648,20 @@ test('after publication a results row links to the tank only while its journal i
 	expect(page).toContain(`href="/journals/${publicTank}"`);
 	expect(page).not.toContain(`/journals/${clubTank}`);
 });
+
+test('a judge is told on the dashboard and the judging page how many cards wait for them', async () => {
+	const f = await contestFixture({ judges: 1, entrantNames: ['Waiting One', 'Waiting Two'] });
+	const judge = f.judges[0]!;
+	const home = await (await request('/', { cookie: judge.cookie })).text();
+	expect(home).toMatch(/data-testid="cards-waiting"[^>]*>\s*(<!--[^>]*-->)?\s*\d+\s*(<!--[^>]*-->)?\s*cards wait for your scores/);
+	const before = Number(/data-testid="cards-waiting"[^>]*>\s*(?:<!--[^>]*-->)?\s*(\d+)/.exec(home)![1]);
+	// Submitting one card leaves one fewer waiting.
+	const saved = await judging.saveCard(viewerOf(judge), f.contestId, f.entries[0]!.number!, {
+		baseVersion: 0,
+		saveId: crypto.randomUUID(),
+		fields: fields(f.criteria, [7, 3])
+	});
+	await judging.submitCard(viewerOf(judge), f.contestId, f.entries[0]!.number!, saved.version);
+	const after = await (await request('/judging', { cookie: judge.cookie })).text();
+	expect(Number(/data-testid="cards-waiting"[^>]*>\s*(?:<!--[^>]*-->)?\s*(\d+)/.exec(after)![1])).toBe(before - 1);
+});

@@ -34,7 +34,7 @@ const TANKS: DemoTank[] = [
 		alt: 'A long tank with tall green and red stem plants behind two grey stones, a low lawn in front and a small shoal of orange fish.',
 		input: {
 			name: 'Reedholme riverbank',
-			style: 'nature',
+			style: 'wood and stone',
 			setUpOn: '2026-01-24',
 			lengthCm: 90,
 			widthCm: 45,
@@ -190,7 +190,7 @@ type MoreTank = DemoTank & { ageDays: number; weeks: number };
 
 const base = (over: Partial<TankInput>): Omit<TankInput, 'plants' | 'livestock'> => ({
 	name: 'Demo tank',
-	style: 'nature',
+	style: 'wood and stone',
 	setUpOn: null,
 	lengthCm: 60,
 	widthCm: 30,
@@ -286,7 +286,7 @@ const MORE_TANKS: MoreTank[] = [
 		alt: 'Terraced rows of plants in different greens and reds, like a planted garden bed, in front of a plain background.',
 		input: base({
 			name: 'Fenwick terraces',
-			style: 'dutch',
+			style: 'stem garden',
 			lengthCm: 120,
 			widthCm: 50,
 			heightCm: 55,
@@ -379,7 +379,7 @@ const MORE_TANKS: MoreTank[] = [
 		alt: 'Driftwood arching over a sloped sand path between green cushions of plants, with a shoal of slim silver fish.',
 		input: base({
 			name: 'Reedholme path',
-			style: 'nature',
+			style: 'wood and stone',
 			lengthCm: 90,
 			widthCm: 45,
 			heightCm: 45,
@@ -444,7 +444,7 @@ const MORE_TANKS: MoreTank[] = [
 		alt: 'A wide, shallow tank with a carpet of round leaves, grey stones and tall grass at the back.',
 		input: base({
 			name: 'Shallow meadow',
-			style: 'nature',
+			style: 'wood and stone',
 			lengthCm: 90,
 			widthCm: 40,
 			heightCm: 30,

@@ -4,7 +4,7 @@ import type { TankInput } from '../../src/lib/journals/tank-input';
 export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
 	return {
 		name: 'Test tank',
-		style: 'nature',
+		style: 'wood and stone',
 		setUpOn: '2026-01-15',
 		lengthCm: 60,
 		widthCm: 30,

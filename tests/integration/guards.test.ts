@@ -72,6 +72,7 @@ const rows: Row[] = [
 	{ path: '/admin', expect: adminOnly(200) },
 	{ path: '/admin/members', expect: adminOnly(200) },
 	{ path: '/admin/mail', expect: adminOnly(200) },
+	{ path: '/admin/mail/999999999', expect: adminOnly(404) },
 	{
 		method: 'POST',
 		path: '/admin/members?/role',
@@ -238,6 +239,7 @@ const rows: Row[] = [
 	{ path: '/admin/contests/:contest/cards/:card', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/contests/:contest/cards/:card', form: () => ({ reason: '' }), expect: adminOnly(400) },
 	{ path: '/admin/contests/:contest/announce', expect: adminOnly(200) },
+	{ path: '/admin/contests/:contest/announce/status', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/contests/:contest/announce?/send', form: () => ({}), expect: adminOnly(400) },
 	{ path: '/admin/contests/:contest/export/results', expect: adminOnly(200) },
 	{ path: '/admin/contests/:contest/export/cards', expect: adminOnly(200) },

@@ -504,3 +504,19 @@ describe('swap moderation and the restricted list: admins only, and audited', ()
 		]);
 	});
 });
+
+test('the dashboard counts conversations on my listings with messages I have not read', async () => {
+	const owner = await memberAt({ lat: -30.4, lng: -5.7 }, 'news-owner', 'off');
+	const askers = [await memberAt({ lat: -30.41, lng: -5.7 }, 'news-asker', 'off'), await memberAt({ lat: -30.42, lng: -5.7 }, 'news-asker', 'off')];
+	const id = await createListing(owner, { title: 'Counted stems' });
+	const first = await threads.request(viewerOf(askers[0]!), id, 'May I have some?');
+	await threads.post(viewerOf(askers[0]!), first, 'Any day suits me.');
+	await threads.request(viewerOf(askers[1]!), id, 'Me too, please.');
+	// Two conversations, three messages: counted per conversation; my own requests elsewhere do not count.
+	expect(await threads.unreadOnOwnListings(owner.id)).toBe(2);
+	expect(await threads.unreadOnOwnListings(askers[0]!.id)).toBe(0);
+	const home = await (await request('/', { cookie: owner.cookie })).text();
+	expect(home).toContain('data-testid="swap-news"');
+	await threads.markRead({ id: owner.id }, first);
+	expect(await threads.unreadOnOwnListings(owner.id)).toBe(1);
+});

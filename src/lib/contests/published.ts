@@ -22,6 +22,8 @@ export interface PublishedEntry {
 	comments: string[];
 	litres: number | null;
 	ageWeeks: number | null;
+	/** The entered tank (records kept before this was added lack it). */
+	tankId?: number | null;
 }
 
 export interface PublishedCategory {

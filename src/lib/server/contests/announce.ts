@@ -156,3 +156,9 @@ export async function delivery(viewer: Viewer, contestId: number, page: number, 
 	]);
 	return { summary, ...listing };
 }
+
+/** Only the counts of `delivery`, for polling: one grouped count on the outbox's topic index. */
+export async function deliveryCounts(viewer: Viewer, contestId: number) {
+	assertAdmin(viewer);
+	return deliverySummary(topicPrefix(contestId));
+}

@@ -38,7 +38,7 @@ import { SCOPE } from './contest-entries';
  * aspect ratio; the pixel size of a cropped photo could be matched as well.
  */
 export interface BlindPhoto {
-	/** 1 for the full-front view. */
+	/** 1 for the whole-tank photo. */
 	position: number;
 	urls: Record<RenditionSize, string>;
 	/** Width ÷ height, to two decimals. */
@@ -295,7 +295,7 @@ export async function scorecardPage(viewer: Viewer, contestId: number, number: n
 	};
 }
 
-/** One rendition of an entry's photo (`position` 1 is the full-front view), for a judge who may reach the entry. */
+/** One rendition of an entry's photo (`position` 1 is the whole-tank photo), for a judge who may reach the entry. */
 export async function entryPhoto(
 	viewer: Viewer,
 	contestId: number,

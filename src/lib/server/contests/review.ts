@@ -7,6 +7,7 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as media from '../media';
+import * as tanks from '../journals/tanks';
 import type { Photo } from '../media';
 import * as audit from '../audit';
 import { conflict, DomainError, invalid, notFound } from '../../errors';
@@ -194,6 +195,8 @@ export async function transition(
 export interface PublicEntry extends PublishedEntry {
 	entrantName: string;
 	photos: Photo[];
+	/** The entered tank, only while its journal is public (for a link from the results). */
+	publicTankId: number | null;
 }
 
 export interface PublicCategory extends Omit<PublishedCategory, 'entries'> {
@@ -230,7 +233,8 @@ function shape(data: ContestData, result: EntryResult): PublishedEntry {
 		})),
 		comments: result.cards.map((c) => cards.get(c.cardId)?.fields.entrantComment.trim() ?? '').filter(Boolean),
 		litres: entry.litres,
-		ageWeeks: entry.ageWeeks
+		ageWeeks: entry.ageWeeks,
+		tankId: entry.tankId
 	};
 }
 
@@ -299,20 +303,29 @@ export async function publishedResultsOf(contest: ContestDetail, context: Contex
 	if (contest.state !== 'published' && contest.state !== 'archived') return null;
 	const kept = await keptResults(contest, context);
 	const entries = kept.categories.flatMap((c) => c.entries);
-	const [people, photos, corrections] = await Promise.all([
+	const [people, photos, corrections, publicTanks] = await Promise.all([
 		directory.byIds([...entries.map((e) => e.entrantId), ...kept.panelIds], context),
 		media.listForMany(
 			SCOPE,
 			entries.map((e) => e.entryId),
 			context
 		),
-		audit.trail(auditSubject(contest.id), PUBLIC_CORRECTION_ACTIONS, context)
+		audit.trail(auditSubject(contest.id), PUBLIC_CORRECTION_ACTIONS, context),
+		tanks.publicIds(
+			entries.flatMap((e) => (e.tankId == null ? [] : [e.tankId])),
+			context
+		)
 	]);
 	return {
 		contest,
 		categories: kept.categories.map((category) => ({
 			...category,
-			entries: category.entries.map((e) => ({ ...e, entrantName: people.get(e.entrantId)?.name ?? nameOf(null), photos: photos.get(e.entryId) ?? [] }))
+			entries: category.entries.map((e) => ({
+				...e,
+				entrantName: people.get(e.entrantId)?.name ?? nameOf(null),
+				photos: photos.get(e.entryId) ?? [],
+				publicTankId: e.tankId != null && publicTanks.has(e.tankId) ? e.tankId : null
+			}))
 		})),
 		panel: kept.panelIds.map((id) => people.get(id)?.name ?? nameOf(null)),
 		corrections,
@@ -344,10 +357,18 @@ export async function feedback(viewer: Viewer, entryId: number, context: Context
 	const index = data.contest.categories.findIndex((c) => c.id === entry.categoryId);
 	const cat = report.categories[index]!;
 	const result = cat.entries.find((e) => e.entryId === String(entryId))!;
-	const photos = await media.listForMany(SCOPE, [entryId], { db: tx });
+	const [photos, publicTanks] = await Promise.all([
+		media.listForMany(SCOPE, [entryId], { db: tx }),
+		tanks.publicIds(entry.tankId === null ? [] : [entry.tankId], { db: tx })
+	]);
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
 	return {
-		entry: { ...shape(data, result), entrantName: nameIn(data, entry.entrantId), photos: photos.get(entryId) ?? [] },
+		entry: {
+			...shape(data, result),
+			entrantName: nameIn(data, entry.entrantId),
+			photos: photos.get(entryId) ?? [],
+			publicTankId: entry.tankId !== null && publicTanks.has(entry.tankId) ? entry.tankId : null
+		},
 		categoryName: data.contest.categories[index]!.name,
 		entriesInCategory: cat.entries.length,
 		cards: result.cards.map((c, i) => {

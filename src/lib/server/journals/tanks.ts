@@ -95,6 +95,16 @@ async function load(found: TankRow, context: Context): Promise<Tank> {
 	};
 }
 
+/** Which of these tanks anyone may see (public ones), for other features' links; one query. */
+export async function publicIds(ids: number[], context: Context = {}): Promise<Set<number>> {
+	if (ids.length === 0) return new Set();
+	const rows = await resolve(context)
+		.db.select({ id: tanks.id })
+		.from(tanks)
+		.where(and(inArray(tanks.id, ids), eq(tanks.visibility, 'public')));
+	return new Set(rows.map((r) => r.id));
+}
+
 /** The bare row of a tank the viewer may see (no lists or photos), or null. */
 export async function findVisible(viewer: Pick<Viewer, 'id'> | null, id: number, context: Context = {}): Promise<TankRow | null> {
 	const found = await row(id, resolve(context).db);

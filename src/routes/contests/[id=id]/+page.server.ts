@@ -50,7 +50,6 @@ export const load = (async (event) => {
 		canEnter: !!viewer && accepting && mine.length < contest.entriesPerMember,
 		results: results && {
 			panel: results.panel,
-			unevenPanel: results.unevenPanel,
 			corrections: results.corrections.map((c) => ({ id: c.id, action: c.action, createdAt: c.createdAt, reason: String(c.detail.reason ?? '') })),
 			categories: results.categories.map((cat) => ({
 				id: cat.id,
@@ -61,8 +60,8 @@ export const load = (async (event) => {
 					place: e.place,
 					shared: e.sharedWith > 0,
 					entrantName: e.entrantName,
+					publicTankId: e.publicTankId,
 					score: e.score,
-					standardised: e.standardised,
 					thumb: e.photos[0]?.urls.thumb ?? null,
 					alt: e.photos[0]?.alt ?? ''
 				}))

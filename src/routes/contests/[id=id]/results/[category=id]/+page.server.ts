@@ -13,6 +13,7 @@ export const load = (async (event) => {
 	const viewerId = event.locals.user?.id;
 	return {
 		contest: { id: contest.id, title: contest.title, aggregation: contest.aggregation, rankBy: contest.rankBy },
+		tieBreak: [...contest.criteria].sort((a, b) => a.tieBreakRank - b.tieBreakRank).map((k) => k.label),
 		category: {
 			id: category.id,
 			name: category.name,
@@ -28,7 +29,6 @@ export const load = (async (event) => {
 				tieBrokenBy: e.tieBrokenBy,
 				entrantName: e.entrantName,
 				score: e.score,
-				standardised: e.standardised,
 				cardCount: e.cardCount,
 				methodNote: e.methodNote,
 				criteria: e.criteria,
@@ -39,10 +39,13 @@ export const load = (async (event) => {
 					caption: p.caption,
 					urls: p.urls,
 					width: p.renditions.medium.width,
-					height: p.renditions.medium.height
+					height: p.renditions.medium.height,
+					largeWidth: p.renditions.large.width,
+					largeHeight: p.renditions.large.height
 				})),
 				litres: e.litres,
 				ageWeeks: e.ageWeeks,
+				publicTankId: e.publicTankId,
 				mine: e.entrantId === viewerId
 			}))
 		},

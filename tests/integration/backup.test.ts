@@ -60,7 +60,7 @@ async function fingerprint(url: string) {
 		for (const { name } of tables as { name: string }[]) {
 			const [[count]] = await conn.query<mysql.RowDataPacket[]>(`SELECT COUNT(*) AS n FROM \`${name}\``);
 			const [[sum]] = await conn.query<mysql.RowDataPacket[]>(`CHECKSUM TABLE \`${name}\` EXTENDED`);
-			result[name] = { rows: Number(count.n), checksum: String(sum.Checksum) };
+			result[name] = { rows: Number(count!.n), checksum: String(sum!.Checksum) };
 		}
 		return result;
 	} finally {
@@ -140,7 +140,7 @@ describe('backup and restore', () => {
 			const emptyBucket = `riparia-backup-empty-${suffix}`;
 			await s3().send(new CreateBucketCommand({ Bucket: emptyBucket }));
 			const manifestNow = JSON.parse(readFileSync(join(workDir, 'again', 'manifest.json'), 'utf8')) as Manifest;
-			const damagedFile = join(workDir, 'again', 'objects', manifestNow.objects[0].key);
+			const damagedFile = join(workDir, 'again', 'objects', manifestNow.objects[0]!.key);
 			const original = readFileSync(damagedFile);
 			writeFileSync(damagedFile, Buffer.concat([original, Buffer.from('x')]));
 			try {

@@ -15,7 +15,7 @@ import { countQueries } from '$lib/server/db/query-count';
 import { safeRedirectPath } from '$lib/club/redirect';
 import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
-import { log } from '$lib/server/ops/log';
+import { log, reason } from '$lib/server/ops/log';
 import { observeRequests, probes } from '$lib/server/ops/hooks';
 import { answerOutages, noteOutage } from '$lib/server/ops/outage';
 import { newRequestId } from '$lib/ops/request-id';
@@ -77,7 +77,8 @@ const onlyOurAuthPages: Handle = async ({ event, resolve }) => {
 const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'];
 
 /**
- * Resolves the session cookie into `locals.user` with one query (session joined to its member).
+ * Resolves the session cookie into `locals.user` with one query (session joined to its member);
+ * the time of use is written at most every few minutes, without holding up the response.
  * Auth.js's own session call is not used: it re-sends the cookie on every response, including
  * ones a shared cache may keep. The cookie is re-sent only when its end moves (once a day of
  * use) and never on a public response.
@@ -95,7 +96,12 @@ const resolveViewer: Handle = async ({ event, resolve }) => {
 	event.locals.sessionToken = token;
 	const response = await resolve(event);
 	const renew = sessions.renewalDue(session) && !isPublic(response);
-	const expires = await sessions.recordUse(token, session, event.request.headers.get('user-agent'), renew);
+	// The last-seen write (every few minutes) is off the read path; a renewal (once a day) is
+	// awaited, so the next request already sees the new end and does not renew again.
+	const { expires, written } = sessions.recordUse(token, session, event.request.headers.get('user-agent'), renew);
+	const recorded = written.catch((error: unknown) => log.warn({ reqId: event.locals.requestId, reason: reason(error) }, 'session use not recorded'));
+	if (expires) await recorded;
+	else void recorded;
 	if (expires) {
 		const cookie = event.cookies.serialize(cookieName, token, {
 			path: '/',

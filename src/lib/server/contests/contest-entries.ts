@@ -9,6 +9,7 @@ import * as media from '../media';
 import type { Photo } from '../media';
 import * as tanks from '../journals/tanks';
 import * as audit from '../audit';
+import { statementShown } from '../markdown';
 import { conflict, DomainError, invalid, isDomainError, notFound } from '../../errors';
 import { checkEligibility, type EligibilityCheck, type TankFacts } from '../../contests/eligibility';
 import { entriesAccepted } from '../../contests/lifecycle';
@@ -118,6 +119,7 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: Contest
 			categoryId: category.id,
 			tankId: tank.id,
 			statement: input.statement,
+			...statementShown(input.statement),
 			litres: check.comparedLitres,
 			volumeSource: facts.volumeSource,
 			ageWeeks: facts.ageWeeks,

@@ -12,7 +12,7 @@ import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as audit from '../audit';
 import * as catalogue from '../species/catalogue';
-import { renderMarkdown } from '../markdown';
+import { renderMarkdown, storedHtml } from '../markdown';
 import { invalid, notFound } from '../../errors';
 import { UNNAMED_MEMBER } from '../../club/names';
 import type { EntryInput, EventInput } from '../../journals/journal-entry-form';
@@ -35,7 +35,7 @@ import * as social from './social';
 
 export type { EntryRow, EventRow };
 
-export interface Entry extends EntryRow {
+export interface Entry extends Omit<EntryRow, 'bodyHtml'> {
 	html: string;
 	photos: Photo[];
 	events: EventRow[];
@@ -163,9 +163,16 @@ export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: 
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
 		const tank = await tanks.lockOwn(viewer, tankId, inTx);
-		const [result] = await tx
-			.insert(journalEntries)
-			.values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
+		const [result] = await tx.insert(journalEntries).values({
+			tankId,
+			authorId: viewer.id,
+			entryOn: input.entryOn,
+			title: input.title,
+			body: input.body,
+			bodyHtml: renderMarkdown(input.body),
+			updatedAt: now,
+			createdAt: now
+		});
 		const entryId = result.insertId;
 		await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
 		for (const [position, e] of input.events.entries()) await writeEvent(tx, tankId, entryId, input.entryOn, position, e, position);
@@ -199,7 +206,10 @@ export async function update(
 			.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)))
 			.for('update');
 		if (!entry) throw entryNotFound();
-		await tx.update(journalEntries).set({ entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now }).where(eq(journalEntries.id, entryId));
+		await tx
+			.update(journalEntries)
+			.set({ entryOn: input.entryOn, title: input.title, body: input.body, bodyHtml: renderMarkdown(input.body), updatedAt: now })
+			.where(eq(journalEntries.id, entryId));
 		const keys = await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
 		const existing = new Map((await tx.select().from(journalEvents).where(eq(journalEvents.entryId, entryId))).map((e) => [e.id, e]));
 		const kept = new Set<number>();
@@ -274,9 +284,9 @@ async function hydrate(rows: EntryRow[], context: Context): Promise<Entry[]> {
 		db.select({ entryId: entryComments.entryId, n: count() }).from(entryComments).where(inArray(entryComments.entryId, ids)).groupBy(entryComments.entryId)
 	]);
 	const counts = new Map(comments.map((c) => [c.entryId, c.n]));
-	return rows.map((r) => ({
+	return rows.map(({ bodyHtml, ...r }) => ({
 		...r,
-		html: renderMarkdown(r.body),
+		html: storedHtml(bodyHtml, r.body),
 		photos: photos.get(r.id) ?? [],
 		events: events.filter((e) => e.entryId === r.id),
 		authorName: names.get(r.authorId) ?? UNNAMED_MEMBER,
@@ -351,7 +361,7 @@ export async function comments(
 		entryId: comment.entryId,
 		authorId: comment.authorId,
 		authorName: names.get(comment.authorId) ?? UNNAMED_MEMBER,
-		html: renderMarkdown(comment.body),
+		html: storedHtml(comment.bodyHtml, comment.body),
 		createdAt: comment.createdAt,
 		removable: !!viewer && (viewer.id === comment.authorId || viewer.id === tank.ownerId || viewer.role === 'admin')
 	}));
@@ -365,7 +375,7 @@ export async function addComment(viewer: Pick<Viewer, 'id'>, tankId: number, ent
 	return resolve(context).db.transaction(async (tx) => {
 		const found = await get(viewer, tankId, entryId, within(context, tx));
 		if (!found) throw entryNotFound();
-		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text });
+		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text, bodyHtml: renderMarkdown(text) });
 		return result.insertId;
 	});
 }
@@ -403,7 +413,15 @@ export async function removeComment(viewer: Pick<Viewer, 'id' | 'role'>, tankId:
 /** The newest entries in tanks the viewer follows and may still see, for the dashboard. */
 export async function recentFollowed(viewer: Pick<Viewer, 'id'>, limit = 6, context: Context = {}) {
 	const rows = await resolve(context)
-		.db.select({ id: journalEntries.id, title: journalEntries.title, entryOn: journalEntries.entryOn, createdAt: journalEntries.createdAt, tank: tankTable })
+		// Only the tank's columns the card and the visibility check need: whole rows (descriptions
+		// included) would ride through the sort.
+		.db.select({
+			id: journalEntries.id,
+			title: journalEntries.title,
+			entryOn: journalEntries.entryOn,
+			createdAt: journalEntries.createdAt,
+			tank: { id: tankTable.id, name: tankTable.name, ownerId: tankTable.ownerId, visibility: tankTable.visibility }
+		})
 		.from(tankFollows)
 		.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
 		.innerJoin(journalEntries, eq(journalEntries.tankId, tankTable.id))

@@ -11,6 +11,7 @@ import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as catalogue from '../species/catalogue';
 import { notFound } from '../../errors';
+import { renderMarkdown } from '../markdown';
 import { UNNAMED_MEMBER } from '../../club/names';
 import type { TankInput } from '../../journals/tank-input';
 import { TANK_COVER_MAX } from '../../journals/tank-vocabulary';
@@ -234,6 +235,7 @@ function columns(input: TankInput) {
 		co2BubblesPerSecond: input.co2Method === 'pressurised' ? input.co2BubblesPerSecond : null,
 		waterLitres: input.waterLitres,
 		description: input.description || null,
+		descriptionHtml: input.description ? renderMarkdown(input.description) : null,
 		visibility: input.visibility
 	};
 }

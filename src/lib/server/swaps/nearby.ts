@@ -129,13 +129,17 @@ export function nearbyQuery(where: SQL, point: LatLng, filter: Pick<BoardFilter,
 		typeof inner,
 		keyof typeof cardColumns
 	>;
-	return db
-		.select({ ...columns, shown: sql<number>`${shown}`.mapWith(Number).as('shown') })
-		.from(inner)
-		.where(within)
-		.orderBy(sql`shown`, desc(inner.createdAt), desc(inner.id))
-		.limit(BOARD_PAGE_SIZE)
-		.offset((filter.page - 1) * BOARD_PAGE_SIZE);
+	return (
+		db
+			// The count of every row that qualifies comes with the page (a window over the whole result,
+			// taken before LIMIT), so the distances are computed once, not again for a separate count.
+			.select({ ...columns, shown: sql<number>`${shown}`.mapWith(Number).as('shown'), matching: sql<number>`COUNT(*) OVER ()`.mapWith(Number).as('matching') })
+			.from(inner)
+			.where(within)
+			.orderBy(sql`shown`, desc(inner.createdAt), desc(inner.id))
+			.limit(BOARD_PAGE_SIZE)
+			.offset((filter.page - 1) * BOARD_PAGE_SIZE)
+	);
 }
 
 /** One page of the board without a location: newest first. */
@@ -168,10 +172,15 @@ export async function search(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, co
 	const at = { ...context, db, now };
 	const point = await viewerPoint(viewer.id, at);
 	const where = await boardWhere(viewer, filter, point, at);
-	const [rows, n] = await Promise.all([
-		point ? nearbyQuery(where, point, filter, at) : newestQuery(where, filter.page, at),
-		total(where, point, filter.radiusKm, at)
-	]);
+	let rows: (Awaited<ReturnType<typeof nearbyQuery>>[number] | Awaited<ReturnType<typeof newestQuery>>[number])[];
+	let n: number;
+	if (point) {
+		rows = await nearbyQuery(where, point, filter, at);
+		// A page past the end has no row to carry the count.
+		n = rows.length ? (rows[0] as { matching: number }).matching : filter.page > 1 ? await total(where, point, filter.radiusKm, at) : 0;
+	} else {
+		[rows, n] = await Promise.all([newestQuery(where, filter.page, at), total(where, null, filter.radiusKm, at)]);
+	}
 	const cards = await toCards(rows, viewer, at);
 	return {
 		rows: cards.map((card, i) => {

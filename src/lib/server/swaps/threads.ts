@@ -214,7 +214,7 @@ export async function poll(viewer: Viewer | null, id: number, afterId: number, c
 	if (!found) return null;
 	const { thread, role, listing } = found;
 	const [rows, names] = await Promise.all([messageRows(id, { db }, afterId), namesOf(thread, { db })]);
-	if (role !== 'admin') await markRead(found.viewer, id, { db, now });
+	if (role !== 'admin' && hasUnread(rows, found.viewer.id)) await markRead(found.viewer, id, { db, now });
 	const pure = toPure(listing);
 	return {
 		messages: toViews(rows, names),
@@ -223,6 +223,10 @@ export async function poll(viewer: Viewer | null, id: number, afterId: number, c
 		version: versionOf(listing)
 	};
 }
+
+/** Whether any of these messages is to the member and not read yet (reading a conversation writes only then). */
+export const hasUnread = (messages: Pick<MessageRow, 'recipientId' | 'readAt'>[], viewerId: string) =>
+	messages.some((m) => m.recipientId === viewerId && m.readAt === null);
 
 /** Marks every message to the viewer in this thread as read. */
 export async function markRead(viewer: Pick<Viewer, 'id'>, threadId: number, context: Context = {}): Promise<number> {

@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
 import * as contests from '$lib/server/contests/contests';
 import * as contestEntries from '$lib/server/contests/contest-entries';
-import { publicResults } from '$lib/server/contests/review';
-import { renderMarkdown } from '$lib/server/markdown';
+import { publishedResultsOf } from '$lib/server/contests/review';
+import { storedHtml } from '$lib/server/markdown';
 import { describeRule } from '$lib/contests/eligibility';
 import type { PageServerLoad } from './$types';
 
@@ -13,7 +13,7 @@ export const load = (async (event) => {
 	if (!contest) error(404, 'We could not find that contest.');
 	const accepting = contests.acceptingEntries(contest);
 	const mine = viewer ? await contestEntries.listOwn(viewer, contest.id) : [];
-	const results = contest.state === 'published' || contest.state === 'archived' ? await publicResults(contest.id) : null;
+	const results = contest.state === 'published' || contest.state === 'archived' ? await publishedResultsOf(contest) : null;
 	return {
 		contest: {
 			id: contest.id,
@@ -28,7 +28,7 @@ export const load = (async (event) => {
 			rankBy: contest.rankBy,
 			publishedAt: contest.publishedAt
 		},
-		rulesHtml: renderMarkdown(contest.rules),
+		rulesHtml: storedHtml(contest.rulesHtml, contest.rules),
 		criteria: contest.criteria.map((c) => ({
 			id: c.id,
 			label: c.label,

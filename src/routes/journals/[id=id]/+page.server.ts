@@ -8,7 +8,7 @@ import * as social from '$lib/server/journals/social';
 import * as timeline from '$lib/server/journals/timeline';
 import * as upkeep from '$lib/server/journals/upkeep';
 import * as water from '$lib/server/journals/water';
-import { renderMarkdown } from '$lib/server/markdown';
+import { storedHtml } from '$lib/server/markdown';
 import { invalid, notFound } from '$lib/errors';
 import { today } from '$lib/dates';
 import { dayNumber } from '$lib/journals/calc';
@@ -36,7 +36,7 @@ export const load = (async (event) => {
 	return {
 		tank,
 		figures: tanks.tankFigures(tank, { now }),
-		descriptionHtml: tank.description ? renderMarkdown(tank.description) : '',
+		descriptionHtml: storedHtml(tank.descriptionHtml, tank.description),
 		isOwner,
 		today: today('UTC', now),
 		timeline: page,

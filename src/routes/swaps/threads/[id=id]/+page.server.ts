@@ -21,7 +21,7 @@ export const load = (async (event) => {
 	const id = Number(event.params.id);
 	const thread = await threads.get(viewer, id, { now });
 	if (!thread) error(404, NOT_FOUND);
-	if (thread.role !== 'admin') await threads.markRead(viewer, id, { now });
+	if (thread.role !== 'admin' && threads.hasUnread(thread.messages, viewer.id)) await threads.markRead(viewer, id, { now });
 	const { pure, ...shown } = thread;
 	const actions = thread.role === 'admin' ? [] : availableActions(pure, { kind: 'member', userId: viewer.id }, now);
 	const relation = thread.otherId ? await blocks.between(viewer.id, thread.otherId) : { aBlockedB: false, bBlockedA: false };

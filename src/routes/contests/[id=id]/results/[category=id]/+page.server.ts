@@ -1,13 +1,13 @@
 import { error } from '@sveltejs/kit';
 import * as contests from '$lib/server/contests/contests';
-import { publicResults } from '$lib/server/contests/review';
+import { publishedResultsOf } from '$lib/server/contests/review';
 import type { PageServerLoad } from './$types';
 
 // Public after publication; before it there are no results to show (404).
 export const load = (async (event) => {
 	const contest = await contests.get(event.locals.user, Number(event.params.id));
 	if (!contest) error(404, 'We could not find that contest.');
-	const results = await publicResults(contest.id);
+	const results = await publishedResultsOf(contest);
 	const category = results?.categories.find((c) => c.id === Number(event.params.category));
 	if (!results || !category) error(404, 'These results are not published.');
 	const viewerId = event.locals.user?.id;

@@ -17,6 +17,7 @@ import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
 import { log, reason } from '$lib/server/ops/log';
 import { observeRequests, probes } from '$lib/server/ops/hooks';
+import { answerOutages, noteOutage } from '$lib/server/ops/outage';
 import { newRequestId } from '$lib/ops/request-id';
 import { startMetricsServer } from '$lib/server/ops/scrape';
 import { registerMediaScopes } from '$lib/server/media-scopes';
@@ -139,13 +140,15 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 };
 
 // Outermost first: requests get their id and log line, statements are counted, and every
-// response, Auth.js's included, leaves through responseHeaders. The sections (/admin, /judging)
+// response, Auth.js's included, leaves through responseHeaders. While MariaDB is away, what needs
+// it answers 503 "we'll be right back" (answerOutages). The sections (/admin, /judging)
 // are guarded once the viewer is known; every route checks again.
 export const handle: Handle = sequence(
 	observeRequests,
 	countQueries,
 	responseHeaders,
 	probes,
+	answerOutages,
 	checkRequests,
 	onlyOurAuthPages,
 	authHandle,
@@ -158,6 +161,8 @@ export const handle: Handle = sequence(
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	// Set by observeRequests, first in the sequence; the fallback only guards against a reordering.
 	const errorId = event.locals.requestId ?? newRequestId();
+	// The database is away: answerOutages turns this into the 503 page; a warning, not an error.
+	if (noteOutage(event, error)) return { message: 'We will be right back.', errorId };
 	if (status >= 500) {
 		// Query strings can carry sign-in tokens: the route id only, never the URL.
 		log.error({ reqId: errorId, method: event.request.method, route: event.route.id, err: error }, 'unexpected error');

@@ -117,7 +117,16 @@ export function hashTree(hash: ReturnType<typeof createHash>, path: string) {
 function sourceHash(): string {
 	const hash = createHash('sha256');
 	const app = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package.json', 'package-lock.json'];
-	const databaseScripts = ['drizzle', 'scripts/migrate.ts', 'scripts/seed.ts', 'scripts/seed', 'vite.scripts.config.ts'];
+	const databaseScripts = [
+		'drizzle',
+		'scripts/migrate.ts',
+		'scripts/seed.ts',
+		'scripts/seed',
+		'scripts/backup.ts',
+		'scripts/restore.ts',
+		'scripts/lib/backup.ts',
+		'vite.scripts.config.ts'
+	];
 	for (const item of [...app, ...databaseScripts]) {
 		hashTree(hash, join(root, item));
 	}

@@ -127,12 +127,20 @@ export async function scheduleOfTank(tankId: number, context: Context = {}) {
  * "Done today": logs an event for the task on the owner's tank (not tied to an entry) and resets
  * it. Returns the tank's id; "not found" when the task is not the viewer's.
  */
-export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<number> {
+/** What "done today" logged: the task's label and the event, so the page can say which and offer to take it back. */
+export interface LoggedDone {
+	tankId: number;
+	tankName: string;
+	eventId: number;
+	label: string;
+}
+
+export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<LoggedDone> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
 		const [row] = await tx
-			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId })
+			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId, tankName: tankTable.name })
 			.from(maintenanceTasks)
 			.innerJoin(tankTable, eq(tankTable.id, maintenanceTasks.tankId))
 			.where(eq(maintenanceTasks.id, taskId))
@@ -140,7 +148,7 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 		if (!row || row.ownerId !== viewer.id) throw notFound('We could not find that task.');
 		const { task } = row;
 		const kind = doneEventKind(task.kind);
-		await tx.insert(journalEvents).values({
+		const [inserted] = await tx.insert(journalEvents).values({
 			tankId: task.tankId,
 			entryId: null,
 			kind,
@@ -151,7 +159,7 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 		});
 		await recompute(task.tankId, inTx);
 		await tanks.touch(task.tankId, inTx);
-		return task.tankId;
+		return { tankId: task.tankId, tankName: row.tankName, eventId: inserted.insertId, label: task.label };
 	});
 }
 

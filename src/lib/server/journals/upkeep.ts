@@ -6,7 +6,7 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import { invalid, notFound } from '../../errors';
 import { today } from '../../dates';
-import { scheduleAll, type ScheduledTask, type MaintenanceTask } from '../../journals/calc';
+import { SALTS, roundTo, scheduleAll, type MaintenanceTask, type SaltId, type ScheduledTask } from '../../journals/calc';
 import { asMaintenanceTask, doneEventKind, lastDoneOn, type LoggedUpkeep, type TaskDraft } from '../../journals/schedule';
 import { journalEvents, maintenanceTasks, tanks as tankTable, waterTests, type TaskRow } from './schema';
 import * as tanks from './tanks';
@@ -160,6 +160,33 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 		await recompute(task.tankId, inTx);
 		await tanks.touch(task.tankId, inTx);
 		return { tankId: task.tankId, tankName: row.tankName, eventId: inserted.insertId, label: task.label };
+	});
+}
+
+/**
+ * Logs a dose worked out by the dose calculator on the viewer's own tank, today, as a journal
+ * event of its own (like "done today": it can be taken back from the journal).
+ */
+export async function logDose(viewer: Pick<Viewer, 'id'>, tankId: number, dose: { saltId: SaltId; grams: number }, context: Context = {}): Promise<LoggedDone> {
+	const { db, now } = resolve(context);
+	if (!(dose.grams < 10_000_000 && roundTo(dose.grams, 3) > 0)) throw invalid({ grams: 'That dose is too small or too large to log (to the milligram).' });
+	return db.transaction(async (tx) => {
+		const inTx = within({ ...context, now }, tx);
+		const tank = await tanks.lockOwn(viewer, tankId, inTx);
+		const label = SALTS[dose.saltId].name;
+		const [inserted] = await tx.insert(journalEvents).values({
+			tankId,
+			entryId: null,
+			kind: 'dose',
+			occurredOn: today('UTC', now),
+			what: label,
+			amount: roundTo(dose.grams, 3),
+			amountUnit: 'g',
+			saltId: dose.saltId
+		});
+		await recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+		return { tankId, tankName: tank.name, eventId: inserted.insertId, label };
 	});
 }
 

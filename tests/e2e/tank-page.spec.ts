@@ -35,6 +35,7 @@ test('ammonia advice follows the un-ionised figure, and says so when only the to
 	await expect(page.locator('body')).not.toContainText('harms fish.');
 	await expect(page.locator('body')).not.toContainText('from memory');
 
+	await expect(page.getByTestId('latest-test')).toContainText('Where these figures come from');
 	await page.goto(`/journals/${noPh}`);
 	await expect(page.getByTestId('water-warnings').locator('.alert')).toContainText('No pH was recorded with this test');
 	await expect(page.getByTestId('ammonia-total-only')).toContainText('the total alone is used');
@@ -94,6 +95,13 @@ test('a visitor following a link to a club-only or a missing tank is offered sig
 	}
 	expect(texts[0]!.replace(String(tankId), '')).toBe(texts[1]!.replace('999999999', ''));
 	expect(texts[0]).not.toContain('Members only');
+});
+
+test('the journal heading keeps its spaces: "newest first · Atom feed"', async ({ page }) => {
+	const owner = await makePerson({ displayName: 'Feed Keeper' });
+	const tankId = await tanks.create({ id: owner.id }, tankInput({ name: 'Public feed', visibility: 'public' }));
+	await page.goto(`/journals/${tankId}`);
+	await expect(page.locator('#journal')).toContainText(/newest first\s·\sAtom feed/);
 });
 
 test('a member profile shows a tank without a photo as "No photo yet"', async ({ browser }) => {

@@ -58,8 +58,7 @@ export const actions = {
 			const viewer = requireUser(event);
 			const { taskId } = parseForm(doneForm, data);
 			// Another member's task, or one that is gone, is "not found" (upkeep refuses it so).
-			await upkeep.markDone(viewer, taskId);
-			return { done: taskId };
+			return { done: await upkeep.markDone(viewer, taskId) };
 		},
 		{ id: 'done' }
 	)

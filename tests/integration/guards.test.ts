@@ -126,6 +126,7 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/?/done', form: () => ({ taskId: String(targetTask) }), expect: notOwner },
 	{ path: '/journals/showcase', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals/dose?tank=:tank', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/journals/dose?/log', form: () => ({ tank: String(targetTank), salt: 'KNO3', grams: '1' }), expect: notOwner },
 	{ path: '/journals/:tank', expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals/:tank/feed.xml', expect: hidden },
 	{ path: '/api/tanks/:tank/water-tests', api: true, expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },

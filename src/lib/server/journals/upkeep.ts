@@ -6,7 +6,7 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import { invalid, notFound } from '../../errors';
 import { today } from '../../dates';
-import { scheduleAll, type ScheduledTask, type MaintenanceTask } from '../../journals/calc';
+import { SALTS, roundTo, scheduleAll, type MaintenanceTask, type SaltId, type ScheduledTask } from '../../journals/calc';
 import { asMaintenanceTask, doneEventKind, lastDoneOn, type LoggedUpkeep, type TaskDraft } from '../../journals/schedule';
 import { journalEvents, maintenanceTasks, tanks as tankTable, waterTests, type TaskRow } from './schema';
 import * as tanks from './tanks';
@@ -136,12 +136,20 @@ export async function scheduleOfTank(tankId: number, context: Context = {}) {
  * "Done today": logs an event for the task on the owner's tank (not tied to an entry) and resets
  * it. Returns the tank's id; "not found" when the task is not the viewer's.
  */
-export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<number> {
+/** What "done today" logged: the task's label and the event, so the page can say which and offer to take it back. */
+export interface LoggedDone {
+	tankId: number;
+	tankName: string;
+	eventId: number;
+	label: string;
+}
+
+export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<LoggedDone> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
 		const [row] = await tx
-			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId })
+			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId, tankName: tankTable.name })
 			.from(maintenanceTasks)
 			.innerJoin(tankTable, eq(tankTable.id, maintenanceTasks.tankId))
 			.where(eq(maintenanceTasks.id, taskId))
@@ -149,7 +157,7 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 		if (!row || row.ownerId !== viewer.id) throw notFound('We could not find that task.');
 		const { task } = row;
 		const kind = doneEventKind(task.kind);
-		await tx.insert(journalEvents).values({
+		const [inserted] = await tx.insert(journalEvents).values({
 			tankId: task.tankId,
 			entryId: null,
 			kind,
@@ -160,7 +168,34 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 		});
 		await recompute(task.tankId, inTx);
 		await tanks.touch(task.tankId, inTx);
-		return task.tankId;
+		return { tankId: task.tankId, tankName: row.tankName, eventId: inserted.insertId, label: task.label };
+	});
+}
+
+/**
+ * Logs a dose worked out by the dose calculator on the viewer's own tank, today, as a journal
+ * event of its own (like "done today": it can be taken back from the journal).
+ */
+export async function logDose(viewer: Pick<Viewer, 'id'>, tankId: number, dose: { saltId: SaltId; grams: number }, context: Context = {}): Promise<LoggedDone> {
+	const { db, now } = resolve(context);
+	if (!(dose.grams < 10_000_000 && roundTo(dose.grams, 3) > 0)) throw invalid({ grams: 'That dose is too small or too large to log (to the milligram).' });
+	return db.transaction(async (tx) => {
+		const inTx = within({ ...context, now }, tx);
+		const tank = await tanks.lockOwn(viewer, tankId, inTx);
+		const label = SALTS[dose.saltId].name;
+		const [inserted] = await tx.insert(journalEvents).values({
+			tankId,
+			entryId: null,
+			kind: 'dose',
+			occurredOn: today('UTC', now),
+			what: label,
+			amount: roundTo(dose.grams, 3),
+			amountUnit: 'g',
+			saltId: dose.saltId
+		});
+		await recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+		return { tankId, tankName: tank.name, eventId: inserted.insertId, label };
 	});
 }
 

@@ -1,6 +1,6 @@
-import { error, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
-import { requireUser } from '$lib/server/club/guards';
+import { notFoundOrSignIn, requireUser } from '$lib/server/club/guards';
 import { formAction, parseForm } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
 import * as tankDeletion from '$lib/server/journals/tank-deletion';
@@ -22,7 +22,7 @@ const TABLE_TESTS = 8;
 export const load = (async (event) => {
 	const viewer = event.locals.user;
 	const tank = await tanks.get(viewer, Number(event.params.id));
-	if (!tank) error(404, 'We could not find that tank.');
+	if (!tank) notFoundOrSignIn(event, 'We could not find that tank.');
 	const isOwner = tanks.isOwner(viewer, tank);
 	const now = new Date();
 	const [page, standing, tests, schedule] = await Promise.all([
@@ -86,8 +86,7 @@ export const actions = {
 			const { viewer } = await ownTankRow(event);
 			const taskId = idField(data, 'taskId');
 			if (!taskId) throw invalid({ taskId: 'Choose a task.' });
-			await upkeep.markDone(viewer, taskId);
-			return { doneTask: taskId };
+			return { done: await upkeep.markDone(viewer, taskId) };
 		},
 		{ id: 'done' }
 	),

@@ -1,6 +1,7 @@
 import { error } from '@sveltejs/kit';
 import * as contests from '$lib/server/contests/contests';
 import { publicResults } from '$lib/server/contests/review';
+import { formatVolume } from '$lib/journals/calc/units';
 import type { PageServerLoad } from './$types';
 
 // Public after publication; before it there are no results to show (404).
@@ -41,7 +42,7 @@ export const load = (async (event) => {
 					width: p.renditions.medium.width,
 					height: p.renditions.medium.height
 				})),
-				litres: e.litres,
+				volume: e.litres === null ? null : formatVolume(e.litres, event.locals.user?.units ?? 'metric'),
 				ageWeeks: e.ageWeeks,
 				mine: e.entrantId === viewerId
 			}))

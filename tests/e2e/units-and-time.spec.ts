@@ -4,7 +4,10 @@ import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as water from '../../src/lib/server/journals/water';
-import { makePerson } from '../helpers/people';
+import * as upkeep from '../../src/lib/server/journals/upkeep';
+import { dayOf } from '../../src/lib/dates';
+import { formatDate, zoneName } from '../../src/lib/format';
+import { makePerson, SESSION_COOKIE } from '../helpers/people';
 import { createListing, placePerson, token, viewerOf } from '../helpers/swaps';
 import { tankInput } from '../helpers/tanks';
 import { contextFor } from './fixtures';
@@ -74,5 +77,60 @@ test('a member using US units sees °F, US gallons, inches, pounds and miles on 
 	await radius.selectOption('5');
 	await expect(card.getByTestId('listing-distance')).toHaveText('about 3 mi');
 	expect(await page.locator('main').innerText()).not.toMatch(METRIC_FIGURE);
+	await context.close();
+});
+
+test('a member in a far time zone sees times in their zone, named, and "today" is their day', async ({ browser }) => {
+	// A zone whose day differs from UTC's right now: UTC+14 once UTC's day is ten hours old, UTC−11 before.
+	const now = new Date();
+	const timeZone = now.getUTCHours() >= 10 ? 'Pacific/Kiritimati' : 'Pacific/Pago_Pago';
+	const localDay = dayOf(now, timeZone);
+	expect(localDay).not.toBe(dayOf(now, 'UTC'));
+	const member = await makePerson({ displayName: 'Zoe Farzone' });
+	await db.update(users).set({ timeZone }).where(eq(users.id, member.id));
+	const tankId = await tanks.create(viewerOf(member), tankInput({ name: 'Dateline tank', setUpOn: '2026-01-15', visibility: 'private' }));
+	await upkeep.saveSchedule(viewerOf(member), tankId, [{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 }]);
+
+	const context = await contextFor(browser, member);
+	const page = await context.newPage();
+	// "Done today" logs the member's day, and the schedule counts from it: due in 7 days, not 6 or 8.
+	await page.goto(`/journals/${tankId}`);
+	const schedule = page.getByTestId('schedule');
+	await expect(schedule).toContainText('due today · not logged yet');
+	await schedule.getByRole('button', { name: 'Water change: done today' }).click();
+	await expect(schedule).toContainText(`due in 7 days · last ${formatDate(localDay)}`);
+	// A new water test is dated the member's today by default.
+	await page.goto(`/journals/${tankId}/water-tests/new`);
+	await expect(page.getByLabel('Day of the test')).toHaveValue(localDay);
+	// Times carry the member's zone: the sessions on the account page, and the zone chosen there.
+	await page.goto('/account');
+	await expect(page.getByLabel('Time zone')).toHaveValue(timeZone);
+	await expect(page.getByTestId('session-list')).toContainText(zoneName(now, timeZone));
+	await context.close();
+});
+
+test('a new member’s time zone comes from their browser, once; visitors see UTC, named', async ({ browser }) => {
+	const member = await makePerson({ displayName: 'Kiran Newzone' });
+	const context = await browser.newContext({ timezoneId: 'Asia/Kolkata' });
+	const base = process.env.APP_URL ?? 'http://localhost:3100';
+	await context.addCookies([{ name: SESSION_COOKIE, value: member.token, url: base, httpOnly: true, sameSite: 'Lax' }]);
+	const page = await context.newPage();
+	const sent = page.waitForResponse((r) => r.url().endsWith('/api/me/time-zone') && r.request().method() === 'POST');
+	await page.goto('/account');
+	expect(await (await sent).json()).toEqual({ kept: true });
+	// The page's times switch to that zone at once (India: UTC+5:30 all year), and the next page is rendered in it.
+	await expect(page.getByTestId('session-list')).toContainText('GMT+5:30');
+	await page.reload();
+	await expect(page.getByLabel('Time zone')).toHaveValue('Asia/Kolkata');
+	await expect(page.getByTestId('session-list')).toContainText('GMT+5:30');
+	const [row] = await db.select({ timeZone: users.timeZone }).from(users).where(eq(users.id, member.id));
+	expect(row?.timeZone).toBe('Asia/Kolkata');
+
+	// A zone chosen on the account page is kept over the browser's.
+	await page.getByLabel('Time zone').selectOption('Europe/Lisbon');
+	await page.getByRole('button', { name: 'Save profile' }).click();
+	await expect(page.getByLabel('Time zone')).toHaveValue('Europe/Lisbon');
+	const again = await page.request.post('/api/me/time-zone', { data: { timeZone: 'Asia/Kolkata' }, headers: { origin: base } });
+	expect(await again.json()).toEqual({ kept: false });
 	await context.close();
 });

@@ -18,6 +18,7 @@ export const load = (async (event) => {
 			displayName: row.displayName ?? '',
 			role: row.role,
 			units: row.units,
+			timeZone: row.timeZone ?? 'UTC',
 			homeAreaId: row.homeAreaId,
 			homeLat: row.homeLat,
 			homeLng: row.homeLng,
@@ -27,6 +28,8 @@ export const load = (async (event) => {
 			memberSince: row.createdAt
 		},
 		areas: areaList.map((a) => ({ id: a.id, name: a.name })),
+		// Every IANA zone this runtime knows, with UTC first (it is not in the list of regions).
+		zones: ['UTC', ...Intl.supportedValuesOf('timeZone').filter((z) => z !== 'UTC')],
 		sessions: active
 	};
 }) satisfies PageServerLoad;

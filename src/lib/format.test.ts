@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { describeUserAgent, formatDate, formatDateTime, maskEmail, zoneName } from './format';
+import { counted, describeUserAgent, formatDate, formatDateTime, maskEmail, zoneName } from './format';
 
 // Offsets checked against the IANA time zone database as the runtime's ICU carries it: New Zealand
 // keeps daylight time (UTC+13) in December, New York standard time (UTC−5); India is UTC+5:30 all year.
@@ -18,6 +18,15 @@ describe('times in the viewer’s zone', () => {
 		expect(formatDate(at, 'UTC')).toBe('3 Dec 2026');
 		expect(formatDate('2026-12-03', 'Pacific/Honolulu')).toBe('3 Dec 2026');
 		expect(formatDate('2026-12-03', 'Pacific/Kiritimati')).toBe('3 Dec 2026');
+	});
+});
+
+describe('counted', () => {
+	test('one of a thing, and many', () => {
+		expect(counted(1, 'unread message')).toBe('1 unread message');
+		expect(counted(0, 'unread message')).toBe('0 unread messages');
+		expect(counted(1200, 'stem')).toBe('1,200 stems');
+		expect(counted(2, 'person', 'people')).toBe('2 people');
 	});
 });
 

@@ -46,6 +46,11 @@ export function formatDateTime(d: Date | string | null | undefined, timeZone = '
 	return `${formatFor('dateTime', timeZone).format(at)} ${zoneName(at, timeZone)}`;
 }
 
+/** "1 unread message", "3 unread messages": a count with its noun in the right number (`many` when not the noun + s). */
+export function counted(n: number, one: string, many = `${one}s`): string {
+	return `${n.toLocaleString('en-GB')} ${n === 1 ? one : many}`;
+}
+
 /** "3 days ago", "in 2 hours": coarse, for lists. */
 export function relativeTime(d: Date | string, now: Date = new Date()): string {
 	const seconds = Math.round((new Date(d).getTime() - now.getTime()) / 1000);

@@ -54,6 +54,10 @@ describe('light and flow', () => {
 		const filter = { label: 'Hang-on-back', ratedFlow: 100, flowUnit: 'usgph' as const, mediaNotes: 'sponge' };
 		expect(filterText(filter, 'metric')).toBe('Hang-on-back: 100 US gal/h (379 L/h) — sponge');
 		expect(filterText(filter, 'us')).toBe('Hang-on-back: 100 US gal/h — sponge');
+		// 600 L/h = 159 US gal/h = 132 imp gal/h.
+		expect(filterText({ label: 'Canister', ratedFlow: 600, flowUnit: 'lph', mediaNotes: '' }, 'us')).toBe('Canister: 600 L/h (159 US gal/h)');
+		expect(filterText({ label: 'Canister', ratedFlow: 600, flowUnit: 'lph', mediaNotes: '' }, 'imperial')).toBe('Canister: 600 L/h (132 imp gal/h)');
+		expect(filterText(filter, 'imperial')).toBe('Hang-on-back: 100 US gal/h (83.3 imp gal/h) — sponge');
 		expect(filterText({ label: '', ratedFlow: null, flowUnit: 'lph', mediaNotes: '' }, 'metric')).toBe('Filter');
 		expect(turnoverText(1200, { perHour: 7.07, assessment: { label: 'Good' } }, 'metric')).toBe('1,200 L/h rated · 7.1 × the volume an hour (good)');
 	});

@@ -65,8 +65,9 @@ export function turnoverText(totalFlowLph: number, turnover: { perHour: number; 
 /** One filter of the list, its rated flow as printed on it (and in L/h when that was US gal/h). */
 export function filterText(filter: { label: string; ratedFlow: number | null; flowUnit: FlowUnit; mediaNotes: string }, units: UnitSystem): string {
 	const flow = filter.ratedFlow ? `: ${n(filter.ratedFlow)} ${FLOW_UNIT_LABELS[filter.flowUnit]}` : '';
-	const inLitres =
-		filter.ratedFlow && filter.flowUnit === 'usgph' && units === 'metric' ? ` (${formatFlow(flowLitresPerHour(filter.ratedFlow, 'usgph'), units)})` : '';
+	// Beside a rating in a unit other than the member's, the same flow in theirs.
+	const printedIn = filter.flowUnit === 'usgph' ? 'us' : 'metric';
+	const inLitres = filter.ratedFlow && printedIn !== units ? ` (${formatFlow(flowLitresPerHour(filter.ratedFlow, filter.flowUnit), units)})` : '';
 	return `${filter.label || 'Filter'}${flow}${inLitres}${filter.mediaNotes ? ` — ${filter.mediaNotes}` : ''}`;
 }
 

@@ -29,7 +29,9 @@ export const load = (async (event) => {
 		},
 		areas: areaList.map((a) => ({ id: a.id, name: a.name })),
 		// Every IANA zone this runtime knows, with UTC first (it is not in the list of regions).
-		zones: ['UTC', ...Intl.supportedValuesOf('timeZone').filter((z) => z !== 'UTC')],
+		// The member's own zone is in the list even where this runtime files it under another name
+		// (a browser's "Asia/Kolkata" is "Asia/Calcutta" here).
+		zones: ['UTC', ...[...new Set([...Intl.supportedValuesOf('timeZone'), row.timeZone ?? 'UTC'])].filter((z) => z !== 'UTC').sort()],
 		sessions: active
 	};
 }) satisfies PageServerLoad;

@@ -207,6 +207,7 @@ function tankInput(name: string, shape: Shape, setUpOn: string, visibility: Tank
 		hardscape: shape.style === 'iwagumi' ? 'Grey stones' : 'Stones and wood',
 		hardscapeLitres: shape.rock,
 		heaterWatts: shape.l >= 60 ? 100 : null,
+		heaterSetC: shape.l >= 60 ? 24 : null,
 		heaterNote: '',
 		co2Method: shape.l >= 60 ? 'pressurised' : 'none',
 		co2BubblesPerSecond: shape.l >= 60 ? 1.5 : null,

@@ -16,6 +16,7 @@ export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
 		hardscape: 'Two stones',
 		hardscapeLitres: 3,
 		heaterWatts: 100,
+		heaterSetC: 24,
 		heaterNote: '',
 		co2Method: 'none',
 		co2BubblesPerSecond: null,

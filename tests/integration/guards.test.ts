@@ -110,6 +110,7 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/unsubscribe/0123456789abcdef0123456789abcdef', form: () => ({ announcements: 'on' }), expect: hidden },
 	{ path: '/media/:photo/thumb', expect: hidden },
 	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/api/me/time-zone', api: true, json: { timeZone: 'Europe/Lisbon' }, expect: apiSignedIn(200) },
 	{ path: '/journals', expect: signedIn(200) },
 	{ path: '/journals/new', expect: signedIn(200) },
 	{ method: 'POST', path: '/journals/new', form: () => ({ name: '' }), expect: signedIn(400) },

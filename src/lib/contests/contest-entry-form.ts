@@ -65,6 +65,8 @@ export interface EntryTankChoice {
 	thumb: string | null;
 	/** Rounded as the tank's page shows it. */
 	litres: number | null;
+	/** The volume in the member's units, as shown. */
+	volume: string | null;
 	volumeSource: 'measured' | 'estimated' | null;
 	ageLabel: string | null;
 	retired: boolean;

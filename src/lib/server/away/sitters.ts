@@ -12,12 +12,13 @@ import { absoluteUrl } from '../config';
 import { conflict, invalid, notFound } from '../../errors';
 import { formatDate } from '../../format';
 import { haversineDistance } from '../../swaps/distance';
-import { labelOf, shownMetres } from '../../swaps/display';
+import { labelOf, shownFigure } from '../../swaps/display';
+import { distanceUnitOf, type UnitSystem } from '../../journals/calc/units';
 import { awayHelpers, awayPlans, awaySitters } from './schema';
 import { ownPlan, sitterMayRead, type AwayPlanRow } from './plans';
 import { today } from '../../dates';
 
-/** The distances the keeper may choose to look for helpers within, in km (figures the board shows). */
+/** The distances the keeper may choose to look for helpers within, in their own unit (figures the board shows). */
 export const HELPER_RADII_KM = [5, 10, 25, 50] as const;
 
 export interface Candidate {
@@ -32,7 +33,8 @@ export interface Candidate {
  * (the same coarse figure the swap board shows, so nothing finer is learnt), nearest first. Without
  * a place of the keeper's own, every helper, by name.
  */
-export async function nearbyHelpers(viewer: Pick<Viewer, 'id'>, radiusKm: number, context: Context = {}): Promise<Candidate[]> {
+export async function nearbyHelpers(viewer: Pick<Viewer, 'id'> & { units: UnitSystem }, radius: number, context: Context = {}): Promise<Candidate[]> {
+	const unit = distanceUnitOf(viewer.units);
 	const { db } = resolve(context);
 	const helperIds = (await db.select({ id: awayHelpers.userId }).from(awayHelpers).limit(2000)).map((h) => h.id).filter((id) => id !== viewer.id);
 	if (helperIds.length === 0) return [];
@@ -48,9 +50,9 @@ export async function nearbyHelpers(viewer: Pick<Viewer, 'id'>, radiusKm: number
 			continue;
 		}
 		if (!point) continue;
-		const shown = shownMetres(haversineDistance(home, point));
-		if (shown > radiusKm * 1000) continue;
-		found.push({ id, name: person.name, distance: labelOf(shown).text, shown });
+		const shown = shownFigure(haversineDistance(home, point), unit);
+		if (shown > radius) continue;
+		found.push({ id, name: person.name, distance: labelOf(shown, unit).text, shown });
 	}
 	return found.sort((a, b) => a.shown - b.shown || a.name.localeCompare(b.name)).map(({ shown: _shown, ...c }) => c);
 }

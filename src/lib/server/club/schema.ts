@@ -23,6 +23,8 @@ export const users = mysqlTable(
 		homeLng: decimal({ precision: 6, scale: 2, mode: 'number' }),
 		homeAreaId: ref(),
 		units: mysqlEnum(UNIT_SYSTEMS).notNull().default('metric'),
+		/** IANA name; null until the member chose one or their browser reported its own. */
+		timeZone: varchar({ length: 64 }),
 		notifyMessages: mysqlEnum(['each', 'hourly', 'off']).notNull().default('hourly'),
 		weeklyDigest: boolean().notNull().default(false),
 		announcements: boolean().notNull().default(true),

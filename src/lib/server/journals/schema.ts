@@ -32,6 +32,8 @@ export const tanks = mysqlTable(
 		hardscape: varchar({ length: 500 }).notNull().default(''),
 		hardscapeLitres: decimal({ precision: 8, scale: 2, mode: 'number' }),
 		heaterWatts: decimal({ precision: 6, scale: 1, mode: 'number' }),
+		/** What the heater is set to, °C. */
+		heaterSetC: decimal({ precision: 4, scale: 1, mode: 'number' }),
 		heaterNote: varchar({ length: 160 }).notNull().default(''),
 		co2Method: mysqlEnum(CO2_METHODS).notNull().default('none'),
 		co2BubblesPerSecond: decimal({ precision: 4, scale: 1, mode: 'number' }),

@@ -251,6 +251,7 @@ function columns(input: TankInput) {
 		hardscape: input.hardscape,
 		hardscapeLitres: input.hardscapeLitres,
 		heaterWatts: input.heaterWatts,
+		heaterSetC: input.heaterSetC,
 		heaterNote: input.heaterNote,
 		co2Method: input.co2Method,
 		co2BubblesPerSecond: input.co2Method === 'pressurised' ? input.co2BubblesPerSecond : null,

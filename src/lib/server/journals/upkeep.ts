@@ -6,6 +6,7 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import { invalid, notFound } from '../../errors';
 import { today } from '../../dates';
+import { zoneOf } from '../../club/viewer';
 import { SALTS, roundTo, scheduleAll, type MaintenanceTask, type SaltId, type ScheduledTask } from '../../journals/calc';
 import { asMaintenanceTask, doneEventKind, lastDoneOn, type LoggedUpkeep, type TaskDraft } from '../../journals/schedule';
 import { journalEvents, maintenanceTasks, tanks as tankTable, waterTests, type TaskRow } from './schema';
@@ -55,7 +56,9 @@ export async function recompute(tankId: number, context: Context = {}): Promise<
 	const tasks = await listForTank(tankId, context);
 	if (!tasks.length) return;
 	const logged = await loggedFor(db, tankId);
-	const day = today('UTC', now);
+	// Events dated up to today somewhere on earth count: the owner's own today may be ahead of
+	// UTC's (UTC+14 is the furthest ahead any clock is).
+	const day = today('Etc/GMT-14', now);
 	for (const task of tasks) {
 		const last = lastDoneOn(task, logged, day);
 		if (last !== task.lastDoneOn) await db.update(maintenanceTasks).set({ lastDoneOn: last }).where(eq(maintenanceTasks.id, task.id));
@@ -103,7 +106,7 @@ export interface DueTask extends MaintenanceTask {
 }
 
 /** The schedule of every running tank of the viewer, the most overdue first. */
-export async function scheduleOf(viewer: Pick<Viewer, 'id'>, context: Context = {}): Promise<ScheduledTask<DueTask>[]> {
+export async function scheduleOf(viewer: Pick<Viewer, 'id' | 'timeZone'>, context: Context = {}): Promise<ScheduledTask<DueTask>[]> {
 	const { db, now } = resolve(context);
 	const rows = await db
 		.select({ task: maintenanceTasks, tankName: tankTable.name })
@@ -117,18 +120,18 @@ export async function scheduleOf(viewer: Pick<Viewer, 'id'>, context: Context = 
 		tankName,
 		kind: task.kind
 	}));
-	return scheduleAll(tasks, now);
+	return scheduleAll(tasks, today(zoneOf(viewer), now));
 }
 
 export { dueWithin } from '../../journals/schedule';
 
-/** The schedule of one tank for its page. */
-export async function scheduleOfTank(tankId: number, context: Context = {}) {
+/** The schedule of one tank for its page, on the owner's day in `timeZone`. */
+export async function scheduleOfTank(tankId: number, timeZone: string, context: Context = {}) {
 	const { now } = resolve(context);
 	const rows = await listForTank(tankId, context);
 	return scheduleAll(
 		rows.map((t) => ({ ...asMaintenanceTask(t), taskId: t.id, kind: t.kind, filterPart: t.filterPart })),
-		now
+		today(timeZone, now)
 	).sort((a, b) => a.nextDueOn.localeCompare(b.nextDueOn) || Number(a.task.id) - Number(b.task.id));
 }
 
@@ -144,7 +147,7 @@ export interface LoggedDone {
 	label: string;
 }
 
-export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<LoggedDone> {
+export async function markDone(viewer: Pick<Viewer, 'id' | 'timeZone'>, taskId: number, context: Context = {}): Promise<LoggedDone> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
@@ -161,7 +164,7 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 			tankId: task.tankId,
 			entryId: null,
 			kind,
-			occurredOn: today('UTC', now),
+			occurredOn: today(zoneOf(viewer), now),
 			filterPart: kind === 'filter-clean' ? task.filterPart : null,
 			what: kind === 'upkeep' ? task.label : '',
 			taskId: task.id

@@ -8,6 +8,7 @@ import * as sitters from '$lib/server/away/sitters';
 import * as visits from '$lib/server/away/visits';
 import { invalid, parseOrThrow } from '$lib/errors';
 import { checklistOf } from '$lib/away/care-plan';
+import { distanceUnitOf } from '$lib/journals/calc/units';
 import { readPhotoFields } from '$lib/media/form';
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
 import { pageLoad } from '$lib/server/http/loads';
@@ -28,7 +29,7 @@ export const load = pageLoad(async (event) => {
 		keeper && name ? sitters.byName(viewer, name) : [],
 		keeper ? [] : visits.tasksOf(viewer, planId)
 	]);
-	return { ...shown, checklist: checklistOf(shown.plan.body), tasks, nearby, named, radius, radii: RADII, name };
+	return { ...shown, unit: distanceUnitOf(viewer.units), checklist: checklistOf(shown.plan.body), tasks, nearby, named, radius, radii: RADII, name };
 }) satisfies PageServerLoad;
 
 const bodyForm = z.object({ body: z.string({ message: 'Write the plan.' }) });

@@ -37,7 +37,7 @@ export const load = (async (event) => {
 			weight: c.weight,
 			tieBreakRank: c.tieBreakRank
 		})),
-		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
+		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c), viewer?.units) })),
 		accepting,
 		mine: mine.map((e) => ({
 			id: e.id,

@@ -11,6 +11,7 @@ import * as water from '$lib/server/journals/water';
 import { storedHtml } from '$lib/server/markdown';
 import { invalid, notFound } from '$lib/errors';
 import { today } from '$lib/dates';
+import { zoneOf } from '$lib/club/viewer';
 import { dayNumber } from '$lib/journals/calc';
 import { buildSeries, derivedFigures, latestWarnings } from '$lib/journals/water-tests';
 import { ownTankRow } from './own-tank.server';
@@ -29,7 +30,7 @@ export const load = (async (event) => {
 		timeline.pageOf(tank.id, Number(event.url.searchParams.get('page') ?? 1)),
 		social.standingOf(viewer, tank.id),
 		water.latestOf(tank.id),
-		isOwner ? upkeep.scheduleOfTank(tank.id, { now }) : Promise.resolve([])
+		isOwner ? upkeep.scheduleOfTank(tank.id, zoneOf(viewer), { now }) : Promise.resolve([])
 	]);
 	const units = viewer?.units ?? 'metric';
 	const latest = tests[0] ?? null;
@@ -38,7 +39,7 @@ export const load = (async (event) => {
 		figures: tanks.tankFigures(tank, { now }),
 		descriptionHtml: storedHtml(tank.descriptionHtml, tank.description),
 		isOwner,
-		today: today('UTC', now),
+		today: today(zoneOf(viewer), now),
 		timeline: page,
 		standing,
 		schedule,

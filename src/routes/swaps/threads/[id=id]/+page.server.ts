@@ -7,6 +7,7 @@ import * as transitions from '$lib/server/swaps/listing-transitions';
 import * as blocks from '$lib/server/swaps/blocks';
 import * as reports from '$lib/server/swaps/reports';
 import { today } from '$lib/dates';
+import { zoneOf } from '$lib/club/viewer';
 import { availableActions } from '$lib/swaps/listing-state';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -31,7 +32,7 @@ export const load = (async (event) => {
 		canConfirmHandover: thread.status === 'accepted' && actions.includes('confirm-handover'),
 		canRelease: thread.role === 'owner' && thread.status === 'accepted' && actions.includes('release'),
 		youBlocked: relation.aBlockedB,
-		today: today('UTC', now)
+		today: today(zoneOf(viewer), now)
 	};
 }) satisfies PageServerLoad;
 

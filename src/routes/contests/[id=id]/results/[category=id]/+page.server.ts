@@ -1,6 +1,7 @@
 import { error } from '@sveltejs/kit';
 import * as contests from '$lib/server/contests/contests';
 import { publishedResultsOf } from '$lib/server/contests/review';
+import { formatVolume } from '$lib/journals/calc/units';
 import type { PageServerLoad } from './$types';
 
 // Public after publication; before it there are no results to show (404).
@@ -43,7 +44,7 @@ export const load = (async (event) => {
 					largeWidth: p.renditions.large.width,
 					largeHeight: p.renditions.large.height
 				})),
-				litres: e.litres,
+				volume: e.litres === null ? null : formatVolume(e.litres, event.locals.user?.units ?? 'metric'),
 				ageWeeks: e.ageWeeks,
 				publicTankId: e.publicTankId,
 				mine: e.entrantId === viewerId

@@ -2,7 +2,7 @@
 // club's own rules), each for one jurisdiction. The club picks the jurisdictions it is in; only
 // their entries apply. A banned species cannot be offered or asked for; a cautioned one can, with
 // a warning shown to both members on the listing and in the conversation.
-import { formatDate } from '$lib/format';
+import { formatDate } from '../format';
 
 export const RESTRICTION_LEVELS = ['banned', 'cautioned'] as const;
 export type RestrictionLevel = (typeof RESTRICTION_LEVELS)[number];

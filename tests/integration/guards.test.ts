@@ -69,6 +69,9 @@ const everyone = (status: number) => ({ anonymous: status, member: status, judge
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
 	{ path: '/welcome', expect: signedIn(200) },
+	{ path: '/account/data', expect: signedIn(200) },
+	// A confirmation that is not the visitor's name is refused at its field; nothing is deleted.
+	{ method: 'POST', path: '/account/data?/delete', form: () => ({ confirm: 'not my name' }), expect: signedIn(400) },
 	{ path: '/admin', expect: adminOnly(200) },
 	{ path: '/admin/members', expect: adminOnly(200) },
 	{ path: '/admin/mail', expect: adminOnly(200) },

@@ -7,6 +7,7 @@ import { XMLParser, XMLValidator } from 'fast-xml-parser';
 import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
+import { unsubscribeToken } from '../../src/lib/server/mail/unsubscribe';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
@@ -519,9 +520,9 @@ describe('the weekly digest', () => {
 		expect(mail.text).toContain('• Digest tank: Water change — overdue by 3 days');
 		expect(mail.text).not.toContain('Trim the stems');
 		expect(mail.text).toMatch(/• Followed for digest: Fresh stones — http\S+\/journals\/\d+\/entries\/\d+/);
-		const [{ token }] = (await db.select({ token: users.unsubscribeToken }).from(users).where(eq(users.id, reader.id))) as [{ token: string }];
-		expect(mail.text).toContain(`/unsubscribe/${token}?kind=digest`);
-		expect(mail.headers['list-unsubscribe']).toContain(`/unsubscribe/${token}?kind=digest`);
+		const token = unsubscribeToken(reader.id, 'digest');
+		expect(mail.text).toContain(`/unsubscribe/${token}`);
+		expect(mail.headers['list-unsubscribe']).toContain(`/unsubscribe/${token}>`);
 
 		// A second run in the same week queues nothing more; the quiet member had nothing to hear about.
 		await digest.sendWeeklyDigests({ now: new Date(now.getTime() + 3_600_000) });

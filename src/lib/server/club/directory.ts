@@ -25,18 +25,19 @@ const columns = {
 	email: users.email,
 	role: users.role,
 	unsubscribeToken: users.unsubscribeToken,
-	announcements: users.announcements
+	announcements: users.announcements,
+	deletedAt: users.deletedAt
 };
 
 async function select(where: SQL | undefined, context: Context): Promise<Member[]> {
 	const { db } = resolve(context);
 	const rows = await db.select(columns).from(users).where(where);
-	return rows.map(({ displayName, email, ...r }) => ({ ...r, name: nameOf(displayName), email: email ?? '' }));
+	return rows.map(({ displayName, email, deletedAt, ...r }) => ({ ...r, name: nameOf(displayName, deletedAt !== null), email: email ?? '' }));
 }
 
 const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
 
-/** The members with these ids, by id (ids of former members are missing). */
+/** The members with these ids, by id; a former member is named FORMER_MEMBER and has no address. */
 export async function byIds(ids: Iterable<string>, context: Context = {}): Promise<Map<string, Member>> {
 	const unique = [...new Set(ids)];
 	if (unique.length === 0) return new Map();

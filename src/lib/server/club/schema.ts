@@ -32,7 +32,11 @@ export const users = mysqlTable(
 			.notNull()
 			.$defaultFn(() => crypto.randomUUID().replaceAll('-', '')),
 		createdAt: createdAt(),
-		lastSeenAt: at()
+		lastSeenAt: at(),
+		/** Set when the member deleted their account (or an admin removed it): the row is then an
+		 * opaque tombstone with nothing personal left, kept so published results, conversations and
+		 * audit rows still point somewhere. See club/account-deletion.ts. */
+		deletedAt: at()
 	},
 	(t) => [index('user_role_idx').on(t.role), index('user_display_name_idx').on(t.displayName)]
 );

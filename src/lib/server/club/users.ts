@@ -1,5 +1,5 @@
 // Members: who they are, their profile and settings, and their role in the club.
-import { and, asc, count, eq, isNull, like, ne, or, sql } from 'drizzle-orm';
+import { and, asc, count, eq, isNull, like, ne, or, sql, type SQL } from 'drizzle-orm';
 import { assertRole, type Role } from '../../club/roles';
 import { timeZoneSchema, type ProfileInput } from '../../club/profile';
 import { roundToKilometre, type LatLng } from '../../club/location';
@@ -89,13 +89,13 @@ export const MEMBERS_PAGE_SIZE = 20;
 export async function listMembers(admin: Viewer, filter: { search?: string; role?: Role; page: number }, context: Context = {}) {
 	assertRole(admin, 'admin');
 	const { db } = resolve(context);
-	const conditions = [];
+	const conditions: (SQL | undefined)[] = [isNull(users.deletedAt)];
 	if (filter.search) {
 		const pattern = `%${filter.search.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
 		conditions.push(or(like(users.displayName, pattern), like(users.email, pattern)));
 	}
 	if (filter.role) conditions.push(eq(users.role, filter.role));
-	const where = conditions.length ? and(...conditions) : undefined;
+	const where = and(...conditions);
 	const [{ total }] = (await db.select({ total: count() }).from(users).where(where)) as [{ total: number }];
 	const rows = await db
 		.select({

@@ -274,6 +274,17 @@ export async function deleteFor(scope: MediaScope, scopeId: number, context: Con
 	return rows.flatMap((r) => objectKeys(r.storageKey));
 }
 
+/**
+ * Deletes the rows of every photo a member uploaded, attached or pending (an account deletion),
+ * and returns the object keys to purge once the caller's transaction has committed.
+ */
+export async function deleteOwnedBy(ownerId: string, context: Context = {}): Promise<Purge> {
+	const { db } = resolve(context);
+	const rows = await db.select({ id: media.id, storageKey: media.storageKey }).from(media).where(eq(media.ownerId, ownerId)).for('update');
+	if (rows.length) await db.delete(media).where(eq(media.ownerId, ownerId));
+	return rows.flatMap((r) => objectKeys(r.storageKey));
+}
+
 /** Discards one of the owner's own pending uploads at once (the uploader's remove button). */
 export async function discardPending(ownerId: string, id: number, context: MediaContext = {}): Promise<boolean> {
 	const { db } = resolve(context);

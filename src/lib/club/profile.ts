@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { isTimeZone } from '../dates';
 import { DISPLAY_NAME_MAX, DISPLAY_NAME_MIN, UNIT_SYSTEMS } from './roles';
+import { composed } from '../text';
 
 export const displayNameSchema = z
 	.string()
-	.trim()
+	.overwrite(composed)
 	.min(DISPLAY_NAME_MIN, `Use at least ${DISPLAY_NAME_MIN} characters.`)
 	.max(DISPLAY_NAME_MAX, `Keep it to ${DISPLAY_NAME_MAX} characters.`)
 	.regex(/^[\p{L}\p{N}][\p{L}\p{N} .'’_-]*$/u, "Use letters, numbers, spaces and . ' - _ only.");

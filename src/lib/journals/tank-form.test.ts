@@ -128,3 +128,15 @@ describe('lightingChange on the edit form (compareLighting; the worked example o
 		expect(lightingChange([{ watts: '70' }], null)).toBeNull();
 	});
 });
+
+describe('names with hidden characters', () => {
+	test('a right-to-left override or a name of joiners only is refused at the field; an emoji is kept', () => {
+		// U+202E RIGHT-TO-LEFT OVERRIDE, U+200D ZERO WIDTH JOINER (Unicode Character Database).
+		expect(parseTankDraft(draft({ name: 'Tank\u202Eexe' }), 'metric', today)).toMatchObject({
+			ok: false,
+			errors: { name: expect.stringMatching(/direction/) }
+		});
+		expect(parseTankDraft(draft({ name: '\u200D\u200D' }), 'metric', today)).toMatchObject({ ok: false, errors: { name: expect.stringMatching(/invisible/) } });
+		expect(parseTankDraft(draft({ name: 'Shrimp 🦐 corner' }), 'metric', today)).toMatchObject({ ok: true, input: { name: 'Shrimp 🦐 corner' } });
+	});
+});

@@ -1,6 +1,7 @@
 // The tank profile form: what the member typed (a draft of strings, in their own units) and the
 // validated, metric TankInput the domain takes. Conversions go through ./calc so every form and
 // page agrees on units and rounding.
+import { composed, nameProblem } from '../text';
 import {
 	compareLighting,
 	dayNumber,
@@ -250,9 +251,11 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 		return null;
 	};
 	const words = (key: string, value: string, max: number, required = false): string => {
-		const v = value.trim();
+		const v = composed(value);
 		if (required && !v) fail(key, 'This is needed.');
 		if (v.length > max) fail(key, `Keep it to ${max} characters.`);
+		const problem = nameProblem(v);
+		if (problem) fail(key, problem);
 		return v;
 	};
 	const number = (key: string, value: string, min: number, max: number, required = false): number | null => {

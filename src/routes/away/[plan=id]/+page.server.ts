@@ -29,7 +29,20 @@ export const load = pageLoad(async (event) => {
 		keeper && name ? sitters.byName(viewer, name) : [],
 		keeper ? [] : visits.tasksOf(viewer, planId)
 	]);
-	return { ...shown, unit: distanceUnitOf(viewer.units), checklist: checklistOf(shown.plan.body), tasks, nearby, named, radius, radii: RADII, name };
+	// Members already asked (and not answered no) are listed under "Who looks in", not offered again.
+	const asked = new Set(shown.sitters.filter((s) => s.state === 'asked' || s.state === 'accepted').map((s) => s.sitterId));
+	const offer = <T extends { id: string }>(people: T[]) => people.filter((p) => !asked.has(p.id));
+	return {
+		...shown,
+		unit: distanceUnitOf(viewer.units),
+		checklist: checklistOf(shown.plan.body),
+		tasks,
+		nearby: offer(nearby),
+		named: offer(named),
+		radius,
+		radii: RADII,
+		name
+	};
 }) satisfies PageServerLoad;
 
 const bodyForm = z.object({ body: z.string({ message: 'Write the plan.' }) });

@@ -13,7 +13,12 @@ const SETTLED = ['published', 'archived'] as const;
 /** Deletes the member's unsettled contest rows. Call it inside the deletion's transaction. */
 export async function forget(memberId: string, context: Context = {}): Promise<void> {
 	const { db } = resolve(context);
-	const unsettled = (await db.select({ id: contests.id }).from(contests).where(notInArray(contests.state, [...SETTLED]))).map((c) => c.id);
+	const unsettled = (
+		await db
+			.select({ id: contests.id })
+			.from(contests)
+			.where(notInArray(contests.state, [...SETTLED]))
+	).map((c) => c.id);
 	if (unsettled.length === 0) return;
 	await db.delete(contestEntries).where(and(eq(contestEntries.entrantId, memberId), inArray(contestEntries.contestId, unsettled)));
 	await db.delete(contestCards).where(and(eq(contestCards.judgeId, memberId), inArray(contestCards.contestId, unsettled)));

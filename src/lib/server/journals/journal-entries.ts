@@ -34,7 +34,7 @@ import * as tanks from './tanks';
 import * as upkeep from './upkeep';
 import * as social from './social';
 
-export type { EntryRow, EventRow };
+export type { EventRow };
 
 export interface Entry extends Omit<EntryRow, 'bodyHtml'> {
 	html: string;

@@ -33,7 +33,11 @@ export async function deleteOwn(viewer: Viewer, typed: string, context: Context 
 	await erase(viewer.id, { actorId: viewer.id, by: 'member' }, context);
 }
 
-/** An admin removes a member's account, with a reason, as if the member had deleted it. */
+/**
+ * An admin removes a member's account, with a reason, as if the member had deleted it. The admin
+ * members page does not offer it yet; only its tests call it so far.
+ * @public
+ */
 export async function removeMember(admin: Viewer, memberId: string, reason: string, context: Context = {}): Promise<void> {
 	assertRole(admin, 'admin');
 	if (memberId === admin.id) throw conflict('own-account', 'Delete your own account from your account page, not from the member list.');

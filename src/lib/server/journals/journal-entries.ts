@@ -158,24 +158,37 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 	await tx.insert(journalEvents).values(values);
 }
 
+/** Writes an entry's row (its HTML rendered once, here) and attaches its author's photos. */
+async function insertEntry(
+	tx: DbOrTx,
+	authorId: string,
+	tankId: number,
+	input: { entryOn: string; title: string; body: string },
+	photos: PhotoField[],
+	context: Context
+): Promise<number> {
+	const { now } = resolve(context);
+	const [result] = await tx.insert(journalEntries).values({
+		tankId,
+		authorId,
+		entryOn: input.entryOn,
+		title: input.title,
+		body: input.body,
+		bodyHtml: renderMarkdown(input.body),
+		updatedAt: now,
+		createdAt: now
+	});
+	await media.setPhotos(authorId, 'entry', result.insertId, photos, { max: ENTRY_PHOTOS_MAX }, context);
+	return result.insertId;
+}
+
 /** Creates an entry on the viewer's tank; mails followers (at most once a day each). */
 export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: EntryInput, photos: PhotoField[], context: Context = {}): Promise<number> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
 		const tank = await tanks.lockOwn(viewer, tankId, inTx);
-		const [result] = await tx.insert(journalEntries).values({
-			tankId,
-			authorId: viewer.id,
-			entryOn: input.entryOn,
-			title: input.title,
-			body: input.body,
-			bodyHtml: renderMarkdown(input.body),
-			updatedAt: now,
-			createdAt: now
-		});
-		const entryId = result.insertId;
-		await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
+		const entryId = await insertEntry(tx, viewer.id, tankId, input, photos, inTx);
 		for (const [position, e] of input.events.entries()) await writeEvent(tx, tankId, entryId, input.entryOn, position, e, position);
 		await upkeep.recompute(tankId, inTx);
 		await tanks.touch(tankId, inTx);
@@ -200,18 +213,7 @@ export async function createVisit(
 	const write = async (tx: DbOrTx) => {
 		const inTx = within({ ...context, now }, tx);
 		const tasks = (await upkeep.listForTank(tankId, inTx)).filter((t) => input.taskIds.includes(t.id));
-		const [result] = await tx.insert(journalEntries).values({
-			tankId,
-			authorId: sitter.id,
-			entryOn: input.entryOn,
-			title: input.title,
-			body: input.body,
-			bodyHtml: renderMarkdown(input.body),
-			updatedAt: now,
-			createdAt: now
-		});
-		const entryId = result.insertId;
-		await media.setPhotos(sitter.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
+		const entryId = await insertEntry(tx, sitter.id, tankId, input, photos, inTx);
 		for (const [position, task] of tasks.entries()) {
 			const kind = doneEventKind(task.kind);
 			await tx.insert(journalEvents).values({

@@ -1,4 +1,4 @@
-// Builds the database scripts (migrations and the seed) into build/scripts/*.js, so a production
+// Builds the database scripts (migrations, the seed, backup and restore) into build/scripts/*.js, so a production
 // install runs them with plain Node after `npm prune --omit=dev` (no tsx). Run by `npm run build`
 // after the app's own build, which empties build/ first. Like adapter-node's build, packages in
 // `dependencies` stay imports from node_modules and everything else is bundled.
@@ -20,7 +20,7 @@ export default defineConfig({
 		minify: false,
 		sourcemap: true,
 		rolldownOptions: {
-			input: { migrate: 'scripts/migrate.ts', seed: 'scripts/seed.ts' },
+			input: { migrate: 'scripts/migrate.ts', seed: 'scripts/seed.ts', backup: 'scripts/backup.ts', restore: 'scripts/restore.ts' },
 			external,
 			output: { format: 'es', entryFileNames: '[name].js', chunkFileNames: 'chunks/[name]-[hash].js' }
 		}

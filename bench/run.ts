@@ -21,7 +21,7 @@ import { join, relative } from 'node:path';
 import mysql from 'mysql2/promise';
 import sharp from 'sharp';
 import { SetupError, note, ok, reportFailure, step, warn } from '../scripts/lib/log';
-import { bringUp, dataRoot, hashTree, portsFor, root, runNodeScript, type Stack } from '../scripts/lib/stack';
+import { bringUp, dataRoot, hashTree, portsFor, root, type Stack } from '../scripts/lib/stack';
 import { spawnManaged, waitForPort, type ManagedProcess } from '../scripts/lib/system';
 import { startCluster, type Cluster } from '../scripts/lib/cluster';
 import { drawAquarium } from '../scripts/seed/lib/images';
@@ -30,6 +30,12 @@ import { findTargets, type PageKey, type Target } from './lib/targets';
 import { load, queriesFor, type LoadResult } from './lib/load';
 import { largestContentfulPaint, launch, weigh, type PageWeight } from './lib/browser';
 import { syntheticContest, timeResults } from './contests';
+
+/** Runs one of the project's scripts (TypeScript, through tsx) and stops the bench if it fails. */
+function runNodeScript(script: string, env: NodeJS.ProcessEnv, what: string, args: string[] = []) {
+	const result = spawnSync(process.execPath, ['--import', 'tsx', join(root, script), ...args], { cwd: root, env, stdio: 'inherit' });
+	if (result.status !== 0) throw new SetupError(`${what} failed (see above).`, 'Fix the error shown above and run the command again.');
+}
 
 /** Raise when the large seed changes in a way its source files do not show. */
 const BENCH_SEED_VERSION = 1;

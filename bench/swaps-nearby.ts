@@ -20,8 +20,8 @@ import { applyMigrations } from '../scripts/migrate';
 import { dataRoot, portsFor } from '../scripts/lib/stack';
 import { haversineDistance } from '../src/lib/swaps/distance';
 import { roundToKilometre, type LatLng } from '../src/lib/club/location';
-import { parseBoardQuery, type RadiusKm } from '../src/lib/swaps/board-filter';
-import { shownMetres } from '../src/lib/swaps/display';
+import { parseBoardQuery, type Radius } from '../src/lib/swaps/board-filter';
+import { shownFigure } from '../src/lib/swaps/display';
 import { DAY_MS } from '../src/lib/swaps/listing';
 
 const LISTINGS = 10_000;
@@ -29,7 +29,7 @@ const LISTINGS = 10_000;
 // The board's rule from a point, written out for the JavaScript full scan below: a radius keeps
 // what is shown at that figure or nearer, and the order is by shown figure, then newest first,
 // never by the exact distance (the nearby query does the same in SQL).
-const withinRadius = (shown: number, radiusKm: RadiusKm | null): boolean => radiusKm === null || shown <= radiusKm * 1000;
+const withinRadius = (shown: number, radius: Radius | null): boolean => radius === null || shown <= radius;
 const nearbyOrder = (a: { id: number; shown: number; createdAt: Date }, b: { id: number; shown: number; createdAt: Date }) =>
 	a.shown - b.shown || b.createdAt.getTime() - a.createdAt.getTime() || b.id - a.id;
 const RUNS = 40;
@@ -88,19 +88,19 @@ try {
 	for (let i = 0; i < rows.length; i += 1000) await db.insert(listings).values(rows.slice(i, i + 1000));
 	await handle.pool.query('ANALYZE TABLE listing');
 
-	const viewer = { id: viewerId };
-	const filter = { ...parseBoardQuery(new URLSearchParams()), radiusKm: 10 as const };
+	const viewer = { id: viewerId, units: 'metric' as const };
+	const filter = { ...parseBoardQuery(new URLSearchParams()), radius: 10 as const };
 	const where = await boardWhere(viewer, filter, centre, { db, now });
 
-	const nearby = () => nearbyQuery(where, centre, filter, { db, now });
+	const nearby = () => nearbyQuery(where, centre, filter, 'km', { db, now });
 	// The same page with the box pre-filter gone and the indexes ignored: every open listing's distance.
-	const shown = shownSql(distanceSql(centre));
+	const shown = shownSql(distanceSql(centre), 'km');
 	const fullScanSql = () =>
 		db
 			// Plain SQL columns: Drizzle would not let a column of `listing` select from a hinted table name.
 			.select({ id: sql<number>`${listings.id}`.mapWith(Number), shown })
 			.from(sql`${listings} IGNORE INDEX (listing_nearby_idx, listing_newest_idx, listing_owner_idx)`)
-			.where(sql`${listings.state} = 'open' AND ${listings.availableUntil} > ${now} AND ${shown} <= ${filter.radiusKm * 1000}`)
+			.where(sql`${listings.state} = 'open' AND ${listings.availableUntil} > ${now} AND ${shown} <= ${filter.radius}`)
 			.orderBy(sql`2`, desc(listings.createdAt), desc(listings.id))
 			.limit(20);
 	// Everything open fetched into JavaScript, filtered and sorted there.
@@ -110,8 +110,8 @@ try {
 			.from(listings)
 			.where(sql`${listings.state} = 'open' AND ${listings.availableUntil} > ${now}`);
 		return all
-			.map((l) => ({ id: l.id, createdAt: l.createdAt, shown: shownMetres(haversineDistance(centre, l)) }))
-			.filter((l) => withinRadius(l.shown, filter.radiusKm))
+			.map((l) => ({ id: l.id, createdAt: l.createdAt, shown: shownFigure(haversineDistance(centre, l), 'km') }))
+			.filter((l) => withinRadius(l.shown, filter.radius))
 			.sort(nearbyOrder)
 			.slice(0, 20);
 	};

@@ -15,6 +15,8 @@ declare global {
 		interface Error {
 			message: string;
 			errorId?: string;
+			/** Where to sign in, offered to a signed-out visitor instead of a bare "not found". */
+			signIn?: string;
 		}
 		// interface PageData {}
 		// interface PageState {}

@@ -15,8 +15,9 @@ import { countQueries } from '$lib/server/db/query-count';
 import { safeRedirectPath } from '$lib/club/redirect';
 import { checkRequests } from '$lib/server/http/requests';
 import { isPublic, responseHeaders } from '$lib/server/http/responses';
-import { log } from '$lib/server/ops/log';
+import { log, reason } from '$lib/server/ops/log';
 import { observeRequests, probes } from '$lib/server/ops/hooks';
+import { answerOutages, noteOutage } from '$lib/server/ops/outage';
 import { newRequestId } from '$lib/ops/request-id';
 import { startMetricsServer } from '$lib/server/ops/scrape';
 import { registerMediaScopes } from '$lib/server/media-scopes';
@@ -76,7 +77,8 @@ const onlyOurAuthPages: Handle = async ({ event, resolve }) => {
 const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'];
 
 /**
- * Resolves the session cookie into `locals.user` with one query (session joined to its member).
+ * Resolves the session cookie into `locals.user` with one query (session joined to its member);
+ * the time of use is written at most every few minutes, without holding up the response.
  * Auth.js's own session call is not used: it re-sends the cookie on every response, including
  * ones a shared cache may keep. The cookie is re-sent only when its end moves (once a day of
  * use) and never on a public response.
@@ -99,7 +101,12 @@ const resolveViewer: Handle = async ({ event, resolve }) => {
 	event.locals.sessionToken = token;
 	const response = await resolve(event);
 	const renew = sessions.renewalDue(session) && !isPublic(response);
-	const expires = await sessions.recordUse(token, session, event.request.headers.get('user-agent'), renew);
+	// The last-seen write (every few minutes) is off the read path; a renewal (once a day) is
+	// awaited, so the next request already sees the new end and does not renew again.
+	const { expires, written } = sessions.recordUse(token, session, event.request.headers.get('user-agent'), renew);
+	const recorded = written.catch((error: unknown) => log.warn({ reqId: event.locals.requestId, reason: reason(error) }, 'session use not recorded'));
+	if (expires) await recorded;
+	else void recorded;
 	if (expires) {
 		const cookie = event.cookies.serialize(cookieName, token, {
 			path: '/',
@@ -138,13 +145,15 @@ const askForDisplayName: Handle = async ({ event, resolve }) => {
 };
 
 // Outermost first: requests get their id and log line, statements are counted, and every
-// response, Auth.js's included, leaves through responseHeaders. The sections (/admin, /judging)
+// response, Auth.js's included, leaves through responseHeaders. While MariaDB is away, what needs
+// it answers 503 "we'll be right back" (answerOutages). The sections (/admin, /judging)
 // are guarded once the viewer is known; every route checks again.
 export const handle: Handle = sequence(
 	observeRequests,
 	countQueries,
 	responseHeaders,
 	probes,
+	answerOutages,
 	checkRequests,
 	onlyOurAuthPages,
 	authHandle,
@@ -157,6 +166,8 @@ export const handle: Handle = sequence(
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	// Set by observeRequests, first in the sequence; the fallback only guards against a reordering.
 	const errorId = event.locals.requestId ?? newRequestId();
+	// The database is away: answerOutages turns this into the 503 page; a warning, not an error.
+	if (noteOutage(event, error)) return { message: 'We will be right back.', errorId };
 	if (status >= 500) {
 		// Query strings can carry sign-in tokens: the route id only, never the URL.
 		log.error({ reqId: errorId, method: event.request.method, route: event.route.id, err: error }, 'unexpected error');

@@ -14,6 +14,7 @@ import type { MySqlTable } from 'drizzle-orm/mysql-core';
 import pLimit from 'p-limit';
 import { connect } from '../../src/lib/server/db';
 import { seedRuns } from '../../src/lib/server/db/meta';
+import { renderStoredMarkdown } from '../../src/lib/server/markdown-fields';
 import { clubAreas, users } from '../../src/lib/server/club/schema';
 import { species } from '../../src/lib/server/species/schema';
 import {
@@ -59,7 +60,7 @@ const int = (a: number, b: number) => Math.floor(between(a, b + 1));
 const dayOf = (d: Date) => d.toISOString().slice(0, 10);
 const round = (x: number, step: number) => Math.round(x / step) * step;
 
-const { db, close } = connect();
+const { db, pool, close } = connect();
 const now = new Date();
 const today = Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate());
 const timings: { what: string; rows: number; ms: number }[] = [];
@@ -618,6 +619,14 @@ try {
 				rows.map(({ prepared: _, ...row }) => row)
 			);
 		}
+	);
+
+	// The bulk rows above carry markdown without its stored HTML; render it as the migration runner
+	// does for rows written by SQL.
+	await timed(
+		'stored markdown HTML',
+		() => SIZES.entries + SIZES.comments,
+		() => renderStoredMarkdown(pool)
 	);
 
 	await db.execute(

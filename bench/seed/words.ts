@@ -86,7 +86,7 @@ export const TANK_WORDS_B = [
 	'pool',
 	'ridge'
 ];
-export const STYLES = ['nature', 'iwagumi', 'jungle', 'biotope', 'nano', 'dutch', ''];
+export const STYLES = ['wood and stone', 'iwagumi', 'jungle', 'biotope', 'nano', 'stem garden', ''];
 
 export const ENTRY_TITLES = [
 	'Weekly water change',

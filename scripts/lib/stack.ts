@@ -61,9 +61,6 @@ const envPort = (name: string, fallback: number) => {
 	return port;
 };
 
-/** Extra ports after the app's: the bench's second and cluster instances use app + 1 … app + 4. */
-export const BENCH_EXTRA_PORTS = 4;
-
 export function portsFor(mode: StackMode): Ports {
 	if (mode === 'start') {
 		return {
@@ -120,7 +117,16 @@ export function hashTree(hash: ReturnType<typeof createHash>, path: string) {
 function sourceHash(): string {
 	const hash = createHash('sha256');
 	const app = ['src', 'static', 'svelte.config.js', 'vite.config.ts', 'tailwind.config.ts', 'package.json', 'package-lock.json'];
-	const databaseScripts = ['drizzle', 'scripts/migrate.ts', 'scripts/seed.ts', 'scripts/seed', 'vite.scripts.config.ts'];
+	const databaseScripts = [
+		'drizzle',
+		'scripts/migrate.ts',
+		'scripts/seed.ts',
+		'scripts/seed',
+		'scripts/backup.ts',
+		'scripts/restore.ts',
+		'scripts/lib/backup.ts',
+		'vite.scripts.config.ts'
+	];
 	for (const item of [...app, ...databaseScripts]) {
 		hashTree(hash, join(root, item));
 	}
@@ -144,13 +150,6 @@ export function ensureBuild(): void {
 	}
 	writeFileSync(marker, current);
 	ok('Built.');
-}
-
-export function runNodeScript(script: string, env: NodeJS.ProcessEnv, what: string, args: string[] = []) {
-	const result = spawnSync(process.execPath, ['--import', 'tsx', join(root, script), ...args], { cwd: root, env, stdio: 'inherit' });
-	if (result.status !== 0) {
-		throw new SetupError(`${what} failed (see above).`, 'Fix the error shown above and run the command again.');
-	}
 }
 
 /** Runs a built script (build/scripts/*.js) with plain Node, as `npm run db:migrate` does in production. */

@@ -82,11 +82,11 @@ const STONES: Shape[] = [
 	{ l: 90, w: 45, h: 45, glass: 10, substrate: 8, rock: 14, style: 'iwagumi' }
 ];
 const OPEN: Shape[] = [
-	{ l: 90, w: 45, h: 50, glass: 10, substrate: 7, rock: 10, style: 'nature' },
-	{ l: 120, w: 50, h: 55, glass: 12, substrate: 8, rock: 18, style: 'dutch' },
+	{ l: 90, w: 45, h: 50, glass: 10, substrate: 7, rock: 10, style: 'wood and stone' },
+	{ l: 120, w: 50, h: 55, glass: 12, substrate: 8, rock: 18, style: 'stem garden' },
 	{ l: 70, w: 35, h: 40, glass: 6, substrate: 5, rock: 3, style: 'jungle' },
 	{ l: 80, w: 40, h: 45, glass: 8, substrate: 6, rock: 8, style: 'biotope' },
-	{ l: 100, w: 40, h: 45, glass: 10, substrate: 7, rock: 12, style: 'nature' }
+	{ l: 100, w: 40, h: 45, glass: 10, substrate: 7, rock: 12, style: 'wood and stone' }
 ];
 
 const TANK_NAMES = [
@@ -207,6 +207,7 @@ function tankInput(name: string, shape: Shape, setUpOn: string, visibility: Tank
 		hardscape: shape.style === 'iwagumi' ? 'Grey stones' : 'Stones and wood',
 		hardscapeLitres: shape.rock,
 		heaterWatts: shape.l >= 60 ? 100 : null,
+		heaterSetC: shape.l >= 60 ? 24 : null,
 		heaterNote: '',
 		co2Method: shape.l >= 60 ? 'pressurised' : 'none',
 		co2BubblesPerSecond: shape.l >= 60 ? 1.5 : null,

@@ -34,7 +34,7 @@ const TANKS: DemoTank[] = [
 		alt: 'A long tank with tall green and red stem plants behind two grey stones, a low lawn in front and a small shoal of orange fish.',
 		input: {
 			name: 'Reedholme riverbank',
-			style: 'nature',
+			style: 'wood and stone',
 			setUpOn: '2026-01-24',
 			lengthCm: 90,
 			widthCm: 45,
@@ -46,7 +46,8 @@ const TANKS: DemoTank[] = [
 			hardscape: 'Two grey stones and a branch of driftwood',
 			hardscapeLitres: 12,
 			heaterWatts: 200,
-			heaterNote: 'set to 24 °C',
+			heaterSetC: 24,
+			heaterNote: '',
 			co2Method: 'pressurised',
 			co2BubblesPerSecond: 2,
 			waterLitres: null,
@@ -94,6 +95,7 @@ const TANKS: DemoTank[] = [
 			hardscape: 'Seven pale rocks',
 			hardscapeLitres: 7.57,
 			heaterWatts: 75,
+			heaterSetC: 23.5,
 			heaterNote: '',
 			co2Method: 'pressurised',
 			co2BubblesPerSecond: 1.5,
@@ -131,6 +133,7 @@ const TANKS: DemoTank[] = [
 			hardscape: 'One rock with moss',
 			hardscapeLitres: 0.8,
 			heaterWatts: null,
+			heaterSetC: null,
 			heaterNote: 'unheated',
 			co2Method: 'none',
 			co2BubblesPerSecond: null,
@@ -190,7 +193,7 @@ type MoreTank = DemoTank & { ageDays: number; weeks: number };
 
 const base = (over: Partial<TankInput>): Omit<TankInput, 'plants' | 'livestock'> => ({
 	name: 'Demo tank',
-	style: 'nature',
+	style: 'wood and stone',
 	setUpOn: null,
 	lengthCm: 60,
 	widthCm: 30,
@@ -202,6 +205,7 @@ const base = (over: Partial<TankInput>): Omit<TankInput, 'plants' | 'livestock'>
 	hardscape: '',
 	hardscapeLitres: null,
 	heaterWatts: 100,
+	heaterSetC: 25,
 	heaterNote: '',
 	co2Method: 'none',
 	co2BubblesPerSecond: null,
@@ -286,7 +290,7 @@ const MORE_TANKS: MoreTank[] = [
 		alt: 'Terraced rows of plants in different greens and reds, like a planted garden bed, in front of a plain background.',
 		input: base({
 			name: 'Fenwick terraces',
-			style: 'dutch',
+			style: 'stem garden',
 			lengthCm: 120,
 			widthCm: 50,
 			heightCm: 55,
@@ -379,7 +383,7 @@ const MORE_TANKS: MoreTank[] = [
 		alt: 'Driftwood arching over a sloped sand path between green cushions of plants, with a shoal of slim silver fish.',
 		input: base({
 			name: 'Reedholme path',
-			style: 'nature',
+			style: 'wood and stone',
 			lengthCm: 90,
 			widthCm: 45,
 			heightCm: 45,
@@ -444,7 +448,7 @@ const MORE_TANKS: MoreTank[] = [
 		alt: 'A wide, shallow tank with a carpet of round leaves, grey stones and tall grass at the back.',
 		input: base({
 			name: 'Shallow meadow',
-			style: 'nature',
+			style: 'wood and stone',
 			lengthCm: 90,
 			widthCm: 40,
 			heightCm: 30,

@@ -31,7 +31,8 @@ const SI_2014_538 = 'Wildlife and Countryside Act 1981 (Variation of Schedule 9)
 const FNWL = 'Federal Noxious Weed List, 7 CFR 360.200';
 
 const EU_NOTE = 'A species of Union concern may not be kept, bred, transported, sold, exchanged or released anywhere in the EU (Article 7 of the Regulation).';
-const ENGLAND_NOTE = 'Its sale is banned in England, and under the Act selling includes exchanging (from memory). Never plant or release it in the wild.';
+// That selling includes exchanging under the Act is from memory, not checked against the Act's text.
+const ENGLAND_NOTE = 'Its sale is banned in England, and under the Act selling includes exchanging. Never plant or release it in the wild.';
 const US_NOTE =
 	'A federal noxious weed: moving it into the US or between states needs a permit, and many states ban it outright. Check your state’s list before any swap.';
 

@@ -21,7 +21,7 @@ export function dayOf(at: Date, timeZone = 'UTC'): string {
 /** Today, in `timeZone`. */
 export const today = (timeZone = 'UTC', now: Date = new Date()) => dayOf(now, timeZone);
 
-/** Whether a string names a real IANA time zone this runtime knows. */
+/** Whether a string names a real IANA time zone this runtime knows (the account's time zone setting). */
 export function isTimeZone(name: string): boolean {
 	try {
 		new Intl.DateTimeFormat('en', { timeZone: name });

@@ -1,5 +1,34 @@
 import { describe, expect, test } from 'vitest';
-import { describeUserAgent, maskEmail } from './format';
+import { counted, describeUserAgent, formatDate, formatDateTime, maskEmail, zoneName } from './format';
+
+// Offsets checked against the IANA time zone database as the runtime's ICU carries it: New Zealand
+// keeps daylight time (UTC+13) in December, New York standard time (UTC−5); India is UTC+5:30 all year.
+describe('times in the viewer’s zone', () => {
+	const at = new Date('2026-12-03T13:05:00Z');
+	test('a moment in the viewer’s zone, the zone named', () => {
+		expect(formatDateTime(at)).toBe('3 Dec 2026, 13:05 UTC');
+		expect(formatDateTime(at, 'Pacific/Auckland')).toBe('4 Dec 2026, 02:05 GMT+13');
+		expect(formatDateTime(at, 'America/New_York')).toBe('3 Dec 2026, 08:05 GMT-5');
+		expect(formatDateTime(new Date('2026-07-03T13:05:00Z'), 'Europe/London')).toBe('3 Jul 2026, 14:05 BST');
+		expect(zoneName(at, 'Asia/Kolkata')).toBe('GMT+5:30');
+		expect(formatDateTime(null, 'Pacific/Auckland')).toBe('—');
+	});
+	test('a moment’s day is the viewer’s day; a day stays that day in every zone', () => {
+		expect(formatDate(at, 'Pacific/Auckland')).toBe('4 Dec 2026');
+		expect(formatDate(at, 'UTC')).toBe('3 Dec 2026');
+		expect(formatDate('2026-12-03', 'Pacific/Honolulu')).toBe('3 Dec 2026');
+		expect(formatDate('2026-12-03', 'Pacific/Kiritimati')).toBe('3 Dec 2026');
+	});
+});
+
+describe('counted', () => {
+	test('one of a thing, and many', () => {
+		expect(counted(1, 'unread message')).toBe('1 unread message');
+		expect(counted(0, 'unread message')).toBe('0 unread messages');
+		expect(counted(1200, 'stem')).toBe('1,200 stems');
+		expect(counted(2, 'person', 'people')).toBe('2 people');
+	});
+});
 
 describe('maskEmail', () => {
 	test('keeps the first and last letter of the local part and the whole domain', () => {

@@ -6,6 +6,8 @@ import * as tanks from '$lib/server/journals/tanks';
 import * as entries from '$lib/server/journals/journal-entries';
 import * as showcase from '$lib/server/journals/showcase';
 import * as upkeep from '$lib/server/journals/upkeep';
+import * as judging from '$lib/server/contests/judging';
+import * as threads from '$lib/server/swaps/threads';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Upkeep due within this many days shows on the dashboard. */
@@ -21,18 +23,25 @@ export const load = (async ({ locals }) => {
 		return { dashboard: null, showcase: cards.slice(0, 3) };
 	}
 	const now = new Date();
-	const [scheduled, mine, followed] = await Promise.all([
+	const [scheduled, mine, followed, judged, swapNews] = await Promise.all([
 		upkeep.scheduleOf(viewer, { now }),
 		tanks.listOwn(viewer, { retired: false }),
-		entries.recentFollowed(viewer)
+		entries.recentFollowed(viewer),
+		judging.myContests(viewer),
+		threads.unreadOnOwnListings(viewer.id)
 	]);
+	const judgingNow = judged.filter((c) => c.state === 'judging' && c.toScore > c.submitted);
 	const withSchedule = new Set(scheduled.map((s) => s.task.tankIdNumber));
 	return {
 		dashboard: {
 			due: upkeep.dueWithin(scheduled, SOON_DAYS),
 			laterCount: scheduled.length - upkeep.dueWithin(scheduled, SOON_DAYS).length,
 			tanks: mine.map((t) => ({ id: t.id, name: t.name, cover: t.cover, scheduled: withSchedule.has(t.id) })),
-			followed
+			followed,
+			// Cards a judge still owes in contests being judged, and conversations on the member's listings with news.
+			cardsWaiting: judgingNow.reduce((n, c) => n + c.toScore - c.submitted, 0),
+			judgingContests: judgingNow.length,
+			swapNews
 		},
 		showcase: []
 	};
@@ -52,8 +61,7 @@ export const actions = {
 			const viewer = requireUser(event);
 			const { taskId } = parseForm(doneForm, data);
 			// Another member's task, or one that is gone, is "not found" (upkeep refuses it so).
-			await upkeep.markDone(viewer, taskId);
-			return { done: taskId };
+			return { done: await upkeep.markDone(viewer, taskId) };
 		},
 		{ id: 'done' }
 	)

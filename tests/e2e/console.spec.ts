@@ -39,7 +39,8 @@ async function walk(page: Page, limit: number): Promise<{ visited: string[]; pro
 
 for (const who of ['mara.quillfeather@kettlewater.test', 'sefa.lindqvoss@kettlewater.test', 'oriel.vantwist@kettlewater.test', null]) {
 	test(`no page asks the browser for anything our CSP refuses (${who ?? 'signed out'})`, async ({ browser }) => {
-		test.setTimeout(120_000);
+		// A crawl of every page a role reaches; the limit only catches a hang.
+		test.setTimeout(600_000);
 		const context = who ? await contextFor(browser, await personByEmail(who)) : await browser.newContext();
 		const page = await context.newPage();
 		const { visited, problems } = await walk(page, 45);

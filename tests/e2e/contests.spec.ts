@@ -76,11 +76,13 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 		await page.getByLabel(new RegExp(`${member.displayName}'s tank`)).check();
 		await expect(page.getByLabel(/Any size/)).toBeChecked();
 		await page.locator('input[type=file]').setInputFiles({ name: 'front.jpg', mimeType: 'image/jpeg', buffer: photo });
-		await expect(page.getByTestId('first-photo-label')).toHaveText('Full-front view');
+		await expect(page.getByTestId('first-photo-label')).toHaveText('Whole tank, from the front');
 		await expect(page.locator('input[type=hidden][name="photos[0][id]"]')).toHaveCount(1, { timeout: 15_000 });
 		await page.getByLabel('Statement for the judges', { exact: true }).fill('Stems behind a low lawn.');
 		await page.getByRole('button', { name: 'Enter this tank' }).click();
-		await expect(page.getByText('Your tank is entered.')).toBeVisible();
+		// One notice says both what happened and what may still be done.
+		await expect(page.getByTestId('entry-status')).toHaveText(/^Your tank is entered\. You can change or withdraw it until /);
+		await expect(page.locator('.notice')).toHaveCount(1);
 		await page.context().close();
 	}
 
@@ -156,6 +158,8 @@ test('a contest from set-up to announced results: rubric, panel, entries, blind 
 	await adminPage.getByRole('checkbox').check();
 	await adminPage.getByRole('button', { name: 'Send the announcement' }).click();
 	await expect(adminPage.getByTestId('announce-sent')).toBeVisible();
+	// The page follows delivery by itself while mail waits: no reload here.
+	await expect(adminPage.getByTestId('delivery-summary')).toHaveText(/^\d+ delivered · 0 waiting · 0 gave up$/, { timeout: 60_000 });
 	const first = await waitForMail(members[0]!.email, { subject: /Your result/, timeoutMs: 60_000 });
 	expect(first.text).toContain('placed 1st of 2 with 76.00 %');
 	const second = await waitForMail(members[1]!.email, { subject: /Your result/, timeoutMs: 60_000 });

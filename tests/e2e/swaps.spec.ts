@@ -88,7 +88,7 @@ test('a swap from posting to handover: photo, radius filter, request, acceptance
 	await expect(askerPage.getByTestId('messages')).toContainText('Pickup proposed:');
 	await ownerPage.reload();
 	await ownerPage.getByRole('button', { name: 'Confirm this pickup' }).click();
-	await expect(ownerPage.getByTestId('agreed-pickup')).toContainText('10:00–11:00, at the library entrance');
+	await expect(ownerPage.getByTestId('agreed-pickup')).toContainText('10:00–11:00 local time (UTC), at the library entrance');
 
 	// After the handover both confirm.
 	await ownerPage.getByRole('button', { name: 'Confirm the handover' }).click();

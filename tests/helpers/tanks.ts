@@ -4,7 +4,7 @@ import type { TankInput } from '../../src/lib/journals/tank-input';
 export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
 	return {
 		name: 'Test tank',
-		style: 'nature',
+		style: 'wood and stone',
 		setUpOn: '2026-01-15',
 		lengthCm: 60,
 		widthCm: 30,
@@ -16,6 +16,7 @@ export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
 		hardscape: 'Two stones',
 		hardscapeLitres: 3,
 		heaterWatts: 100,
+		heaterSetC: 24,
 		heaterNote: '',
 		co2Method: 'none',
 		co2BubblesPerSecond: null,

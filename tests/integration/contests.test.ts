@@ -6,7 +6,8 @@ import { parse } from 'csv-parse/sync';
 import { db } from '../../src/lib/server/db';
 import { auditLog } from '../../src/lib/server/audit/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
-import { contestCards } from '../../src/lib/server/contests/schema';
+import { contestCards, contestEntries } from '../../src/lib/server/contests/schema';
+import { tanks } from '../../src/lib/server/journals/schema';
 import * as contests from '../../src/lib/server/contests/contests';
 import * as entries from '../../src/lib/server/contests/contest-entries';
 import * as judging from '../../src/lib/server/contests/judging';
@@ -501,7 +502,8 @@ describe('announcement', () => {
 		const queued = (await rows()).filter((r) => r.toAddress === winner.email);
 		expect(queued.map((r) => r.topic).sort()).toEqual([`contest:${f.contestId}:results:announce`, `contest:${f.contestId}:results:entrant`]);
 		const general = queued.find((r) => r.topic!.endsWith(':announce'))!;
-		expect(general.headers!['List-Unsubscribe']).toMatch(/^<http.*\/unsubscribe\/[0-9a-f]{32}\?kind=announcements>$/);
+		expect(general.headers!['List-Unsubscribe']).toMatch(/^<http.*\/unsubscribe\/[\w-]+\.announcements\.[\w-]{43}>$/);
+		expect(general.headers!['List-Unsubscribe-Post']).toBe('List-Unsubscribe=One-Click');
 		expect(general.textBody).toContain('Unsubscribe:');
 		expect(queued.find((r) => r.topic!.endsWith(':entrant'))!.headers).toBeNull();
 		// Delivered through the outbox to the mail fake (every member gets the announcement, so allow time).
@@ -509,7 +511,7 @@ describe('announcement', () => {
 		expect(personal.text).toContain('placed 1st of 3');
 		expect(personal.text).toContain(`/contests/${f.contestId}/entries/${f.entries[2]!.entryId}`);
 		const delivered = await waitForMail(winner.email, { subject: /^Results: /, timeoutMs: 90_000 });
-		expect(delivered.headers['list-unsubscribe']).toMatch(/\/unsubscribe\/[0-9a-f]{32}\?kind=announcements/);
+		expect(delivered.headers['list-unsubscribe']).toMatch(/\/unsubscribe\/[\w-]+\.announcements\.[\w-]{43}>/);
 
 		const status = await (
 			await request(`/admin/contests/${f.contestId}/announce?address=${encodeURIComponent(winner.email)}`, { cookie: f.admin.cookie })
@@ -602,5 +604,65 @@ test('the review computes the same results as the pure functions on the stored c
 	expect(report.unevenPanel).toBe(true);
 	const page = await (await request(`/admin/contests/${f.contestId}/results`, { cookie: f.admin.cookie })).text();
 	expect(page).toContain('Ranking basis');
-	expect(page).toContain('Kendall’s W');
+	expect(page).toContain('Kendall’s coefficient of concordance W');
+
+	// Members read the results in the club's words: places adjusted for each judge's strictness,
+	// the method folded away, and no signed standardised figure (nor in the page's data).
+	await transition(viewerOf(f.admin), f.contestId, 'publish');
+	const signed = /[−+-]\d+\.\d{3}\b/;
+	for (const path of [`/contests/${f.contestId}`, `/contests/${f.contestId}/results/${f.categories[1]}`]) {
+		const html = await (await request(path)).text();
+		expect(html).toContain('How places are worked out');
+		expect(html).not.toMatch(signed);
+		expect(html).not.toContain('standardised');
+		expect(html).not.toContain('Kendall');
+	}
+	const category = await (await request(`/contests/${f.contestId}/results/${f.categories[1]}`)).text();
+	expect(category).toContain('Adjusted for each judge’s strictness:');
+	const review = await (await request(`/admin/contests/${f.contestId}/results`, { cookie: f.admin.cookie })).text();
+	const empty = review.slice(review.indexOf('data-testid="agreement"'), review.indexOf('</p>', review.indexOf('data-testid="agreement"')));
+	expect(empty.replace(/<!--.*?-->/g, '')).toContain('No entries in this category, so there is nothing to compare.');
+});
+
+test('after publication a results row links to the tank only while its journal is public', async () => {
+	const f = await contestFixture({ judges: 2, entrantNames: ['Linked Entrant', 'Private Entrant'] });
+	const entryRows = await db
+		.select({ id: contestEntries.id, tankId: contestEntries.tankId })
+		.from(contestEntries)
+		.where(eq(contestEntries.contestId, f.contestId));
+	const tankOf = (entryId: number) => entryRows.find((r) => r.id === entryId)!.tankId!;
+	const publicTank = tankOf(f.entries[0]!.entryId);
+	const clubTank = tankOf(f.entries[1]!.entryId);
+	await db.update(tanks).set({ visibility: 'public' }).where(eq(tanks.id, publicTank));
+	await scoreAll(f, (j, e) => [6 + e, 3]);
+
+	// Before publication there are no results, and no page names the tanks.
+	expect(await publicResults(f.contestId)).toBeNull();
+	await transition(viewerOf(f.admin), f.contestId, 'publish');
+	const results = (await publicResults(f.contestId))!;
+	const open = results.categories.find((c) => c.id === f.categories[1])!;
+	const linkOf = (entryId: number) => open.entries.find((e) => e.entryId === entryId)!.publicTankId;
+	expect(linkOf(f.entries[0]!.entryId)).toBe(publicTank);
+	expect(linkOf(f.entries[1]!.entryId)).toBeNull();
+
+	const page = await (await request(`/contests/${f.contestId}/results/${f.categories[1]}`)).text();
+	expect(page).toContain(`href="/journals/${publicTank}"`);
+	expect(page).not.toContain(`/journals/${clubTank}`);
+});
+
+test('a judge is told on the dashboard and the judging page how many cards wait for them', async () => {
+	const f = await contestFixture({ judges: 1, entrantNames: ['Waiting One', 'Waiting Two'] });
+	const judge = f.judges[0]!;
+	const home = await (await request('/', { cookie: judge.cookie })).text();
+	expect(home).toMatch(/data-testid="cards-waiting"[^>]*>\s*(<!--[^>]*-->)?\s*\d+\s*(<!--[^>]*-->)?\s*cards wait for your scores/);
+	const before = Number(/data-testid="cards-waiting"[^>]*>\s*(?:<!--[^>]*-->)?\s*(\d+)/.exec(home)![1]);
+	// Submitting one card leaves one fewer waiting.
+	const saved = await judging.saveCard(viewerOf(judge), f.contestId, f.entries[0]!.number!, {
+		baseVersion: 0,
+		saveId: crypto.randomUUID(),
+		fields: fields(f.criteria, [7, 3])
+	});
+	await judging.submitCard(viewerOf(judge), f.contestId, f.entries[0]!.number!, saved.version);
+	const after = await (await request('/judging', { cookie: judge.cookie })).text();
+	expect(Number(/data-testid="cards-waiting"[^>]*>\s*(?:<!--[^>]*-->)?\s*(\d+)/.exec(after)![1])).toBe(before - 1);
 });

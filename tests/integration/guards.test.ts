@@ -12,6 +12,9 @@ import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
+import * as plans from '../../src/lib/server/away/plans';
+import { dayNumber, isoDay } from '../../src/lib/journals/calc';
+import { today } from '../../src/lib/dates';
 
 import * as judging from '../../src/lib/server/contests/judging';
 import { cardIdOf, contestFixture, fields, photoOf, viewerOf as contestViewer, type Fixture } from '../helpers/contests';
@@ -59,14 +62,20 @@ const judgeApi = (status: number) => ({ anonymous: 401, member: 403, judge: stat
 const blankCard = { baseVersion: 0, saveId: 'guard-test-save', fields: { scores: {}, comments: {}, entrantComment: '', panelNote: '' } };
 /** A photo target uploaded and has not saved with anything yet: only its uploader may see it. */
 let pendingPhoto: number;
+/** A care plan of target's for that tank, nobody asked to look in. */
+let targetPlan: number;
 const everyone = (status: number) => ({ anonymous: status, member: status, judge: status, admin: status });
 
 const rows: Row[] = [
 	{ path: '/account', expect: signedIn(200) },
 	{ path: '/welcome', expect: signedIn(200) },
+	{ path: '/account/data', expect: signedIn(200) },
+	// A confirmation that is not the visitor's name is refused at its field; nothing is deleted.
+	{ method: 'POST', path: '/account/data?/delete', form: () => ({ confirm: 'not my name' }), expect: signedIn(400) },
 	{ path: '/admin', expect: adminOnly(200) },
 	{ path: '/admin/members', expect: adminOnly(200) },
 	{ path: '/admin/mail', expect: adminOnly(200) },
+	{ path: '/admin/mail/999999999', expect: adminOnly(404) },
 	{
 		method: 'POST',
 		path: '/admin/members?/role',
@@ -122,6 +131,7 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/unsubscribe/0123456789abcdef0123456789abcdef', form: () => ({ announcements: 'on' }), expect: hidden },
 	{ path: '/media/:photo/thumb', expect: hidden },
 	{ path: '/api/me', api: true, expect: { anonymous: 401, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/api/me/time-zone', api: true, json: { timeZone: 'Europe/Lisbon' }, expect: apiSignedIn(200) },
 	{ path: '/journals', expect: signedIn(200) },
 	{ path: '/journals/new', expect: signedIn(200) },
 	{ method: 'POST', path: '/journals/new', form: () => ({ name: '' }), expect: signedIn(400) },
@@ -138,6 +148,7 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/?/done', form: () => ({ taskId: String(targetTask) }), expect: notOwner },
 	{ path: '/journals/showcase', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals/dose?tank=:tank', expect: { anonymous: 200, member: 200, judge: 200, admin: 200 } },
+	{ method: 'POST', path: '/journals/dose?/log', form: () => ({ tank: String(targetTank), salt: 'KNO3', grams: '1' }), expect: notOwner },
 	{ path: '/journals/:tank', expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
 	{ path: '/journals/:tank/feed.xml', expect: hidden },
 	{ path: '/api/tanks/:tank/water-tests', api: true, expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
@@ -251,9 +262,30 @@ const rows: Row[] = [
 	{ path: '/admin/contests/:contest/cards/:card', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/contests/:contest/cards/:card', form: () => ({ reason: '' }), expect: adminOnly(400) },
 	{ path: '/admin/contests/:contest/announce', expect: adminOnly(200) },
+	{ path: '/admin/contests/:contest/announce/status', expect: adminOnly(200) },
 	{ method: 'POST', path: '/admin/contests/:contest/announce?/send', form: () => ({}), expect: adminOnly(400) },
 	{ path: '/admin/contests/:contest/export/results', expect: adminOnly(200) },
-	{ path: '/admin/contests/:contest/export/cards', expect: adminOnly(200) }
+	{ path: '/admin/contests/:contest/export/cards', expect: adminOnly(200) },
+	// Away care: a care plan is its keeper's, and a sitter's once they said yes; admins have no view of it.
+	{ path: '/journals/:tank/away', expect: notOwner },
+	{
+		method: 'POST',
+		path: '/journals/:tank/away',
+		form: () => ({ startsOn: '2026-01-01', endsOn: '2026-01-02', feeding: 'none', lighting: 'keep' }),
+		expect: notOwner
+	},
+	{ path: '/away', expect: signedIn(200) },
+	{ method: 'POST', path: '/away?/answer', form: () => ({ request: '999999999', answer: 'yes' }), expect: notOwner },
+	{ method: 'POST', path: '/away?/helper', form: () => ({ helper: 'off' }), expect: signedIn(200) },
+	{ path: '/away/:plan', expect: notOwner },
+	{ path: '/away/:plan/print', expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/save', form: () => ({ body: 'Taken over' }), expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/ask', form: () => ({ sitterId: 'nobody' }), expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/withdraw', form: () => ({ request: '1' }), expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/share', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/unshare', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/visit', form: () => ({ done: 'Looked', note: 'x' }), expect: notOwner },
+	{ path: '/away/shared/not-a-real-token-of-any-plan-00000', expect: everyone(404) }
 ];
 
 beforeAll(async () => {
@@ -281,6 +313,15 @@ beforeAll(async () => {
 	});
 	cardId = await cardIdOf(contest.entries[0]!.entryId, contest.judges[0]!.id);
 	pendingPhoto = (await photoOf(target)).id;
+	const todayNumber = dayNumber(today());
+	targetPlan = await plans.start(keeper, targetTank, {
+		startsOn: isoDay(todayNumber + 1),
+		endsOn: isoDay(todayNumber + 6),
+		feeding: 'none',
+		lighting: 'keep',
+		keeperPhone: '',
+		evaporationLitresPerDay: null
+	});
 });
 
 /** A row's path with its placeholders filled in. */
@@ -296,7 +337,8 @@ const pathOf = (row: Row) =>
 		.replaceAll(':number', String(contest.entries[0]!.number))
 		.replaceAll(':category', String(contest.categories[0]))
 		.replaceAll(':card', String(cardId))
-		.replaceAll(':photo', String(pendingPhoto));
+		.replaceAll(':photo', String(pendingPhoto))
+		.replaceAll(':plan', String(targetPlan));
 
 describe('the guard table', () => {
 	let operations: Operation[];

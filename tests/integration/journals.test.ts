@@ -7,6 +7,7 @@ import { XMLParser, XMLValidator } from 'fast-xml-parser';
 import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
+import { unsubscribeToken } from '../../src/lib/server/mail/unsubscribe';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
@@ -330,12 +331,19 @@ describe('water tests', () => {
 		const page = await (await request(`/journals/${tankId}`, { cookie: us.cookie })).text();
 		expect(page).toContain('data-testid="co2-estimate"');
 		expect(page).toContain('data-testid="ammonia-estimate"');
-		expect(page).toMatch(/Total ammonia \(NH₃\/NH₄⁺\) read 1 mg\/L: a level that harms fish/);
+		// 1 mg/L total at pH 7.8 and 28 °C: pKa 0.09018 + 2729.92 / 301.15 = 9.155 (Emerson et al. 1975), so 4.23 % is NH3,
+		// 0.042 mg/L: above the 0.02 concern level (common practice, no source), below the 0.05 of IFAS circular FA16.
+		expect(page).toMatch(/Total ammonia read 1 mg\/L\. At pH 7\.8 and 28 °C, 0\.042 mg\/L of it is un-ionised ammonia/);
+		expect(page).not.toMatch(/Total ammonia[^<]*a level that harms fish/);
 		expect(page).toMatch(/Nitrite \(NO₂\) read 0.5 mg\/L: a level that harms fish/);
 		const api = await (await request(`/api/tanks/${tankId}/water-tests`, { cookie: us.cookie, accept: 'application/json' })).json();
 		const temp = api.series.find((s: { parameter: string }) => s.parameter === 'temperature');
 		expect(temp).toMatchObject({ unit: '°F', points: [{ on: daysAgo(1), value: 82.4, status: 'in-band' }] });
-		expect(api.series.find((s: { parameter: string }) => s.parameter === 'ammonia')).toMatchObject({ dangerous: 1, band: { low: 0, high: 0.05 } });
+		expect(api.series.find((s: { parameter: string }) => s.parameter === 'ammonia')).toMatchObject({
+			dangerous: 0,
+			outOfBand: 1,
+			band: { low: 0, high: 0.05 }
+		});
 	});
 });
 
@@ -512,9 +520,9 @@ describe('the weekly digest', () => {
 		expect(mail.text).toContain('• Digest tank: Water change — overdue by 3 days');
 		expect(mail.text).not.toContain('Trim the stems');
 		expect(mail.text).toMatch(/• Followed for digest: Fresh stones — http\S+\/journals\/\d+\/entries\/\d+/);
-		const [{ token }] = (await db.select({ token: users.unsubscribeToken }).from(users).where(eq(users.id, reader.id))) as [{ token: string }];
-		expect(mail.text).toContain(`/unsubscribe/${token}?kind=digest`);
-		expect(mail.headers['list-unsubscribe']).toContain(`/unsubscribe/${token}?kind=digest`);
+		const token = unsubscribeToken(reader.id, 'digest');
+		expect(mail.text).toContain(`/unsubscribe/${token}`);
+		expect(mail.headers['list-unsubscribe']).toContain(`/unsubscribe/${token}>`);
 
 		// A second run in the same week queues nothing more; the quiet member had nothing to hear about.
 		await digest.sendWeeklyDigests({ now: new Date(now.getTime() + 3_600_000) });

@@ -247,7 +247,7 @@ describe('an instance with a MariaDB of its own', () => {
 		expect(await allowed.text()).toContain('riparia_ready_check');
 	});
 
-	test('/readyz follows MariaDB going away and coming back; a page that needs it shows its reference', async () => {
+	test('/readyz follows MariaDB going away and coming back; a page that needs it answers 503 with its reference', async () => {
 		const ready = await poll(async () => {
 			const r = await readyz();
 			return r.status === 200 ? r : null;
@@ -270,13 +270,19 @@ describe('an instance with a MariaDB of its own', () => {
 		// The public answer names no host or port.
 		expect(JSON.stringify(down.body)).not.toMatch(new RegExp(`127\\.0\\.0\\.1|ECONNREFUSED|${dbPort}`));
 
+		// A page that needs it: "we'll be right back" (503), with its reference; a warning in the log, not a stack.
 		const page = await fetch(`${app!.url}/journals/showcase`);
-		expect(page.status).toBe(500);
+		expect(page.status).toBe(503);
 		const id = page.headers.get('x-request-id')!;
 		expect(referenceOn(await page.text())).toBe(id);
-		const lines = await logLinesOf(app!.logFile, id);
-		expect(lines.map((l) => l.msg)).toEqual(expect.arrayContaining(['unexpected error', 'request']));
-		expect(lines.find((l) => l.msg === 'request')).toMatchObject({ level: 'error', route: '/journals/showcase', status: 500 });
+		// The request line is written once the answer is sent, after the warning.
+		const lines = await poll(async () => {
+			const found = await logLinesOf(app!.logFile, id);
+			return found.some((l) => l.msg === 'request') ? found : null;
+		}, 'the request line');
+		expect(lines.map((l) => l.msg)).toEqual(expect.arrayContaining(['database unavailable', 'request']));
+		expect(lines.map((l) => l.msg)).not.toContain('unexpected error');
+		expect(lines.find((l) => l.msg === 'request')).toMatchObject({ level: 'error', route: '/journals/showcase', status: 503 });
 
 		mariadb = await startDatabase();
 		const back = await poll(

@@ -19,7 +19,7 @@ import * as audit from '../../src/lib/server/audit';
 import { DAY_MS } from '../../src/lib/swaps/listing';
 import { DomainError } from '../../src/lib/errors';
 import { haversineDistance } from '../../src/lib/swaps/distance';
-import { DISTANCE_BANDS, labelOf, radiusReachMetres, shownMetres } from '../../src/lib/swaps/display';
+import { asLiteral, bandsInMetres, labelOf, radiusReachMetres, shownFigure, type DistanceUnit } from '../../src/lib/swaps/display';
 import { parseBoardQuery, type BoardFilter } from '../../src/lib/swaps/board-filter';
 import type { LatLng } from '../../src/lib/club/location';
 import { request } from '../helpers/http';
@@ -59,7 +59,7 @@ describe('swap board: nearby search', () => {
 		// "about 30 km". Of the grid points, the farthest still below 27.5 km and the nearest beyond
 		// it, by the haversine function checked against @turf/distance in src/lib/swaps/distance.test.ts
 		// (within a few tens of metres of the edge; the circle passes enough grid points).
-		const reach = radiusReachMetres(25);
+		const reach = radiusReachMetres(25, 'km');
 		const scored = gridAround(centre, 40, 50).map((p) => ({ p, d: haversineDistance(centre, p) }));
 		const inside = scored.filter((s) => s.d < reach).sort((a, b) => b.d - a.d)[0]!;
 		const outside = scored.filter((s) => s.d >= reach).sort((a, b) => a.d - b.d)[0]!;
@@ -77,15 +77,15 @@ describe('swap board: nearby search', () => {
 			made[name] = await createListing(owner, { title: `${tag} ${name}` });
 		}
 
-		const within25 = await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 25 }));
+		const within25 = await nearby.search(viewerOf(viewer), filter({ q: tag, radius: 25 }));
 		expect(within25.order).toBe('distance');
 		expect(within25.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside]);
 		expect(within25.total).toBe(3);
-		const within50 = await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 50 }));
+		const within50 = await nearby.search(viewerOf(viewer), filter({ q: tag, radius: 50 }));
 		expect(within50.rows.map((r) => r.id)).toEqual([made.near, made.middle, made.inside, made.outside]);
 		// About 11 km away is shown as "about 10 km", so it is within 10 km.
-		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 10 }))).rows.map((r) => r.id)).toEqual([made.near, made.middle]);
-		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => labelOf(shownMetres(s.d)).text));
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radius: 10 }))).rows.map((r) => r.id)).toEqual([made.near, made.middle]);
+		expect(within50.rows.map((r) => r.distance?.text)).toEqual([near, middle, inside, outside].map((s) => labelOf(shownFigure(s.d, 'km'), 'km').text));
 		expect(within50.rows.map((r) => r.distance?.text)).toEqual(['about 3 km', 'about 10 km', 'about 25 km', 'about 30 km']);
 
 		// The SQL distance is the haversine figure to well under a millimetre.
@@ -110,25 +110,26 @@ describe('swap board: nearby search', () => {
 		expect(page).not.toContain(`${tag} outside`);
 	});
 
-	test('the SQL figure is the pure one, at every band edge and its neighbouring doubles', async () => {
+	test.each<DistanceUnit>(['km', 'mi'])('the SQL figure is the pure one, at every band edge and its neighbouring doubles (%s)', async (unit) => {
 		const next = (x: number, delta: bigint) => new Float64Array(new BigInt64Array([new BigInt64Array(new Float64Array([x]).buffer)[0]! + delta]).buffer)[0]!;
-		const edges = DISTANCE_BANDS.flatMap((b) => (Number.isFinite(b.below) ? [b.below] : []));
+		const bands = bandsInMetres(unit);
+		const edges = bands.flatMap((b) => (Number.isFinite(b.belowMetres) ? [b.belowMetres] : []));
 		// Where a figure changes within a band: halfway between two of its figures.
-		const halves = DISTANCE_BANDS.flatMap(({ below, step }, i) => {
-			if (step === 0) return [];
-			const first = Math.ceil((DISTANCE_BANDS[i - 1]!.below - step / 2) / step);
-			return Array.from({ length: 12 }, (_, k) => (first + k) * step + step / 2).filter((m) => m < below);
+		const halves = bands.flatMap(({ belowMetres, stepMetres, halfStepMetres }, i) => {
+			if (stepMetres === 0) return [];
+			const first = Math.ceil((bands[i - 1]!.belowMetres - halfStepMetres) / stepMetres);
+			return Array.from({ length: 12 }, (_, k) => (first + k) * stepMetres + halfStepMetres).filter((m) => m < belowMetres);
 		});
-		expect(halves.slice(0, 3)).toEqual([1_500, 2_500, 3_500]);
+		expect(halves.slice(0, 3)).toEqual(unit === 'km' ? [1_500, 2_500, 3_500] : [1.5 * 1609.344, 2.5 * 1609.344, 3.5 * 1609.344].map(asLiteral));
 		let seed = 5;
 		const random = () => (seed = (seed * 48271) % 2147483647) / 2147483647;
 		const values = [...edges, ...halves].flatMap((m) => [next(m, -1n), m, next(m, 1n)]).concat(Array.from({ length: 60 }, () => random() ** 3 * 2e7));
 		for (let i = 0; i < values.length; i += 100) {
 			const chunk = values.slice(i, i + 100);
 			// A DOUBLE literal (exponent notation), as the haversine expression gives a DOUBLE.
-			const columns = chunk.map((v, k) => sql`${nearby.shownSql(sql.raw(`${v.toExponential(17)}`))} AS ${sql.raw(`s${k}`)}`);
+			const columns = chunk.map((v, k) => sql`${nearby.shownSql(sql.raw(`${v.toExponential(17)}`), unit)} AS ${sql.raw(`s${k}`)}`);
 			const [rows] = (await db.execute(sql`SELECT ${sql.join(columns, sql`, `)}`)) as unknown as [Record<string, number | string>[]];
-			expect(chunk.map((_, k) => Number(rows[0]![`s${k}`]))).toEqual(chunk.map(shownMetres));
+			expect(chunk.map((_, k) => Number(rows[0]![`s${k}`]))).toEqual(chunk.map((m) => shownFigure(m, unit)));
 		}
 	});
 
@@ -141,12 +142,12 @@ describe('swap board: nearby search', () => {
 		const id = await createListing(owner, { title: `${tag} across` });
 		// 0.04° of longitude at 44° S: about 3.2 km, straight across ±180°.
 		expect(haversineDistance(west, east)).toBeLessThan(5_000);
-		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 5 }))).rows.map((r) => r.id)).toEqual([id]);
-		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radiusKm: 2 }))).rows).toEqual([]);
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radius: 5 }))).rows.map((r) => r.id)).toEqual([id]);
+		expect((await nearby.search(viewerOf(viewer), filter({ q: tag, radius: 2 }))).rows).toEqual([]);
 
 		const nowhere = await memberAt(null, 'no-location');
 		const second = await createListing(owner, { title: `${tag} later` });
-		const newest = await nearby.search(viewerOf(nowhere), filter({ q: tag, radiusKm: 2 }));
+		const newest = await nearby.search(viewerOf(nowhere), filter({ q: tag, radius: 2 }));
 		expect(newest.order).toBe('newest');
 		expect(newest.rows.map((r) => r.id)).toEqual([second, id]);
 		expect(newest.rows[0]!.distance).toBeNull();
@@ -263,7 +264,7 @@ describe('swap restricted species', () => {
 			const thread = await (await request(`/swaps/threads/${threadId}`, { cookie: person.cookie })).text();
 			expect(thread).toContain(warning);
 		}
-		const card = (await nearby.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radiusKm: 2 }))).rows.find((r) => r.id === id);
+		const card = (await nearby.search(viewerOf(asker), filter({ q: 'Cautioned cuttings', radius: 2 }))).rows.find((r) => r.id === id);
 		expect(card?.restriction).toBe('cautioned');
 	});
 });
@@ -293,9 +294,9 @@ describe('swap blocks', () => {
 		const messages = await db.select().from(swapMessages).where(eq(swapMessages.threadId, threadId));
 		expect(messages).toHaveLength(1);
 
-		const ownerBoard = await nearby.search(viewerOf(owner), filter({ q: 'pest listing', radiusKm: 5 }));
+		const ownerBoard = await nearby.search(viewerOf(owner), filter({ q: 'pest listing', radius: 5 }));
 		expect(ownerBoard.rows.map((r) => r.id)).not.toContain(pestListing);
-		const otherBoard = await nearby.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radiusKm: 5 }));
+		const otherBoard = await nearby.search(viewerOf(await memberAt({ lat: -34.1, lng: -9.81 }, 'block-other')), filter({ q: 'pest listing', radius: 5 }));
 		expect(otherBoard.rows.map((r) => r.id)).toContain(pestListing);
 
 		await blocks.unblock(viewerOf(owner), pest.id);
@@ -503,4 +504,20 @@ describe('swap moderation and the restricted list: admins only, and audited', ()
 			['restricted.remove', admin.id]
 		]);
 	});
+});
+
+test('the dashboard counts conversations on my listings with messages I have not read', async () => {
+	const owner = await memberAt({ lat: -30.4, lng: -5.7 }, 'news-owner', 'off');
+	const askers = [await memberAt({ lat: -30.41, lng: -5.7 }, 'news-asker', 'off'), await memberAt({ lat: -30.42, lng: -5.7 }, 'news-asker', 'off')];
+	const id = await createListing(owner, { title: 'Counted stems' });
+	const first = await threads.request(viewerOf(askers[0]!), id, 'May I have some?');
+	await threads.post(viewerOf(askers[0]!), first, 'Any day suits me.');
+	await threads.request(viewerOf(askers[1]!), id, 'Me too, please.');
+	// Two conversations, three messages: counted per conversation; my own requests elsewhere do not count.
+	expect(await threads.unreadOnOwnListings(owner.id)).toBe(2);
+	expect(await threads.unreadOnOwnListings(askers[0]!.id)).toBe(0);
+	const home = await (await request('/', { cookie: owner.cookie })).text();
+	expect(home).toContain('data-testid="swap-news"');
+	await threads.markRead({ id: owner.id }, first);
+	expect(await threads.unreadOnOwnListings(owner.id)).toBe(1);
 });

@@ -15,7 +15,3 @@ export function roundToKilometre(point: LatLng): LatLng {
 	const lng = round(((((point.lng + 180) % 360) + 360) % 360) - 180);
 	return { lat: round(Math.max(-90, Math.min(90, point.lat))), lng: lng === -180 ? 180 : lng };
 }
-
-export function isValidLatLng(point: LatLng): boolean {
-	return Number.isFinite(point.lat) && Number.isFinite(point.lng) && point.lat >= -90 && point.lat <= 90 && point.lng >= -180 && point.lng <= 180;
-}

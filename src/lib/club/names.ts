@@ -1,5 +1,8 @@
-/** What a member without a display name (or a former member) is called wherever names show. */
+/** What a member without a display name is called wherever names show. */
 export const UNNAMED_MEMBER = 'A member';
 
+/** What a member who deleted their account (or was removed) is called where their past work stays. */
+export const FORMER_MEMBER = 'Former member';
+
 /** A member's name as shown to others. */
-export const nameOf = (displayName: string | null | undefined) => displayName?.trim() || UNNAMED_MEMBER;
+export const nameOf = (displayName: string | null | undefined, deleted = false) => (deleted ? FORMER_MEMBER : displayName?.trim() || UNNAMED_MEMBER);

@@ -29,9 +29,9 @@ export const UNIT_SYSTEMS = ['metric', 'us', 'imperial'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
 export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = {
-	metric: 'Metric (cm, litres, kg)',
-	us: 'US (inches, US gallons, lb)',
-	imperial: 'Imperial (inches, imperial gallons, lb)'
+	metric: 'Metric (cm, mm of glass, litres, kg, °C, km)',
+	us: 'US (inches, US gallons, lb, °F, miles)',
+	imperial: 'Imperial (inches, imperial gallons, lb, °C, miles)'
 };
 
 /** Display name rules shared by the form and the server. */

@@ -10,4 +10,12 @@ export interface Viewer {
 	displayName: string | null;
 	role: Role;
 	units: UnitSystem;
+	/**
+	 * The IANA time zone the member chose, or their browser's as it first reported it; null (or
+	 * absent) until either is known, and times are then shown in UTC. See `zoneOf`.
+	 */
+	timeZone?: string | null;
 }
+
+/** The zone to show a viewer's times and "today" in: theirs when known, UTC otherwise (and for visitors). */
+export const zoneOf = (viewer: Pick<Viewer, 'timeZone'> | null | undefined): string => viewer?.timeZone ?? 'UTC';

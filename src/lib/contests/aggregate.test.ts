@@ -35,7 +35,7 @@ describe('aggregate', () => {
 		expect(result.value).toBeCloseTo(ss.mean([80, 55, 72, 91]), 12);
 		expect(result.dropped).toBeNull();
 		expect(result.note).toBe(
-			'Only 4 judges scored this entry, so the plain mean is used; the highest and lowest cards are dropped only when 5 or more judges score.'
+			'Only 4 judges scored this entry, so all their scores are averaged; the highest and the lowest are left out only when 5 or more judges score.'
 		);
 		expect(aggregate([80], 'trimmed-mean').note).toMatch(/^Only 1 judge scored/);
 	});

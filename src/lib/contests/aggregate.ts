@@ -37,7 +37,7 @@ export function aggregate(values: readonly number[], method: AggregationMethod):
 			...base,
 			value: mean(values),
 			used: 'mean',
-			note: `Only ${values.length} ${values.length === 1 ? 'judge' : 'judges'} scored this entry, so the plain mean is used; the highest and lowest cards are dropped only when ${TRIM_MIN_CARDS} or more judges score.`
+			note: `Only ${values.length} ${values.length === 1 ? 'judge' : 'judges'} scored this entry, so all their scores are averaged; the highest and the lowest are left out only when ${TRIM_MIN_CARDS} or more judges score.`
 		};
 	}
 	// Sort positions by value (then position, so equal values drop deterministically).

@@ -185,6 +185,11 @@ describe('concordanceForCategory', () => {
 		});
 	});
 
+	test('a category without submitted cards has nothing to compare, whatever the panel', () => {
+		expect(concordanceForCategory([])).toMatchObject({ ok: false, reason: 'no-cards', entryIds: [] });
+		expect(concordanceForCategory([], ['j1', 'j2'])).toMatchObject({ ok: false, reason: 'no-cards' });
+	});
+
 	test('an explicit judge set that includes a judge without cards leaves no common entries', () => {
 		const result = concordanceForCategory([card('j1', 'e1', 90), card('j1', 'e2', 80), card('j2', 'e1', 70), card('j2', 'e2', 60)], ['j1', 'j2', 'j9']);
 		expect(result).toMatchObject({ ok: false, reason: 'too-few-common-entries', entryIds: [] });

@@ -96,7 +96,7 @@ export type ConcordanceResult =
 	  } & KendallW)
 	| {
 			ok: false;
-			reason: 'too-few-judges' | 'too-few-common-entries';
+			reason: 'no-cards' | 'too-few-judges' | 'too-few-common-entries';
 			message: string;
 			judgeIds: string[];
 			entryIds: string[];
@@ -116,8 +116,12 @@ export function concordanceForCategory(cards: readonly JudgedTotal[], judgeIds?:
 	const common = allEntries.filter((e) => judges.every((j) => score.has(JSON.stringify([j, e]))));
 	const excluded = allEntries.filter((e) => !common.includes(e));
 	const base = { judgeIds: judges, entryIds: common, excludedEntryIds: excluded };
+	// Nothing scored yet (no entries, or no card submitted): nothing to compare, whoever is on the panel.
+	if (allEntries.length === 0) {
+		return { ok: false, reason: 'no-cards', message: 'No cards are in for this category yet, so there is nothing to compare.', ...base };
+	}
 	if (judges.length < 2) {
-		return { ok: false, reason: 'too-few-judges', message: 'Agreement needs at least two judges.', ...base };
+		return { ok: false, reason: 'too-few-judges', message: 'Only one judge has scored entries here; agreement needs at least two.', ...base };
 	}
 	if (common.length < 2) {
 		return {

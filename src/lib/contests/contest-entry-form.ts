@@ -1,5 +1,5 @@
 // The contest entry form: which tank, which category, a statement and 1–6 photos (the first is the
-// full-front view of the whole tank), and the tanks it offers with what each category says of them.
+// whole tank from the front), and the tanks it offers with what each category says of them.
 import { z } from 'zod';
 import { fieldErrorsOf, invalid } from '../errors';
 import { readPhotoFields, type PhotoField } from '../media/form';
@@ -9,7 +9,7 @@ export const ENTRY_PHOTOS_MIN = 1;
 export const ENTRY_PHOTOS_MAX = 6;
 export const STATEMENT_MAX = 3000;
 export const ENTRY_PHOTOS_FIELD = 'photos';
-export const FRONT_VIEW_LABEL = 'Full-front view';
+export const FRONT_VIEW_LABEL = 'Whole tank, from the front';
 
 export const contestEntryFieldsSchema = z.object({
 	categoryId: z.coerce.number({ message: 'Choose a category.' }).int().positive('Choose a category.'),
@@ -65,6 +65,8 @@ export interface EntryTankChoice {
 	thumb: string | null;
 	/** Rounded as the tank's page shows it. */
 	litres: number | null;
+	/** The volume in the member's units, as shown. */
+	volume: string | null;
 	volumeSource: 'measured' | 'estimated' | null;
 	ageLabel: string | null;
 	retired: boolean;

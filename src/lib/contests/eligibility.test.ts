@@ -69,6 +69,15 @@ describe('rules as typed by an admin', () => {
 		expect(describeRule({ minLitres: 60, maxLitres: null, minAgeWeeks: 1 })).toBe('At least 60 L of water, running at least 1 week');
 		expect(describeRule({ minLitres: null, maxLitres: null, minAgeWeeks: null })).toBe('Any running tank');
 	});
+	test('members who use gallons read their own beside the litres the rule is set in (1 US gal = 3.785411784 L, NIST Handbook 44; 1 imp gal = 4.54609 L)', () => {
+		// 40 / 3.785411784 = 10.57; 20 / 3.785… = 5.28, 120 / 3.785… = 31.7; 40 / 4.54609 = 8.80.
+		expect(describeRule(nano, 'us')).toBe('Up to 40 L (10.6 US gal) of water');
+		expect(describeRule(mature, 'us')).toBe('20–120 L (5.28–31.7 US gal) of water, running at least 8 weeks');
+		expect(describeRule(nano, 'imperial')).toBe('Up to 40 L (8.8 imp gal) of water');
+		expect(checkEligibility(nano, facts(50, null), 'us').reasons).toEqual([
+			'It holds 50 L (13.2 US gal) of water; this category takes at most 40 L (10.6 US gal).'
+		]);
+	});
 	test('validation', () => {
 		expect(validateRule(mature)).toEqual({});
 		expect(validateRule({ minLitres: 50, maxLitres: 40, minAgeWeeks: null })).toHaveProperty('maxLitres');

@@ -1,5 +1,7 @@
 // Which tanks a category accepts: an optional water-volume range and an optional minimum age,
-// both checked against the figures of the tank profile (see $lib/journals/figures).
+// both checked against the figures of the tank profile (see $lib/journals/figures). Rules are set
+// and checked in litres; members who use gallons read their own gallon beside each figure.
+import { formatVolume, type UnitSystem } from '../journals/calc/units';
 
 export interface EligibilityRule {
 	/** Inclusive bounds in litres of water; null for no bound. */
@@ -31,21 +33,28 @@ export const LITRES_DECIMALS = 1;
 export const roundLitres = (litres: number) => Math.round(litres * 10 ** LITRES_DECIMALS) / 10 ** LITRES_DECIMALS;
 
 const fmt = (n: number) => n.toLocaleString('en-GB', { maximumFractionDigits: LITRES_DECIMALS });
+/** "60 L", or "60 L (15.9 US gal)" for a member who uses gallons. */
+const litresText = (litres: number, units: UnitSystem) => `${fmt(litres)} L${units === 'metric' ? '' : ` (${formatVolume(litres, units)})`}`;
+/** "10–60 L", or "10–60 L (2.64–15.9 US gal)". */
+function rangeText(min: number, max: number, units: UnitSystem): string {
+	if (units === 'metric') return `${fmt(min)}–${fmt(max)} L`;
+	return `${fmt(min)}–${fmt(max)} L (${formatVolume(min, units).replace(/ .*$/, '')}–${formatVolume(max, units)})`;
+}
 const weeks = (n: number) => `${n} week${n === 1 ? '' : 's'}`;
 
 /** "10–60 L of water, running at least 8 weeks", or "Any tank". */
-export function describeRule(rule: EligibilityRule): string {
+export function describeRule(rule: EligibilityRule, units: UnitSystem = 'metric'): string {
 	const parts: string[] = [];
-	if (rule.minLitres !== null && rule.maxLitres !== null) parts.push(`${fmt(rule.minLitres)}–${fmt(rule.maxLitres)} L of water`);
-	else if (rule.minLitres !== null) parts.push(`at least ${fmt(rule.minLitres)} L of water`);
-	else if (rule.maxLitres !== null) parts.push(`up to ${fmt(rule.maxLitres)} L of water`);
+	if (rule.minLitres !== null && rule.maxLitres !== null) parts.push(`${rangeText(rule.minLitres, rule.maxLitres, units)} of water`);
+	else if (rule.minLitres !== null) parts.push(`at least ${litresText(rule.minLitres, units)} of water`);
+	else if (rule.maxLitres !== null) parts.push(`up to ${litresText(rule.maxLitres, units)} of water`);
 	if (rule.minAgeWeeks !== null && rule.minAgeWeeks > 0) parts.push(`running at least ${weeks(rule.minAgeWeeks)}`);
 	if (parts.length === 0) return 'Any running tank';
 	const text = parts.join(', ');
 	return text[0]!.toUpperCase() + text.slice(1);
 }
 
-export function checkEligibility(rule: EligibilityRule, tank: TankFacts): EligibilityCheck {
+export function checkEligibility(rule: EligibilityRule, tank: TankFacts, units: UnitSystem = 'metric'): EligibilityCheck {
 	const reasons: string[] = [];
 	const comparedLitres = tank.litres === null ? null : roundLitres(tank.litres);
 	if (tank.retired) reasons.push('The tank is retired; only running tanks can be entered.');
@@ -54,10 +63,10 @@ export function checkEligibility(rule: EligibilityRule, tank: TankFacts): Eligib
 			reasons.push('Its water volume cannot be worked out: check the size on the tank profile, or enter a measured volume.');
 		} else {
 			if (rule.minLitres !== null && comparedLitres < rule.minLitres) {
-				reasons.push(`It holds ${fmt(comparedLitres)} L of water; this category needs at least ${fmt(rule.minLitres)} L.`);
+				reasons.push(`It holds ${litresText(comparedLitres, units)} of water; this category needs at least ${litresText(rule.minLitres, units)}.`);
 			}
 			if (rule.maxLitres !== null && comparedLitres > rule.maxLitres) {
-				reasons.push(`It holds ${fmt(comparedLitres)} L of water; this category takes at most ${fmt(rule.maxLitres)} L.`);
+				reasons.push(`It holds ${litresText(comparedLitres, units)} of water; this category takes at most ${litresText(rule.maxLitres, units)}.`);
 			}
 		}
 	}

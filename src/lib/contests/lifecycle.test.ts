@@ -7,6 +7,7 @@ import {
 	judgeReminderKind,
 	nextTransition,
 	overdueAdminReminder,
+	stepDoneMessage,
 	transitionProblems,
 	validateWindows,
 	type ContestWindows,
@@ -106,5 +107,14 @@ describe('transitions', () => {
 		expect(transitionProblems('publish', { ...judging, overrideReason: 'ill' })[0]).toMatch(/at least 10 characters/);
 		expect(transitionProblems('publish', { ...judging, overrideReason: 'Judge withdrew through illness' })).toEqual([]);
 		expect(transitionProblems('publish', { ...judging, judgingComplete: true })).toEqual([]);
+	});
+	test('a step is reported in its own sentence, only while the contest is in the state it led to', () => {
+		expect(stepDoneMessage('start-judging', 'judging')).toBe(
+			'Entries are closed and judging has started. Judges score the entries by number; nobody else sees the scores.'
+		);
+		expect(stepDoneMessage('open-entries', 'open')).toMatch(/^The contest is open for entries\./);
+		expect(stepDoneMessage('open-entries', 'judging')).toBeNull();
+		expect(stepDoneMessage('toString', 'open')).toBeNull();
+		expect(stepDoneMessage(null, 'open')).toBeNull();
 	});
 });

@@ -79,6 +79,23 @@ export const TRANSITIONS: Record<TransitionName, Transition> = {
 	}
 };
 
+/** What the admin is told once a step is taken: one whole sentence or two per step. */
+export const STEP_DONE: Record<TransitionName, string> = {
+	'open-entries': 'The contest is open for entries. Members can enter their tanks until the entry window closes.',
+	'start-judging': 'Entries are closed and judging has started. Judges score the entries by number; nobody else sees the scores.',
+	publish: 'The results are published. Send the announcement from the Announcement tab when you are ready.',
+	archive: 'The contest is archived. Its results stay public and nothing changes any more.'
+};
+
+/**
+ * The message for `?step=<name>` on an admin page, only while the contest is in the state that step
+ * leads to (an old address kept in the history says nothing about a later state).
+ */
+export function stepDoneMessage(step: string | null, state: ContestState): string | null {
+	const t = (TRANSITION_NAMES as readonly string[]).includes(step ?? '') ? TRANSITIONS[step as TransitionName] : null;
+	return t && t.to === state ? STEP_DONE[t.name] : null;
+}
+
 /** The one transition an admin can take from a state, if any. */
 export const nextTransition = (state: ContestState): Transition | null => Object.values(TRANSITIONS).find((t) => t.from === state) ?? null;
 

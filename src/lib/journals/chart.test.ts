@@ -76,3 +76,24 @@ describe('chartGeometry', () => {
 		expect(none.dangerLines).toEqual([]);
 	});
 });
+
+describe('a danger level per reading (ammonia: it follows each test’s pH and temperature)', () => {
+	const box2: ChartBox = { width: 500, height: 240, margin: { top: 20, right: 0, bottom: 20, left: 100 } };
+	const points: ChartPoint[] = [
+		{ ...point(1, '2026-03-01', 0.5), dangerAt: 0.7 },
+		{ ...point(2, '2026-03-11', 0.5), dangerAt: 0.6 },
+		{ ...point(3, '2026-03-21', 0.4), dangerAt: null }
+	];
+	const g = chartGeometry({ points, band: { low: 0, high: 0.05 }, danger: {} }, { box: box2 });
+	test('a stepped line through the readings that carry one, the newest of them labelled', () => {
+		expect(g.domain[1]).toBeGreaterThanOrEqual(0.7);
+		// Two levels, x 100 and 300: steps at the midpoint, x 200.
+		expect(g.dangerPath.startsWith('M100,')).toBe(true);
+		expect(g.dangerPath).toMatch(/^M100,([\d.]+)L200,\1L200,([\d.]+)L300,\2$/);
+		expect(g.dangerLabel?.value).toBe(0.6);
+		expect(g.dangerLines).toEqual([]);
+	});
+	test('no levels, no line', () => {
+		expect(chartGeometry({ points: [point(1, '2026-03-01', 1)], band: null, danger: {} }, { box: box2 }).dangerPath).toBe('');
+	});
+});

@@ -2,7 +2,7 @@
 // Scales and ticks come from d3-scale, the line from d3-shape; this decides what the axes must
 // show (every reading, the band, the danger line) and hands the component plain numbers.
 import { scaleLinear, scaleUtc } from 'd3-scale';
-import { line } from 'd3-shape';
+import { curveStep, line } from 'd3-shape';
 import { dayOf } from '../dates';
 import type { BandStatus } from './calc';
 
@@ -11,6 +11,8 @@ export interface ChartPoint {
 	on: string;
 	value: number;
 	status: BandStatus;
+	/** A danger level of this reading's own (ammonia: it moves with the test's pH and temperature). */
+	dangerAt?: number | null;
 }
 
 export interface ChartInput {
@@ -33,6 +35,10 @@ export interface ChartGeometry {
 	path: string;
 	band: { y: number; height: number } | null;
 	dangerLines: { y: number; value: number }[];
+	/** The per-reading danger levels as a stepped line (empty when the readings carry none); drawn clipped to the plot. */
+	dangerPath: string;
+	/** Where to label that line: the newest reading's level, when it is inside the plot. */
+	dangerLabel: { y: number; value: number } | null;
 	yTicks: { y: number; value: number }[];
 	xTicks: { x: number; on: string }[];
 	domain: [number, number];
@@ -54,7 +60,8 @@ export function valueDomain(input: ChartInput, floorAtZero: boolean): [number, n
 	let min = Math.min(...values);
 	let max = Math.max(...values);
 	const span = max - min || Math.abs(max) || 1;
-	for (const level of [input.danger.low, input.danger.high]) {
+	const ownLevels = input.points.flatMap((p) => (p.dangerAt == null ? [] : [p.dangerAt]));
+	for (const level of [input.danger.low, input.danger.high, ...ownLevels]) {
 		if (level !== undefined && level >= min - span / 2 && level <= max + span / 2) {
 			min = Math.min(min, level);
 			max = Math.max(max, level);
@@ -108,8 +115,20 @@ export function chartGeometry(input: ChartInput, options: { box?: ChartBox; floo
 	const dangerLines = [input.danger.low, input.danger.high]
 		.filter((v): v is number => v !== undefined && v >= domain[0] && v <= domain[1])
 		.map((value) => ({ value, y: px(y(value)) }));
+	const withLevel = points.filter((p) => p.dangerAt != null);
+	const dangerPath =
+		withLevel.length === 0
+			? ''
+			: withLevel.length === 1
+				? `M${plot.left},${px(y(withLevel[0]!.dangerAt!))}H${plot.left + plot.width}`
+				: (line<{ x: number; y: number }>()
+						.x((p) => p.x)
+						.y((p) => p.y)
+						.curve(curveStep)(withLevel.map((p) => ({ x: p.x, y: px(y(p.dangerAt!)) }))) ?? '');
+	const newestLevel = withLevel.at(-1)?.dangerAt;
+	const dangerLabel = newestLevel != null && newestLevel >= domain[0] && newestLevel <= domain[1] ? { value: newestLevel, y: px(y(newestLevel)) } : null;
 	const yTicks = y.ticks(5).map((value) => ({ value, y: px(y(value)) }));
 	const tickCount = Math.max(2, Math.min(6, Math.floor(plot.width / 90)));
 	const xTicks = x.ticks(tickCount).map((d) => ({ x: px(x(d)), on: dayOf(d) }));
-	return { points, path, band, dangerLines, yTicks, xTicks, domain, plot };
+	return { points, path, band, dangerLines, dangerPath, dangerLabel, yTicks, xTicks, domain, plot };
 }

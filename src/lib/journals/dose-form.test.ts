@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { SALT_CHOICES, workOutDose } from './dose-form';
+import { DOSE_MODE_LABELS, SALT_CHOICES, stockDoseGrams, workOutDose } from './dose-form';
 
 const ask = (query: Record<string, string>, units: 'metric' | 'us' = 'metric', tankLitres: number | null = null) =>
 	workOutDose(new URLSearchParams(query), units, tankLitres);
@@ -39,5 +39,32 @@ describe('workOutDose', () => {
 		expect(khco3.fractions.map((f) => f.nutrient)).toEqual(['K', 'HCO3']);
 		expect(khco3.fractions[0]!.percent).toBeCloseTo(39.053, 2);
 		expect(khco3.fractions[1]!.percent).toBeCloseTo(60.947, 2);
+	});
+});
+
+describe('stock solution', () => {
+	// The dose rule of REFERENCES (mg/L = g × 1000 × share ÷ L) applied to the salt in one dose; NO3⁻ is
+	// 62.004 of 101.10 g/mol of KNO3 (CIAAW 2021 abridged), 61.33 %.
+	test('50 g KNO3 made up to 500 mL, 10 mL a dose in 100 L: 1 g a dose, 6.13 mg/L NO3⁻; 100 g/L, 50 doses a batch', () => {
+		expect(stockDoseGrams(50, 500, 10)).toBe(1);
+		const { result, errors } = ask({ salt: 'KNO3', mode: 'stock', stockGrams: '50', stockMl: '500', doseMl: '10', volume: '100' });
+		expect(errors).toEqual({});
+		expect(result!.grams).toBe(1);
+		expect(result!.stock).toEqual({ gPerL: 100, doses: 50 });
+		expect(result!.adds.find((a) => a.nutrient === 'NO3')!.mgPerL).toBeCloseTo(6.13, 2);
+	});
+	test('the same dose as the dry salt gives the same figures', () => {
+		const dry = ask({ salt: 'KH2PO4', grams: '0.3', volume: '60' }).result!;
+		const wet = ask({ salt: 'KH2PO4', mode: 'stock', stockGrams: '30', stockMl: '1000', doseMl: '10', volume: '60' }).result!;
+		expect(wet.adds).toEqual(dry.adds.map((a) => ({ ...a, mgPerL: expect.closeTo(a.mgPerL, 12) })));
+	});
+	test('each field is checked; a dose larger than the batch is refused', () => {
+		expect(ask({ salt: 'KNO3', mode: 'stock', stockGrams: '', stockMl: '500', doseMl: '10', volume: '100' }).errors).toEqual({
+			stockGrams: 'Enter a number greater than zero.'
+		});
+		expect(ask({ salt: 'KNO3', mode: 'stock', stockGrams: '5', stockMl: '50', doseMl: '60', volume: '100' }).errors.doseMl).toMatch(/more than the whole/);
+	});
+	test('the modes have names of our own that say what each answers', () => {
+		expect(Object.values(DOSE_MODE_LABELS)).toEqual(['What does this dose add?', 'How much salt for a rise?', 'Dosing from a stock solution']);
 	});
 });

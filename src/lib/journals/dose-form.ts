@@ -18,17 +18,40 @@ import {
 	type UnitSystem
 } from './calc';
 
+export const DOSE_MODES = ['grams', 'target', 'stock'] as const;
+export type DoseMode = (typeof DOSE_MODES)[number];
+
+/** What each mode answers, in the club's words. */
+export const DOSE_MODE_LABELS: Record<DoseMode, string> = {
+	grams: 'What does this dose add?',
+	target: 'How much salt for a rise?',
+	stock: 'Dosing from a stock solution'
+};
+
 export interface DoseValues {
 	salt: SaltId;
-	mode: 'grams' | 'target';
+	mode: DoseMode;
 	nutrient: Nutrient;
 	volume: string;
 	grams: string;
 	target: string;
+	/** Stock solution: grams of salt, the volume it is made up to (mL), and millilitres per dose. */
+	stockGrams: string;
+	stockMl: string;
+	doseMl: string;
+}
+
+export interface StockSolution {
+	/** Grams of salt per litre of stock. */
+	gPerL: number;
+	/** Whole doses in one batch. */
+	doses: number;
 }
 
 export interface DoseResult {
+	/** Grams of salt that reach the tank (in stock mode, the salt in one dose of the solution). */
 	grams: number;
+	stock?: StockSolution;
 	/** What the dose adds, mg/L of each nutrient; bicarbonate also as the rise in KH (°dKH). */
 	adds: { nutrient: Nutrient; mgPerL: number; khRiseDkh?: number }[];
 }
@@ -53,35 +76,61 @@ export function workOutDose(query: URLSearchParams, units: UnitSystem, tankLitre
 	const saltParam = q('salt');
 	const nutrientParam = q('nutrient');
 	const salt: SaltId = isSalt(saltParam) ? saltParam : 'KNO3';
-	const mode = q('mode') === 'target' ? 'target' : 'grams';
+	const modeParam = q('mode');
+	const mode: DoseMode = (DOSE_MODES as readonly string[]).includes(modeParam) ? (modeParam as DoseMode) : 'grams';
 	const nutrient: Nutrient = isNutrient(nutrientParam) ? nutrientParam : suppliedBy(salt)[0]!;
 	const volumeText = q('volume') || (tankLitres ? String(roundTo(fromMetric('volume', tankLitres, units), 1)) : '');
-	const values: DoseValues = { salt, mode, nutrient, volume: volumeText, grams: q('grams'), target: q('target') };
+	const values: DoseValues = {
+		salt,
+		mode,
+		nutrient,
+		volume: volumeText,
+		grams: q('grams'),
+		target: q('target'),
+		stockGrams: q('stockGrams'),
+		stockMl: q('stockMl'),
+		doseMl: q('doseMl')
+	};
 	const errors: Record<string, string> = {};
 	if (!query.has('salt')) return { values, errors, result: null };
 
 	const volume = parseVolume(volumeText, units, { allowZero: false });
 	if (!volume.ok) errors.volume = volume.error;
-	const positive = (key: 'grams' | 'target') => {
+	const positive = (key: 'grams' | 'target' | 'stockGrams' | 'stockMl' | 'doseMl') => {
 		const n = Number(values[key].replace(',', '.'));
 		if (values[key] && Number.isFinite(n) && n > 0) return n;
 		errors[key] = 'Enter a number greater than zero.';
 		return null;
 	};
-	const amount = positive(mode);
+	let stock: StockSolution | undefined;
+	let amount: number | null;
+	if (mode === 'stock') {
+		const [stockGrams, stockMl, doseMl] = [positive('stockGrams'), positive('stockMl'), positive('doseMl')];
+		if (stockMl !== null && doseMl !== null && doseMl > stockMl) errors.doseMl = 'A dose cannot be more than the whole solution.';
+		amount = stockGrams !== null && stockMl !== null && doseMl !== null && !errors.doseMl ? stockDoseGrams(stockGrams, stockMl, doseMl) : null;
+		if (amount !== null) stock = { gPerL: (stockGrams! * 1000) / stockMl!, doses: Math.floor(stockMl! / doseMl! + 1e-9) };
+	} else amount = positive(mode);
 	if (!volume.ok || amount === null) return { values, errors, result: null };
 	try {
-		const grams = mode === 'grams' ? amount : gramsForTarget(salt, nutrient, amount, volume.value);
+		const grams = mode === 'target' ? gramsForTarget(salt, nutrient, amount, volume.value) : amount;
 		const adds = (Object.entries(doseContribution(salt, grams, volume.value)) as [Nutrient, number][]).map(([n, mgPerL]) =>
 			n === 'HCO3' ? { nutrient: n, mgPerL, khRiseDkh: mgHco3ToDkh(mgPerL) } : { nutrient: n, mgPerL }
 		);
-		return { values, errors, result: { grams, adds } };
+		return { values, errors, result: { grams, adds, ...(stock ? { stock } : {}) } };
 	} catch (e) {
 		// The salt does not supply the nutrient asked for.
 		if (!(e instanceof CalcInputError)) throw e;
 		errors.nutrient = e.message;
 		return { values, errors, result: null };
 	}
+}
+
+/**
+ * Grams of salt in one dose of a stock solution: `stockGrams` dissolved and made up to `stockMl`,
+ * of which `doseMl` is dosed. Made up to the volume (not added to it), so the share is exact.
+ */
+export function stockDoseGrams(stockGrams: number, stockMl: number, doseMl: number): number {
+	return (stockGrams * doseMl) / stockMl;
 }
 
 /** The salts to choose from, with what each supplies and its shares by mass. */

@@ -40,6 +40,9 @@ export function describeEvent(event: EventFacts, options: { litres?: number | nu
 		case 'water-change':
 			if (event.percent !== null) parts.push(`${formatNumber(event.percent, { figures: 3 })} % of the water`);
 			break;
+		case 'top-up':
+			if (event.amount !== null) parts.push(`${formatNumber(event.amount, { figures: 3 })} L of water added`);
+			break;
 		case 'filter-clean':
 			if (event.filterPart) parts.push(FILTER_PART_LABELS[event.filterPart]);
 			break;

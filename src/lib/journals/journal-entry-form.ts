@@ -167,6 +167,10 @@ export function parseEntryDraft(draft: EntryDraft, options: { today: string; set
 			case 'water-change':
 				input.percent = number('percent', 1, 100, true);
 				break;
+			case 'top-up':
+				// Litres of water added to make up for evaporation (the away care plan reads the rate from these).
+				input.amount = number('amount', 0.05, 2000, true);
+				break;
 			case 'trim':
 				input.what = words('what', 160, false);
 				break;

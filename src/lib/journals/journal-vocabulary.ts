@@ -4,6 +4,7 @@
 
 export const EVENT_KINDS = [
 	'water-change',
+	'top-up',
 	'trim',
 	'filter-clean',
 	'media-change',
@@ -22,6 +23,7 @@ export type EventKind = (typeof EVENT_KINDS)[number];
 
 export const EVENT_LABELS: Record<EventKind, string> = {
 	'water-change': 'Water change',
+	'top-up': 'Topped up',
 	trim: 'Trim',
 	'filter-clean': 'Filter clean',
 	'media-change': 'Media change',

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { draftFromForm, emptyDraft, lightingChange, parseTankDraft, type TankDraft } from './tank-form';
+import { draftFromForm, draftFromTank, emptyDraft, lightingChange, parseTankDraft, type TankDraft } from './tank-form';
 
 const today = new Date('2026-03-01T12:00:00Z');
 const draft = (overrides: Partial<TankDraft> = {}): TankDraft => ({
@@ -25,6 +25,23 @@ describe('parseTankDraft', () => {
 		if (!result.ok) return;
 		expect(result.input).toMatchObject({ lengthCm: 60.96, widthCm: 30.48, heightCm: 40.64, glassMm: 6.35 });
 		expect(result.input.waterLitres).toBeCloseTo(75.71, 2);
+	});
+
+	test('glass in fractions of an inch and the heater in °F for US members (5/16 in = 7.9375 mm; 77 °F = 25 °C)', () => {
+		const result = parseTankDraft(draft({ glass: '5/16', heaterSet: '77' }), 'us', today);
+		expect(result).toMatchObject({ ok: true, input: { glassMm: 7.94, heaterSetC: 25 } });
+		const mixed = parseTankDraft(draft({ glass: '1 1/4 in', heaterSet: '24 °C' }), 'us', today);
+		expect(mixed).toMatchObject({ ok: true, input: { glassMm: 31.75, heaterSetC: 24 } });
+		const wrong = parseTankDraft(draft({ heaterSet: '77' }), 'metric', today);
+		expect(wrong).toMatchObject({ ok: false, errors: { heaterSet: 'Enter a setting from 10 °C to 40 °C; check the number and its unit.' } });
+	});
+
+	test('the edit form shows the glass as the fraction it is sold as and the heater in the member’s unit', () => {
+		const stored = parseTankDraft(draft({ glass: '10', heaterSet: '24' }), 'metric', today);
+		if (!stored.ok) throw new Error('expected a valid draft');
+		const profile = { ...stored.input, description: null, lights: [], filters: [], fertilisers: [], plants: [], livestock: [] };
+		expect(draftFromTank(profile, 'us')).toMatchObject({ glass: '3/8', heaterSet: '75.2' });
+		expect(draftFromTank(profile, 'metric')).toMatchObject({ glass: '10', heaterSet: '24' });
 	});
 
 	test('imperial gallons are the imperial member’s own (4.54609 L, Weights and Measures Act 1985)', () => {
@@ -109,5 +126,17 @@ describe('lightingChange on the edit form (compareLighting; the worked example o
 		expect(lightingChange([{ watts: '40' }], saved)).toBeNull();
 		expect(lightingChange([{ watts: 'bright' }, { watts: '' }], saved)).toBeNull();
 		expect(lightingChange([{ watts: '70' }], null)).toBeNull();
+	});
+});
+
+describe('names with hidden characters', () => {
+	test('a right-to-left override or a name of joiners only is refused at the field; an emoji is kept', () => {
+		// U+202E RIGHT-TO-LEFT OVERRIDE, U+200D ZERO WIDTH JOINER (Unicode Character Database).
+		expect(parseTankDraft(draft({ name: 'Tank\u202Eexe' }), 'metric', today)).toMatchObject({
+			ok: false,
+			errors: { name: expect.stringMatching(/direction/) }
+		});
+		expect(parseTankDraft(draft({ name: '\u200D\u200D' }), 'metric', today)).toMatchObject({ ok: false, errors: { name: expect.stringMatching(/invisible/) } });
+		expect(parseTankDraft(draft({ name: 'Shrimp 🦐 corner' }), 'metric', today)).toMatchObject({ ok: true, input: { name: 'Shrimp 🦐 corner' } });
 	});
 });

@@ -1,7 +1,21 @@
 // The tank profile form: what the member typed (a draft of strings, in their own units) and the
 // validated, metric TankInput the domain takes. Conversions go through ./calc so every form and
 // page agrees on units and rounding.
-import { compareLighting, dayNumber, fromMetric, parseLength, parseVolume, roundTo, SUBSTRATE_KINDS, unitSymbol, type UnitSystem } from './calc';
+import { composed, nameProblem } from '../text';
+import {
+	compareLighting,
+	dayNumber,
+	formatGlass,
+	formatTemperature,
+	fromMetric,
+	parseLength,
+	parseTemperature,
+	parseVolume,
+	roundTo,
+	SUBSTRATE_KINDS,
+	unitSymbol,
+	type UnitSystem
+} from './calc';
 import { PLACEMENTS, type Placement } from '../species/kinds';
 import { CO2_METHODS, FLOW_UNITS, TANK_VISIBILITIES, type Co2Method, type FlowUnit, type TankVisibility } from './tank-vocabulary';
 import type { StoredTankProfile, TankInput } from './tank-input';
@@ -58,6 +72,7 @@ export interface TankDraft {
 	hardscape: string;
 	hardscapeVolume: string;
 	heaterWatts: string;
+	heaterSet: string;
 	heaterNote: string;
 	co2Method: string;
 	co2Bps: string;
@@ -107,6 +122,7 @@ export function emptyDraft(units: UnitSystem): TankDraft {
 		hardscape: '',
 		hardscapeVolume: '',
 		heaterWatts: '',
+		heaterSet: '',
 		heaterNote: '',
 		co2Method: 'none',
 		co2Bps: '',
@@ -152,6 +168,7 @@ export function draftFromForm(form: FormData): TankDraft {
 		hardscape: text(form, 'hardscape'),
 		hardscapeVolume: text(form, 'hardscapeVolume'),
 		heaterWatts: text(form, 'heaterWatts'),
+		heaterSet: text(form, 'heaterSet'),
 		heaterNote: text(form, 'heaterNote'),
 		co2Method: text(form, 'co2Method') || 'none',
 		co2Bps: text(form, 'co2Bps'),
@@ -182,13 +199,14 @@ export function draftFromTank(tank: StoredTankProfile, units: UnitSystem): TankD
 		length: showLength(tank.lengthCm, units),
 		width: showLength(tank.widthCm, units),
 		height: showLength(tank.heightCm, units),
-		glass: tank.glassMm === null ? '' : units === 'metric' ? show(tank.glassMm, 1) : show(fromMetric('length', tank.glassMm / 10, units), 3),
+		glass: tank.glassMm === null ? '' : units === 'metric' ? show(tank.glassMm, 1) : formatGlass(tank.glassMm, units).replace(/ in$/, ''),
 		substrateKind: tank.substrateKind,
 		substrateNote: tank.substrateNote,
 		substrateDepth: showLength(tank.substrateDepthCm, units),
 		hardscape: tank.hardscape,
 		hardscapeVolume: showVolume(tank.hardscapeLitres, units),
 		heaterWatts: tank.heaterWatts === null ? '' : show(tank.heaterWatts, 1),
+		heaterSet: tank.heaterSetC === null ? '' : show(fromMetric('temperature', tank.heaterSetC, units), 1),
 		heaterNote: tank.heaterNote,
 		co2Method: tank.co2Method,
 		co2Bps: tank.co2BubblesPerSecond === null ? '' : show(tank.co2BubblesPerSecond, 1),
@@ -233,9 +251,11 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 		return null;
 	};
 	const words = (key: string, value: string, max: number, required = false): string => {
-		const v = value.trim();
+		const v = composed(value);
 		if (required && !v) fail(key, 'This is needed.');
 		if (v.length > max) fail(key, `Keep it to ${max} characters.`);
+		const problem = nameProblem(v);
+		if (problem) fail(key, problem);
 		return v;
 	};
 	const number = (key: string, value: string, min: number, max: number, required = false): number | null => {
@@ -275,11 +295,21 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 
 	let glassMm: number | null = null;
 	if (draft.glass.trim()) {
-		const typed = /^\s*[\d.,]+\s*$/.test(draft.glass) ? `${draft.glass.trim()} ${glassUnit(units)}` : draft.glass;
+		const typed = /^\s*[\d.,/ ]+\s*$/.test(draft.glass) ? `${draft.glass.trim()} ${glassUnit(units)}` : draft.glass;
 		const cm = measure('glass', typed, parseLength, 5, false, 4);
 		if (cm !== null) glassMm = roundTo(cm * 10, 2);
 		if (glassMm !== null && glassMm <= 0) fail('glass', 'Enter a thickness greater than zero, or leave it empty.');
 	}
+
+	/** A heater is set between 10 and 40 °C (a wider range is a typing error or a unit mix-up). */
+	const heaterSetC = (): number | null => {
+		if (!draft.heaterSet.trim()) return null;
+		const parsed = parseTemperature(draft.heaterSet, units);
+		if (!parsed.ok) return fail('heaterSet', parsed.error);
+		if (parsed.value < 10 || parsed.value > 40)
+			return fail('heaterSet', `Enter a setting from ${formatTemperature(10, units)} to ${formatTemperature(40, units)}; check the number and its unit.`);
+		return roundTo(parsed.value, 1);
+	};
 
 	const substrateKind = draft.substrateKind ? oneOf('substrateKind', draft.substrateKind, SUBSTRATE_CHOICES, 'Choose a kind of substrate.') : '';
 	const co2Method = oneOf<Co2Method>('co2Method', draft.co2Method, CO2_METHODS, 'Choose how CO2 is added.');
@@ -299,6 +329,7 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 		hardscape: words('hardscape', draft.hardscape, 500),
 		hardscapeLitres: measure('hardscapeVolume', draft.hardscapeVolume, parseVolume, 5000),
 		heaterWatts: number('heaterWatts', draft.heaterWatts, 1, 5000),
+		heaterSetC: heaterSetC(),
 		heaterNote: words('heaterNote', draft.heaterNote, 160),
 		co2Method: co2Method ?? 'none',
 		co2BubblesPerSecond: co2Method === 'pressurised' ? number('co2Bps', draft.co2Bps, 0.1, 99) : null,
@@ -367,7 +398,7 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 
 /** Unit labels for the form's fields, in the member's system. */
 export function formUnits(units: UnitSystem) {
-	return { length: unitSymbol('length', units), volume: unitSymbol('volume', units), glass: glassUnit(units) };
+	return { length: unitSymbol('length', units), volume: unitSymbol('volume', units), glass: glassUnit(units), temperature: unitSymbol('temperature', units) };
 }
 
 /**

@@ -58,6 +58,8 @@ export interface TankInput {
 	hardscape: string;
 	hardscapeLitres: number | null;
 	heaterWatts: number | null;
+	/** The heater's set temperature, °C. */
+	heaterSetC: number | null;
 	heaterNote: string;
 	co2Method: Co2Method;
 	co2BubblesPerSecond: number | null;

@@ -23,9 +23,11 @@ describe('sizes in the member’s units', () => {
 		expect(sizeText({ lengthCm: 60.96, widthCm: 30.48, heightCm: 40.64 }, 'us')).toBe('24 × 12 × 16 in');
 		expect(sizeText({ lengthCm: 90, widthCm: 45, heightCm: 45 }, 'metric')).toBe('90 × 45 × 45 cm');
 	});
-	test('glass in mm for metric members, 6.35 mm = 0.25 in otherwise', () => {
+	test('glass in mm for metric members, in the sixteenths of an inch it is sold in otherwise (6.35 mm = 1/4 in; 10 mm ≈ 0.394 in ≈ 3/8 in)', () => {
 		expect(glassText(10, 'metric')).toBe('10 mm');
-		expect(glassText(6.35, 'us')).toBe('0.25 in');
+		expect(glassText(6.35, 'us')).toBe('1/4 in');
+		expect(glassText(10, 'us')).toBe('3/8 in');
+		expect(glassText(12, 'imperial')).toBe('1/2 in');
 	});
 	test('substrate depth and hardscape volume follow the units', () => {
 		expect(substrateText({ substrateKind: 'nutrient-soil', substrateNote: 'capped with sand', substrateDepthCm: 7.62 }, 'us')).toBe(
@@ -52,6 +54,10 @@ describe('light and flow', () => {
 		const filter = { label: 'Hang-on-back', ratedFlow: 100, flowUnit: 'usgph' as const, mediaNotes: 'sponge' };
 		expect(filterText(filter, 'metric')).toBe('Hang-on-back: 100 US gal/h (379 L/h) — sponge');
 		expect(filterText(filter, 'us')).toBe('Hang-on-back: 100 US gal/h — sponge');
+		// 600 L/h = 159 US gal/h = 132 imp gal/h.
+		expect(filterText({ label: 'Canister', ratedFlow: 600, flowUnit: 'lph', mediaNotes: '' }, 'us')).toBe('Canister: 600 L/h (159 US gal/h)');
+		expect(filterText({ label: 'Canister', ratedFlow: 600, flowUnit: 'lph', mediaNotes: '' }, 'imperial')).toBe('Canister: 600 L/h (132 imp gal/h)');
+		expect(filterText(filter, 'imperial')).toBe('Hang-on-back: 100 US gal/h (83.3 imp gal/h) — sponge');
 		expect(filterText({ label: '', ratedFlow: null, flowUnit: 'lph', mediaNotes: '' }, 'metric')).toBe('Filter');
 		expect(turnoverText(1200, { perHour: 7.07, assessment: { label: 'Good' } }, 'metric')).toBe('1,200 L/h rated · 7.1 × the volume an hour (good)');
 	});
@@ -59,8 +65,10 @@ describe('light and flow', () => {
 
 describe('the other lines', () => {
 	test('heater, CO2 and fertilisers', () => {
-		expect(heaterText({ heaterWatts: 200, heaterNote: 'set to 24 °C' })).toBe('200 W · set to 24 °C');
-		expect(heaterText({ heaterWatts: null, heaterNote: '' })).toBe('—');
+		expect(heaterText({ heaterWatts: 200, heaterSetC: 24, heaterNote: '' }, 'metric')).toBe('200 W · set to 24 °C');
+		// 24 °C × 9/5 + 32 = 75.2 °F.
+		expect(heaterText({ heaterWatts: 200, heaterSetC: 24, heaterNote: 'off in summer' }, 'us')).toBe('200 W · set to 75.2 °F · off in summer');
+		expect(heaterText({ heaterWatts: null, heaterSetC: null, heaterNote: '' }, 'us')).toBe('—');
 		expect(co2Text({ co2Method: 'pressurised', co2BubblesPerSecond: 1.5 })).toMatch(/ · 1\.5 bubbles a second$/);
 		expect(co2Text({ co2Method: 'none', co2BubblesPerSecond: 2 })).not.toMatch(/bubbles/);
 		expect(fertiliserText({ item: 'Trace solution', amount: '5 mL', frequency: '' })).toBe('Trace solution, 5 mL');

@@ -2,7 +2,19 @@
 // lists split into what is in the tank now and what was, and the upkeep due soon. Every unit
 // conversion and rounding the page shows goes through here (and so through ./calc), not through
 // the page's markup.
-import { formatFlow, formatLength, formatNumber, formatVolume, fromMetric, suggestedPhotoperiod, SUBSTRATE_LABELS, unitSymbol, type UnitSystem } from './calc';
+import {
+	formatFlow,
+	formatGlass,
+	formatLength,
+	formatNumber,
+	formatTemperature,
+	formatVolume,
+	fromMetric,
+	suggestedPhotoperiod,
+	SUBSTRATE_LABELS,
+	unitSymbol,
+	type UnitSystem
+} from './calc';
 import { flowLitresPerHour, type TankFigures } from './figures';
 import { CO2_METHOD_LABELS, FLOW_UNIT_LABELS, type Co2Method, type FlowUnit } from './tank-vocabulary';
 
@@ -15,10 +27,8 @@ export function sizeText(box: { lengthCm: number; widthCm: number; heightCm: num
 	return `${bare(formatLength(box.lengthCm, units))} × ${bare(formatLength(box.widthCm, units))} × ${formatLength(box.heightCm, units)}`;
 }
 
-/** The glass: in mm for metric members (as it is sold), in inches otherwise. */
-export function glassText(glassMm: number, units: UnitSystem): string {
-	return units === 'metric' ? `${n(glassMm, 1)} mm` : formatLength(glassMm / 10, units);
-}
+/** The glass: in mm for metric members (as it is sold), to the nearest sixteenth of an inch otherwise ("3/8 in"). */
+export const glassText = (glassMm: number, units: UnitSystem): string => formatGlass(glassMm, units);
 
 /** Watts per litre expressed per the member's volume unit (litre, US or imperial gallon). */
 export function wattsPerVolumeUnit(wattsPerLitre: number, units: UnitSystem): number {
@@ -55,8 +65,9 @@ export function turnoverText(totalFlowLph: number, turnover: { perHour: number; 
 /** One filter of the list, its rated flow as printed on it (and in L/h when that was US gal/h). */
 export function filterText(filter: { label: string; ratedFlow: number | null; flowUnit: FlowUnit; mediaNotes: string }, units: UnitSystem): string {
 	const flow = filter.ratedFlow ? `: ${n(filter.ratedFlow)} ${FLOW_UNIT_LABELS[filter.flowUnit]}` : '';
-	const inLitres =
-		filter.ratedFlow && filter.flowUnit === 'usgph' && units === 'metric' ? ` (${formatFlow(flowLitresPerHour(filter.ratedFlow, 'usgph'), units)})` : '';
+	// Beside a rating in a unit other than the member's, the same flow in theirs.
+	const printedIn = filter.flowUnit === 'usgph' ? 'us' : 'metric';
+	const inLitres = filter.ratedFlow && printedIn !== units ? ` (${formatFlow(flowLitresPerHour(filter.ratedFlow, filter.flowUnit), units)})` : '';
 	return `${filter.label || 'Filter'}${flow}${inLitres}${filter.mediaNotes ? ` — ${filter.mediaNotes}` : ''}`;
 }
 
@@ -72,9 +83,15 @@ export function substrateText(tank: { substrateKind: string; substrateNote: stri
 export const hardscapeText = (tank: { hardscape: string; hardscapeLitres: number | null }, units: UnitSystem) =>
 	`${tank.hardscape || '—'}${tank.hardscapeLitres ? ` · about ${formatVolume(tank.hardscapeLitres, units)}` : ''}`;
 
-/** "200 W · set to 24 °C", or "—". */
-export const heaterText = (tank: { heaterWatts: number | null; heaterNote: string }) =>
-	`${tank.heaterWatts ? `${n(tank.heaterWatts)} W` : '—'}${tank.heaterNote ? ` · ${tank.heaterNote}` : ''}`;
+/** "200 W · set to 24 °C · none in summer" (75.2 °F for US members), or "—". */
+export function heaterText(tank: { heaterWatts: number | null; heaterSetC: number | null; heaterNote: string }, units: UnitSystem): string {
+	const parts = [
+		tank.heaterWatts ? `${n(tank.heaterWatts)} W` : '',
+		tank.heaterSetC !== null ? `set to ${formatTemperature(tank.heaterSetC, units)}` : '',
+		tank.heaterNote
+	].filter(Boolean);
+	return parts.length ? parts.join(' · ') : '—';
+}
 
 /** "Pressurised cylinder · 2 bubbles a second". */
 export const co2Text = (tank: { co2Method: Co2Method; co2BubblesPerSecond: number | null }) =>

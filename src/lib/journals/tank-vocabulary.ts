@@ -22,7 +22,7 @@ export type FlowUnit = (typeof FLOW_UNITS)[number];
 export const FLOW_UNIT_LABELS: Record<FlowUnit, string> = { lph: 'L/h', usgph: 'US gal/h' };
 
 /** Suggestions for the free-text style field; a keeper may type anything. */
-export const STYLE_SUGGESTIONS = ['nature', 'iwagumi', 'jungle', 'biotope', 'nano', 'dutch'] as const;
+export const STYLE_SUGGESTIONS = ['iwagumi', 'wood and stone', 'stem garden', 'jungle', 'biotope', 'nano'] as const;
 
 /** The most photos a tank profile keeps (its cover). */
 export const TANK_COVER_MAX = 1;

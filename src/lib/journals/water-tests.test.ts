@@ -1,6 +1,15 @@
 import { describe, expect, test } from 'vitest';
 import { NH3_PER_N } from './calc';
-import { buildSeries, derivedFigures, emptyWaterTestDraft, latestWarnings, parseWaterTest, readingsOf, type WaterTestValues } from './water-tests';
+import {
+	buildSeries,
+	derivedFigures,
+	emptyWaterTestDraft,
+	judgeAmmonia,
+	latestWarnings,
+	parseWaterTest,
+	readingsOf,
+	type WaterTestValues
+} from './water-tests';
 
 const blank: WaterTestValues = {
 	ph: null,
@@ -44,8 +53,11 @@ describe('readings, estimates and series', () => {
 
 	test('each reading against the common bands (common practice, no source)', () => {
 		const byParam = Object.fromEntries(readingsOf(test1).map((r) => [r.parameter, r.status]));
-		// 0.5 mg/L as N is 0.61 mg/L as NH3 (× 17.031/14.007, CIAAW 2021 abridged weights): past the 0.25 danger level.
-		expect(byParam).toEqual({ pH: 'in-band', KH: 'in-band', NO3: 'high', ammonia: 'danger', NO2: 'danger', temperature: 'in-band' });
+		// 0.5 mg/L as N is 0.61 mg/L as NH3 (× 17.031/14.007, CIAAW 2021 abridged weights): above the usual
+		// total, but at pH 6.6 and 25 °C only 0.0014 mg/L is un-ionised, so it is not a danger.
+		expect(byParam).toEqual({ pH: 'in-band', KH: 'in-band', NO3: 'high', ammonia: 'high', NO2: 'danger', temperature: 'in-band' });
+		// Without the temperature the total alone is judged: 0.61 is past the 0.25 total level (common practice, no source).
+		expect(readingsOf({ ...test1, temperatureC: null }).find((r) => r.parameter === 'ammonia')!.status).toBe('danger');
 	});
 
 	test('estimates only where their inputs are: ammonia needs pH and temperature, CO2 pH and KH', () => {
@@ -75,17 +87,51 @@ describe('readings, estimates and series', () => {
 		expect(series.map((s) => s.parameter)).toEqual(['pH', 'KH', 'NO3', 'ammonia', 'NO2', 'temperature']);
 		const ammonia = series.find((s) => s.parameter === 'ammonia')!;
 		expect(ammonia.points[0]!.value).toBeCloseTo(0.6079, 3);
-		expect(ammonia).toMatchObject({ outOfBand: 1, dangerous: 1 });
+		expect(ammonia).toMatchObject({ outOfBand: 1, dangerous: 0, danger: {} });
+		// Its danger line is the test's own: 0.05 mg/L NH3 ÷ the un-ionised fraction at pH 6.6, 25 °C.
+		expect(ammonia.points[0]!.dangerAt).toBeCloseTo(0.05 / (1 / (10 ** (9.2464 - 6.6) + 1)), 2);
 	});
 
 	test('warnings for the latest off-target readings, danger first', () => {
 		const warnings = latestWarnings(buildSeries([test1], 'metric'));
 		expect(warnings.map((w) => [w.parameter, w.status])).toEqual([
-			['ammonia', 'danger'],
 			['NO2', 'danger'],
-			['NO3', 'high']
+			['NO3', 'high'],
+			['ammonia', 'high']
 		]);
-		expect(warnings[2]!.text).toBe('Nitrate (NO₃) read 30 mg/L, above the usual 5–25 mg/L.');
-		expect(warnings[1]!.text).toMatch(/harms fish/);
+		expect(warnings[1]!.text).toBe('Nitrate (NO₃) read 30 mg/L, above the usual 5–25 mg/L.');
+		expect(warnings[0]!.text).toMatch(/harms fish/);
+		expect(warnings[2]!.text).toMatch(/not dangerous now/);
+	});
+});
+
+describe('ammonia is judged on the un-ionised figure when pH and temperature are known', () => {
+	// Fractions from University of Florida IFAS Extension circular FA16, Table 1: 0.0052 at pH 7.0 and
+	// 24 °C, 0.0502 at pH 8.0 and 24 °C (its worked example); danger at 0.05 mg/L NH3 as FA16 states.
+	const at = (ammonia: number, ph: number | null, temperatureC: number | null) => ({ ...blank, ammonia, ph, temperatureC });
+
+	test('0.5 mg/L total at pH 7.0 and 24 °C: 0.0026 mg/L NH3, no danger banner, and the words agree', () => {
+		const j = judgeAmmonia(at(0.5, 7, 24))!;
+		expect(j.basis).toBe('unionised');
+		expect(j.basis === 'unionised' && Math.abs(j.nh3MgPerL - 0.5 * 0.0052)).toBeLessThan(0.0001);
+		expect(j.status).toBe('high');
+		const [w] = latestWarnings(buildSeries([{ ...at(0.5, 7, 24), id: 1, testedOn: '2026-03-01' }], 'metric'));
+		expect(w!.status).toBe('high');
+		expect(w!.text).not.toMatch(/may harm fish|at or above|FA16/);
+		expect(w!.text).toMatch(/below the 0\.02 mg\/L/);
+	});
+	test('the same total at pH 8.0 and 24 °C is 0.025 mg/L NH3 (concern); 1.0 mg/L there is 0.0502 (danger, FA16)', () => {
+		expect(judgeAmmonia(at(0.5, 8, 24))!.status).toBe('high');
+		const danger = latestWarnings(buildSeries([{ ...at(1, 8, 24), id: 1, testedOn: '2026-03-01' }], 'metric'));
+		expect(danger[0]!.status).toBe('danger');
+		expect(danger[0]!.text).toMatch(/University of Florida circular FA16/);
+	});
+	test('without pH or temperature the total alone is used, and the warning says so', () => {
+		const j = judgeAmmonia(at(0.5, null, 24))!;
+		expect(j).toMatchObject({ basis: 'total', status: 'danger', missing: ['pH'], dangerAtTotal: 0.25 });
+		const [w] = latestWarnings(buildSeries([{ ...at(0.1, 7, null), id: 1, testedOn: '2026-03-01' }], 'metric'));
+		expect(w!.text).toMatch(/No temperature was recorded with this test, so .* the total alone is used\./);
+		expect(judgeAmmonia(at(0.1, null, null))).toMatchObject({ missing: ['pH', 'temperature'] });
+		expect(judgeAmmonia(blank)).toBeNull();
 	});
 });

@@ -11,8 +11,10 @@ import {
 	fromMetric,
 	parseTemperature,
 	roundTo,
+	dangerousTotalAmmonia,
 	totalAmmoniaAsNH3,
 	unionisedAmmonia,
+	UNIONISED_AMMONIA_LEVELS,
 	unitSymbol,
 	type AmmoniaBasis,
 	type BandStatus,
@@ -158,6 +160,45 @@ export function bandValue(parameter: WaterParameter, test: WaterTestValues): num
 	return parameter === 'ammonia' ? totalAmmoniaAsNH3(raw, test.ammoniaBasis) : raw;
 }
 
+/**
+ * How an ammonia reading is judged. The harm comes from un-ionised NH3, so with the test's pH and
+ * temperature the reading is judged on NH3 (Emerson et al. 1975 for the split; danger at the
+ * IFAS FA16 level, concern at the common-practice one), and the total's usual band can only say
+ * "above the usual range". Without pH or temperature only the total is known, and the total
+ * band's levels (common practice, no source) are used, saying so.
+ */
+export type AmmoniaJudgement =
+	| { basis: 'unionised'; status: BandStatus; totalAsNH3: number; nh3MgPerL: number; ph: number; tempC: number; dangerAtTotal: number }
+	| { basis: 'total'; status: BandStatus; totalAsNH3: number; missing: ('pH' | 'temperature')[]; dangerAtTotal: number | null };
+
+export function judgeAmmonia(test: WaterTestValues): AmmoniaJudgement | null {
+	if (test.ammonia === null) return null;
+	const totalAsNH3 = totalAmmoniaAsNH3(test.ammonia, test.ammoniaBasis);
+	const totalStatus = classifyReading('ammonia', totalAsNH3);
+	if (test.ph === null || test.temperatureC === null) {
+		const missing = [...(test.ph === null ? (['pH'] as const) : []), ...(test.temperatureC === null ? (['temperature'] as const) : [])];
+		return { basis: 'total', status: totalStatus, totalAsNH3, missing, dangerAtTotal: TARGET_BANDS.ammonia.dangerHigh ?? null };
+	}
+	const u = unionisedAmmonia({ totalMgPerL: test.ammonia, basis: test.ammoniaBasis, pH: test.ph, tempC: test.temperatureC });
+	const status: BandStatus = u.level === 'danger' ? 'danger' : u.level === 'concern' || totalStatus !== 'in-band' ? 'high' : 'in-band';
+	return {
+		basis: 'unionised',
+		status,
+		totalAsNH3,
+		nh3MgPerL: u.nh3MgPerL,
+		ph: test.ph,
+		tempC: test.temperatureC,
+		dangerAtTotal: dangerousTotalAmmonia(test.ph, test.temperatureC)
+	};
+}
+
+/** Where a reading falls; ammonia as `judgeAmmonia` says. */
+function statusOf(parameter: WaterParameter, test: WaterTestValues): BandStatus | null {
+	if (parameter === 'ammonia') return judgeAmmonia(test)?.status ?? null;
+	const value = bandValue(parameter, test);
+	return value === null ? null : classifyReading(parameter, value);
+}
+
 export interface Reading {
 	parameter: WaterParameter;
 	/** As stored (ammonia on the kit's basis). */
@@ -169,7 +210,7 @@ export function readingsOf(test: WaterTestValues): Reading[] {
 	return WATER_PARAMETERS.flatMap((parameter) => {
 		const value = test[WATER_FIELDS[parameter].column];
 		if (value === null) return [];
-		return [{ parameter, value, status: classifyReading(parameter, bandValue(parameter, test)!) }];
+		return [{ parameter, value, status: statusOf(parameter, test)! }];
 	});
 }
 
@@ -208,6 +249,9 @@ export interface SeriesPoint {
 	/** In the member's unit; ammonia on the NH3 basis. */
 	value: number;
 	status: BandStatus;
+	/** Ammonia only: the total (as NH3) at which this test's water reaches the danger level, and how it was judged. */
+	ammonia?: AmmoniaJudgement;
+	dangerAt?: number | null;
 }
 
 export interface Series {
@@ -233,7 +277,12 @@ export function buildSeries(tests: readonly (WaterTestValues & { id: number; tes
 		const points: SeriesPoint[] = ordered.flatMap((t) => {
 			const value = bandValue(parameter, t);
 			if (value === null) return [];
-			return [{ id: t.id, on: t.testedOn, value: shown(parameter, value, units), status: classifyReading(parameter, value) }];
+			const point: SeriesPoint = { id: t.id, on: t.testedOn, value: shown(parameter, value, units), status: statusOf(parameter, t)! };
+			if (parameter === 'ammonia') {
+				point.ammonia = judgeAmmonia(t)!;
+				point.dangerAt = point.ammonia.dangerAtTotal;
+			}
+			return [point];
 		});
 		if (!points.length) return [];
 		const convert = (v: number | undefined) => (v === undefined ? undefined : shown(parameter, v, units));
@@ -244,7 +293,8 @@ export function buildSeries(tests: readonly (WaterTestValues & { id: number; tes
 				unit: displayUnit(parameter, units),
 				decimals: WATER_FIELDS[parameter].decimals,
 				band: { low: convert(band.low)!, high: convert(band.high)! },
-				danger: { low: convert(band.dangerLow), high: convert(band.dangerHigh) },
+				// Ammonia's danger line follows each test's pH and temperature (the points carry it).
+				danger: parameter === 'ammonia' ? {} : { low: convert(band.dangerLow), high: convert(band.dangerHigh) },
 				note: band.note ?? null,
 				points,
 				outOfBand: points.filter((p) => p.status !== 'in-band').length,
@@ -262,14 +312,37 @@ export interface Warning {
 	text: string;
 }
 
+const mgL = (v: number) => `${roundTo(v, v < 0.01 ? 4 : 3)} mg/L`;
+
+/** What an ammonia reading means, in whole sentences: on the un-ionised figure, or on the total alone and saying why. */
+export function ammoniaVerdict(value: string, j: AmmoniaJudgement): string {
+	const { concern, danger } = UNIONISED_AMMONIA_LEVELS;
+	if (j.basis === 'total') {
+		const missing = j.missing.length === 2 ? 'pH or temperature' : j.missing[0] === 'pH' ? 'pH' : 'temperature';
+		const alone = `No ${missing} was recorded with this test, so the harmful un-ionised share cannot be worked out and the total alone is used.`;
+		if (j.status === 'danger') return `Total ammonia read ${value}. ${alone} At this total, fish are at risk in most tank water. ${DANGER_ADVICE.ammonia}`;
+		if (j.status === 'high') return `Total ammonia read ${value}, above the usual range. ${alone} Test pH and temperature with it next time.`;
+		return `Total ammonia read ${value}. ${alone}`;
+	}
+	const where = `At pH ${roundTo(j.ph, 2)} and ${roundTo(j.tempC, 1)} °C, ${mgL(j.nh3MgPerL)} of it is un-ionised ammonia (NH₃), the form that harms fish`;
+	if (j.status === 'danger')
+		return `Total ammonia read ${value}. ${where}: at or above ${danger} mg/L, which may harm fish (University of Florida circular FA16). ${DANGER_ADVICE.ammonia}`;
+	if (j.nh3MgPerL >= concern)
+		return `Total ammonia read ${value}. ${where}: above the ${concern} mg/L keepers take as the start of long-term stress. Find the source and change some water.`;
+	if (j.status === 'high')
+		return `Total ammonia read ${value}, above the usual range. ${where}: below the ${concern} mg/L keepers take as the start of long-term stress, so not dangerous now; find the source before it rises.`;
+	return `Total ammonia read ${value}. ${where}: below the ${concern} mg/L keepers take as the start of long-term stress.`;
+}
+
 /** What the latest test of each parameter says, when it is off target (danger first). */
 export function latestWarnings(series: readonly Series[]): Warning[] {
 	const warnings = series.flatMap((s) => {
 		const last = s.points.at(-1);
 		if (!last || last.status === 'in-band') return [];
 		const value = `${roundTo(last.value, s.decimals)}${s.unit ? ` ${s.unit}` : ''}`;
-		const text =
-			last.status === 'danger'
+		const text = last.ammonia
+			? ammoniaVerdict(value, last.ammonia)
+			: last.status === 'danger'
 				? `${s.label} read ${value}: a level that harms fish. ${DANGER_ADVICE[s.parameter] ?? 'Act on it today.'}`
 				: `${s.label} read ${value}, ${last.status === 'low' ? 'below' : 'above'} the usual ${roundTo(s.band!.low, s.decimals)}–${roundTo(s.band!.high, s.decimals)}${s.unit ? ` ${s.unit}` : ''}.`;
 		return [{ parameter: s.parameter, status: last.status, value: last.value, on: last.on, text }];

@@ -6,6 +6,13 @@ import sanitizeHtml from 'sanitize-html';
 import { config } from './config';
 import { OWN_MEDIA_PATH } from '../media/urls';
 
+/**
+ * The version of the rules below. Rendered HTML is stored beside its source (see
+ * markdown-fields.ts); raise this whenever the output changes (the allowlist, marked's options,
+ * an upgrade of either) and the migration runner renders every stored field again from source.
+ */
+export const RENDERER_VERSION = 1;
+
 /** Longest markdown we render; longer input is cut (forms enforce their own, smaller limits). */
 export const MARKDOWN_MAX_CHARS = 50_000;
 
@@ -87,3 +94,11 @@ export function renderMarkdown(source: string, options: { images?: boolean } = {
 	const html = marked.parse(source.slice(0, MARKDOWN_MAX_CHARS)) as string;
 	return sanitizeHtml(html, options.images === false ? withoutImagesOptions : sanitizeOptions);
 }
+
+/** A statement as judges read it: rendered without pictures, and how many pictures the full text has. */
+export function statementShown(source: string): { statementHtml: string; statementPictures: number } {
+	return { statementHtml: renderMarkdown(source, { images: false }), statementPictures: (renderMarkdown(source).match(/<img\b/g) ?? []).length };
+}
+
+/** The stored HTML of a markdown field; rendered from source only for a row that has none yet (written by bulk SQL before the migration runner's step). */
+export const storedHtml = (html: string | null | undefined, source: string | null | undefined): string => html ?? (source ? renderMarkdown(source) : '');

@@ -2,7 +2,7 @@ import { describe, expect, test } from 'vitest';
 import { boardQueryString, pageCount, parseBoardQuery, type BoardFilter } from './board-filter';
 
 const parse = (query: string) => parseBoardQuery(new URLSearchParams(query));
-const NO_FILTER: BoardFilter = { q: '', category: null, kind: null, speciesId: null, speciesName: '', radiusKm: null, page: 1 };
+const NO_FILTER: BoardFilter = { q: '', category: null, kind: null, speciesId: null, speciesName: '', radius: null, page: 1 };
 
 // Our own query-string format (no source).
 describe('board filters in the query string', () => {
@@ -17,15 +17,15 @@ describe('board filters in the query string', () => {
 			kind: 'offer',
 			speciesId: 12,
 			speciesName: 'Rotala indica',
-			radiusKm: 10,
+			radius: 10,
 			page: 3
 		});
 	});
 	test('only the offered radii; anything else is any distance', () => {
-		expect([2, 5, 10, 25, 50].map((r) => parse(`radius=${r}`).radiusKm)).toEqual([2, 5, 10, 25, 50]);
-		expect(parse('radius=7').radiusKm).toBeNull();
-		expect(parse('radius=any').radiusKm).toBeNull();
-		expect(parse('radius=10.0').radiusKm).toBeNull();
+		expect([2, 5, 10, 25, 50].map((r) => parse(`radius=${r}`).radius)).toEqual([2, 5, 10, 25, 50]);
+		expect(parse('radius=7').radius).toBeNull();
+		expect(parse('radius=any').radius).toBeNull();
+		expect(parse('radius=10.0').radius).toBeNull();
 	});
 	test('malformed values fall back instead of failing', () => {
 		expect(parse('category=boats&kind=sale&species=-4&page=0')).toEqual(NO_FILTER);

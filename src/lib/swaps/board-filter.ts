@@ -4,8 +4,9 @@
 // in step, so a filtered board can be bookmarked and shared.
 import { LISTING_CATEGORIES, LISTING_KINDS, type ListingCategory, type ListingKind } from './listing';
 
-export const RADIUS_CHOICES_KM = [2, 5, 10, 25, 50] as const;
-export type RadiusKm = (typeof RADIUS_CHOICES_KM)[number];
+/** The radius filter's choices, in the viewer's distance unit (km or miles): each is a figure the board shows. */
+export const RADIUS_CHOICES = [2, 5, 10, 25, 50] as const;
+export type Radius = (typeof RADIUS_CHOICES)[number];
 
 export const BOARD_PAGE_SIZE = 20;
 export const BOARD_QUERY_MAX = 80;
@@ -18,8 +19,8 @@ export interface BoardFilter {
 	speciesId: number | null;
 	/** The name shown in the species filter; only for redisplay. */
 	speciesName: string;
-	/** null: any distance. */
-	radiusKm: RadiusKm | null;
+	/** In the viewer's distance unit (kilometres, or miles for US and imperial members); null: any distance. */
+	radius: Radius | null;
 	page: number;
 }
 
@@ -35,7 +36,7 @@ const positiveInt = (value: string | null, max: number): number | null => {
 /** Reads the filters; anything unknown or malformed falls back to "no filter" rather than an error. */
 export function parseBoardQuery(params: URLSearchParams): BoardFilter {
 	const radius = params.get('radius');
-	const radiusKm = RADIUS_CHOICES_KM.find((r) => String(r) === radius) ?? null;
+	const radiusFigure = RADIUS_CHOICES.find((r) => String(r) === radius) ?? null;
 	const speciesId = positiveInt(params.get('species'), 2 ** 31);
 	return {
 		q: (params.get('q') ?? '').trim().replace(/\s+/g, ' ').slice(0, BOARD_QUERY_MAX),
@@ -43,7 +44,7 @@ export function parseBoardQuery(params: URLSearchParams): BoardFilter {
 		kind: oneOf(LISTING_KINDS, params.get('kind')),
 		speciesId,
 		speciesName: speciesId === null ? '' : (params.get('speciesName') ?? '').trim().slice(0, 160),
-		radiusKm,
+		radius: radiusFigure,
 		page: positiveInt(params.get('page'), BOARD_MAX_PAGE) ?? 1
 	};
 }
@@ -58,7 +59,7 @@ export function boardQueryString(filter: BoardFilter): string {
 		params.set('species', String(filter.speciesId));
 		if (filter.speciesName) params.set('speciesName', filter.speciesName);
 	}
-	if (filter.radiusKm !== null) params.set('radius', String(filter.radiusKm));
+	if (filter.radius !== null) params.set('radius', String(filter.radius));
 	if (filter.page > 1) params.set('page', String(filter.page));
 	const text = params.toString();
 	return text ? `?${text}` : '';

@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest';
-import { canArrangePickup, canWrite, conversationStatus, moderatorWithdraw } from './conversation';
+import { canArrangePickup, canWrite, conversationStatus, moderatorWithdraw, statusChips } from './conversation';
+import { STATE_LABELS } from './labels';
 import type { Listing } from './listing-state';
 
 // Our own rules (no source), derived from the listing state machine.
@@ -56,5 +57,13 @@ describe('an admin withdrawing a listing', () => {
 	test('not once handed over or withdrawn', () => {
 		expect(moderatorWithdraw(reserved('7', 'handed-over'), 'admin', now)).toMatchObject({ ok: false, error: { code: 'closed' } });
 		expect(moderatorWithdraw({ ...base, state: 'withdrawn' }, 'admin', now)).toMatchObject({ ok: false });
+	});
+});
+
+describe('statusChips', () => {
+	test('a finished conversation says "Handed over" once; otherwise the listing’s state and the conversation’s', () => {
+		expect(statusChips(STATE_LABELS['handed-over'], 'handed-over')).toEqual(['Handed over']);
+		expect(statusChips(STATE_LABELS.reserved, 'accepted')).toEqual([STATE_LABELS.reserved, 'Accepted: agree a pickup']);
+		expect(statusChips(STATE_LABELS.open, 'waiting')).toEqual([STATE_LABELS.open, 'Waiting for an answer']);
 	});
 });

@@ -32,6 +32,15 @@ export const CONVERSATION_STATUS_LABELS: Readonly<Record<ConversationStatus, str
 };
 
 /**
+ * The chips at the top of a conversation: the listing's state, then where this conversation stands,
+ * leaving out the listing's when it says the same ("Handed over" twice).
+ */
+export function statusChips(listingStateLabel: string, status: ConversationStatus): string[] {
+	const own = CONVERSATION_STATUS_LABELS[status];
+	return listingStateLabel === own ? [own] : [listingStateLabel, own];
+}
+
+/**
  * An admin withdrawing a listing after a report. Outside the members' state machine (only owners
  * withdraw there): allowed unless the listing is already handed over or withdrawn, and recorded
  * with the admin as the actor. A reservation is cancelled with it.

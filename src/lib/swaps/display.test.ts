@@ -1,19 +1,22 @@
 import { describe, expect, test } from 'vitest';
 import { roundToKilometre } from '$lib/club/location';
 import { haversineDistance } from './distance';
-import { RADIUS_CHOICES_KM } from './board-filter';
-import { DISTANCE_BANDS, labelOf, radiusReachMetres, shownMetres } from './display';
+import Qty from 'js-quantities';
+import { RADIUS_CHOICES } from './board-filter';
+import { bandsInMetres, DISTANCE_BANDS, labelOf, radiusReachMetres, shownFigure, type DistanceUnit } from './display';
 
 // The rounding steps are our choice (no source); these tests pin them and check that what is shown
 // never claims more precision than the stored, rounded points carry.
 
 /** The label for an exact distance: its shown figure, in words. */
-const formatDistance = (metres: number) => labelOf(shownMetres(metres));
+const formatDistance = (metres: number, unit: DistanceUnit = 'km') => labelOf(shownFigure(metres, unit), unit);
 /** Below this, the rounding of the stored points is as large as the distance itself. */
-const NEARBY_LIMIT_M = DISTANCE_BANDS[0]!.below;
+const NEARBY_LIMIT_M = DISTANCE_BANDS[0]!.below * 1000;
+/** A mile in metres, from js-quantities (1,609.344 m, NIST Handbook 44, Appendix C). */
+const MILE = Qty('1 mi').to('m').scalar;
 
-/** The step a shown figure was rounded to at most (its own band's step). */
-const stepOf = (metres: number) => DISTANCE_BANDS.find((b) => metres < b.below)!.step;
+/** The step a shown figure was rounded to at most (its own band's step), in metres. */
+const stepOf = (metres: number, unit: DistanceUnit = 'km') => bandsInMetres(unit).find((b) => metres < b.belowMetres)!.stepMetres;
 
 /** Park–Miller generator: the same "random" distances on every run. */
 function random(seed: number) {
@@ -34,12 +37,12 @@ const around = (metres: number) => {
 
 describe('formatDistance', () => {
 	test('close by', () => {
-		expect(formatDistance(0)).toEqual({ text: 'under 2 km', km: null });
+		expect(formatDistance(0)).toEqual({ text: 'under 2 km', figure: null, unit: 'km' });
 		expect(formatDistance(NEARBY_LIMIT_M - 1).text).toBe('under 2 km');
 		expect(formatDistance(NEARBY_LIMIT_M).text).toBe('about 2 km');
 	});
 	test('whole kilometres up to 10 km', () => {
-		expect(formatDistance(3_600)).toEqual({ text: 'about 4 km', km: 4 });
+		expect(formatDistance(3_600)).toEqual({ text: 'about 4 km', figure: 4, unit: 'km' });
 		expect(formatDistance(4_499).text).toBe('about 4 km');
 		expect(formatDistance(9_499).text).toBe('about 9 km');
 		expect(formatDistance(9_500).text).toBe('about 10 km');
@@ -66,7 +69,7 @@ describe('formatDistance', () => {
 		let previous = 0;
 		const drops: number[] = [];
 		for (let m = 0; m < 1_200_000; m += 37) {
-			const shown = shownMetres(m);
+			const shown = shownFigure(m, 'km');
 			if (shown < previous) drops.push(m);
 			previous = shown;
 		}
@@ -81,12 +84,13 @@ describe('formatDistance', () => {
 		};
 		const next = random(7);
 		const samples = Array.from({ length: 20_000 }, () => next() ** 3 * 3_000_000);
-		expect(samples.filter((metres) => formatDistance(metres).km !== earlier(metres))).toEqual([]);
+		expect(samples.filter((metres) => formatDistance(metres).figure !== earlier(metres))).toEqual([]);
 	});
 	test('the words for a figure', () => {
-		expect(labelOf(0)).toEqual({ text: 'under 2 km', km: null });
-		expect(labelOf(7_000)).toEqual({ text: 'about 7 km', km: 7 });
-		expect(() => labelOf(-1)).toThrow(RangeError);
+		expect(labelOf(0, 'km')).toEqual({ text: 'under 2 km', figure: null, unit: 'km' });
+		expect(labelOf(7, 'km')).toEqual({ text: 'about 7 km', figure: 7, unit: 'km' });
+		expect(labelOf(1200, 'mi')).toEqual({ text: 'about 1,200 mi', figure: 1200, unit: 'mi' });
+		expect(() => labelOf(-1, 'km')).toThrow(RangeError);
 	});
 	test('refuses negative and non-numbers', () => {
 		expect(() => formatDistance(-1)).toThrow(RangeError);
@@ -100,28 +104,66 @@ describe('formatDistance', () => {
 			const b = { lat: a.lat + (next() - 0.5) * 0.5, lng: a.lng + (next() - 0.5) * 0.5 };
 			const exact = haversineDistance(a, b);
 			const shown = formatDistance(haversineDistance(roundToKilometre(a), roundToKilometre(b)));
-			if (shown.km === null) {
+			if (shown.figure === null) {
 				expect(exact).toBeLessThan(NEARBY_LIMIT_M + 1_600);
 			} else {
 				// Rounding of the points (≤ 1.6 km) plus half a display step (0.5 km here).
-				expect(Math.abs(shown.km * 1000 - exact)).toBeLessThanOrEqual(1_600 + stepOf(shown.km * 1000) / 2 + 1);
+				expect(Math.abs(shown.figure * 1000 - exact)).toBeLessThanOrEqual(1_600 + stepOf(shown.figure * 1000) / 2 + 1);
 			}
+		}
+	});
+});
+
+describe('in miles, for US and imperial members', () => {
+	test('the same bands in miles: under 2 mi below 1.5 mi, whole miles to 9, then steps of 5, 10, 50 and 100 miles', () => {
+		expect(formatDistance(0, 'mi')).toEqual({ text: 'under 2 mi', figure: null, unit: 'mi' });
+		expect(formatDistance(1.5 * MILE - 1, 'mi').text).toBe('under 2 mi');
+		expect(formatDistance(1.5 * MILE, 'mi').text).toBe('about 2 mi');
+		// 10 km = 6.21 mi; 40 km = 24.9 mi; 160 km = 99.4 mi (js-quantities).
+		expect(formatDistance(Qty('10 km').to('m').scalar, 'mi').text).toBe('about 6 mi');
+		expect(Qty('40 km').to('mi').scalar).toBeCloseTo(24.85, 2);
+		expect(formatDistance(40_000, 'mi').text).toBe('about 25 mi');
+		expect(formatDistance(160_000, 'mi').text).toBe('about 100 mi');
+		expect(formatDistance(2_000_000, 'mi').text).toBe('about 1,200 mi'); // 1,242.7 mi
+	});
+	test('figures never go down as distances grow, and never claim more than the stored points allow', () => {
+		let previous = 0;
+		const drops: number[] = [];
+		for (let m = 0; m < 2_000_000; m += 41) {
+			const shown = shownFigure(m, 'mi');
+			if (shown < previous) drops.push(m);
+			previous = shown;
+		}
+		expect(drops).toEqual([]);
+		// The nearest figure ("under 2 mi", up to 2.4 km) is coarser than the 1.6 km the stored points may be off by.
+		expect(bandsInMetres('mi')[0]!.belowMetres).toBeGreaterThan(1_600);
+		for (const m of [2_500, 5_000, 15_000, 44_000, 300_000]) {
+			const shown = formatDistance(m, 'mi').figure!;
+			expect(Math.abs(shown * MILE - m)).toBeLessThanOrEqual(stepOf(m, 'mi') / 2 + 1e-6);
 		}
 	});
 });
 
 describe('radiusReachMetres: how far the pre-filter looks for a radius', () => {
 	test("the upper edge of the radius's own figure", () => {
-		expect(RADIUS_CHOICES_KM.map(radiusReachMetres)).toEqual([2_500, 5_500, 12_500, 27_500, 55_000]);
-		expect(() => radiusReachMetres(1)).toThrow(RangeError);
-		expect(() => radiusReachMetres(12)).toThrow(RangeError);
+		expect(RADIUS_CHOICES.map((r) => radiusReachMetres(r, 'km'))).toEqual([2_500, 5_500, 12_500, 27_500, 55_000]);
+		// 2.5, 5.5, 12.5, 27.5 and 55 miles.
+		const miles = RADIUS_CHOICES.map((r) => radiusReachMetres(r, 'mi'));
+		[2.5, 5.5, 12.5, 27.5, 55].forEach((m, i) => expect(miles[i]).toBeCloseTo(m * MILE, 6));
+		expect(() => radiusReachMetres(1, 'km')).toThrow(RangeError);
+		expect(() => radiusReachMetres(12, 'km')).toThrow(RangeError);
+		expect(() => radiusReachMetres(12, 'mi')).toThrow(RangeError);
 	});
-	test('every distance below it is shown within the radius, every distance from it on beyond: at the edges too', () => {
-		const next = random(11);
-		for (const radiusKm of RADIUS_CHOICES_KM) {
-			const reach = radiusReachMetres(radiusKm);
-			const samples = [...around(reach), ...around(radiusKm * 1000), ...Array.from({ length: 5_000 }, () => next() * 2 * reach)];
-			expect(samples.filter((metres) => shownMetres(metres) <= radiusKm * 1000 !== metres < reach)).toEqual([]);
+	test.each<DistanceUnit>(['km', 'mi'])(
+		'every distance below it is shown within the radius, every distance from it on beyond: at the edges too (%s)',
+		(unit) => {
+			const next = random(11);
+			const size = unit === 'km' ? 1000 : MILE;
+			for (const radius of RADIUS_CHOICES) {
+				const reach = radiusReachMetres(radius, unit);
+				const samples = [...around(reach), ...around(radius * size), ...Array.from({ length: 5_000 }, () => next() * 2 * reach)];
+				expect(samples.filter((metres) => shownFigure(metres, unit) <= radius !== metres < reach)).toEqual([]);
+			}
 		}
-	});
+	);
 });

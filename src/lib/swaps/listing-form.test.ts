@@ -83,3 +83,10 @@ describe('the listing form', () => {
 		expect(untilEndOf('1 March', now)).toBeNull();
 	});
 });
+
+describe('titles with hidden characters', () => {
+	test('a right-to-left override (U+202E) is refused at the field; emoji stay', () => {
+		expect(parseListingDraft(draft({ title: 'Stems \u202Eexe.gpj' }), now)).toMatchObject({ ok: false, errors: { title: expect.stringMatching(/direction/) } });
+		expect(parseListingDraft(draft({ title: 'Stems 🌿 for all' }), now)).toMatchObject({ ok: true, input: { title: 'Stems 🌿 for all' } });
+	});
+});

@@ -1,5 +1,6 @@
 // The listing form: what the member typed (kept as text, so a failed save shows it again) and
 // the checked input the server saves.
+import { composed, nameProblem } from '../text';
 import {
 	checkAvailableUntil,
 	DAY_MS,
@@ -123,9 +124,10 @@ export function parseListingDraft(d: ListingDraft, now: Date): ParsedListing {
 	if (!kind) errors.kind = 'Choose an offer or a wanted post.';
 	const category = LISTING_CATEGORIES.find((c) => c === d.category);
 	if (!category) errors.category = 'Choose a category.';
-	const title = d.title.trim().replace(/\s+/g, ' ');
+	const title = composed(d.title).replace(/\s+/g, ' ');
 	if (title.length < 3) errors.title = 'Give the listing a title of at least 3 characters.';
 	else if (title.length > TITLE_MAX) errors.title = `Keep the title to ${TITLE_MAX} characters.`;
+	else if (nameProblem(title)) errors.title = nameProblem(title)!;
 
 	const withSpecies = category ? hasSpecies(category) : false;
 	const speciesId = withSpecies ? optionalId(d.speciesId) : null;

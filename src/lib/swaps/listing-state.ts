@@ -9,7 +9,7 @@
 // Only the owner changes the state. The one thing the other side does is confirm the handover:
 // it takes both confirmations, in either order, so neither can close the swap alone.
 
-import { formatDate } from '$lib/format';
+import { formatDate } from '../format';
 import { checkAvailableUntil, type ListingCategory, type ListingKind } from './listing';
 
 export const LISTING_STATES = ['open', 'reserved', 'handed-over', 'withdrawn', 'expired'] as const;

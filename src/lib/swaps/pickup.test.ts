@@ -32,5 +32,7 @@ describe('pickup proposals', () => {
 	test('describes the arrangement with the weekday', () => {
 		// 14 March 2031 is a Friday.
 		expect(describePickup(ok)).toBe('Fri 14 Mar 2031, 10:00–11:00, at the library entrance');
+		// The zone that day from the IANA database: New Zealand keeps daylight time (UTC+13) until April.
+		expect(describePickup(ok, 'Pacific/Auckland')).toBe('Fri 14 Mar 2031, 10:00–11:00 local time (GMT+13), at the library entrance');
 	});
 });

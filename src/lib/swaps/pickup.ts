@@ -1,6 +1,7 @@
 // A proposed pickup: a day, a time window and a meeting point, agreed in the conversation. Times
 // are the members' local clock time as they type it (the club meets in one place), so they are
 // kept as text and never converted between time zones.
+import { zoneName } from '../format';
 import { DAY_MS } from './listing';
 
 export interface PickupProposal {
@@ -59,8 +60,10 @@ export function checkPickup(p: PickupProposal, now: Date): Partial<Record<keyof 
 const dayFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 
 /** "Sat 14 Mar 2026, 10:00–11:00, at the library entrance". */
-export function describePickup(p: PickupProposal): string {
+export function describePickup(p: PickupProposal, timeZone?: string): string {
 	const day = dayNumber(p.on);
 	const when = day === null ? p.on : dayFormat.format(new Date(day * DAY_MS)).replace(',', '');
-	return `${when}, ${p.from}–${p.to}, at ${p.place.trim()}`;
+	// The zone as on that day (noon UTC), so a pickup after a change of clocks names the right one.
+	const zone = timeZone && day !== null ? ` local time (${zoneName(new Date(day * DAY_MS + DAY_MS / 2), timeZone)})` : '';
+	return `${when}, ${p.from}–${p.to}${zone}, at ${p.place.trim()}`;
 }

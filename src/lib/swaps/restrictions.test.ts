@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { assess, checkedLabel, jurisdictionsOf, refusalMessage, warningMessage, type Restriction } from './restrictions';
+import { assess, checkedLabel, CHECK_BASIS_LABELS, jurisdictionsOf, refusalMessage, warningMessage, type Restriction } from './restrictions';
 
 // Which entries apply is our rule (no source); the entries here are made up for the test.
 const entry = (over: Partial<Restriction>): Restriction => ({
@@ -34,9 +34,10 @@ describe('restricted species', () => {
 		);
 		expect(warningMessage(entry({ commonName: '', note: '' }))).toBe('Examplea invasiva is restricted in Northland (Northland weed order 2030).');
 	});
-	test('says honestly how an entry was checked', () => {
-		expect(checkedLabel({ checkedOn: '2031-01-05', checkBasis: 'source' })).toBe('checked 5 Jan 2031 against the list');
-		expect(checkedLabel({ checkedOn: '2031-01-05', checkBasis: 'memory' })).toBe('checked 5 Jan 2031, from memory');
+	test('members see when an entry was checked; the basis is for the admins’ list, in plain words', () => {
+		expect(checkedLabel({ checkedOn: '2031-01-05' })).toBe('last checked 5 Jan 2031');
+		expect(CHECK_BASIS_LABELS).toEqual({ source: 'against the published list', memory: 'not yet against the published list' });
+		expect(Object.values(CHECK_BASIS_LABELS).join(' ')).not.toMatch(/memory/);
 	});
 	test('distinct jurisdictions, sorted', () => {
 		expect(jurisdictionsOf([{ jurisdiction: 'Southland' }, { jurisdiction: 'Northland' }, { jurisdiction: 'Southland' }])).toEqual(['Northland', 'Southland']);

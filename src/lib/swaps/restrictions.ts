@@ -2,7 +2,7 @@
 // club's own rules), each for one jurisdiction. The club picks the jurisdictions it is in; only
 // their entries apply. A banned species cannot be offered or asked for; a cautioned one can, with
 // a warning shown to both members on the listing and in the conversation.
-import { formatDate } from '$lib/format';
+import { formatDate } from '../format';
 
 export const RESTRICTION_LEVELS = ['banned', 'cautioned'] as const;
 export type RestrictionLevel = (typeof RESTRICTION_LEVELS)[number];
@@ -55,10 +55,19 @@ export function warningMessage(e: Restriction): string {
 	return `${name(e)} is restricted in ${e.jurisdiction} (${e.source}).${e.note ? ' ' + e.note : ''}`;
 }
 
-/** "checked 1 Dec 2026 against the list" or "checked 1 Dec 2026, from memory". */
-export function checkedLabel(e: Pick<Restriction, 'checkedOn' | 'checkBasis'>): string {
-	return `checked ${formatDate(e.checkedOn)}${e.checkBasis === 'memory' ? ', from memory' : ' against the list'}`;
+/**
+ * What members see beside an entry: "last checked 1 Dec 2026". How it was checked is provenance,
+ * which the sources note (/sources#restricted) explains; the admins' list shows each entry's basis.
+ */
+export function checkedLabel(e: Pick<Restriction, 'checkedOn'>): string {
+	return `last checked ${formatDate(e.checkedOn)}`;
 }
+
+/** The basis of a check, in words for the admins' list. */
+export const CHECK_BASIS_LABELS: Readonly<Record<CheckBasis, string>> = {
+	source: 'against the published list',
+	memory: 'not yet against the published list'
+};
 
 /** The distinct jurisdictions of a list, in alphabetical order, for the club's setting. */
 export function jurisdictionsOf(entries: readonly Pick<Restriction, 'jurisdiction'>[]): string[] {

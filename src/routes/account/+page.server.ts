@@ -18,6 +18,7 @@ export const load = (async (event) => {
 			displayName: row.displayName ?? '',
 			role: row.role,
 			units: row.units,
+			timeZone: row.timeZone ?? 'UTC',
 			homeAreaId: row.homeAreaId,
 			homeLat: row.homeLat,
 			homeLng: row.homeLng,
@@ -27,6 +28,10 @@ export const load = (async (event) => {
 			memberSince: row.createdAt
 		},
 		areas: areaList.map((a) => ({ id: a.id, name: a.name })),
+		// Every IANA zone this runtime knows, with UTC first (it is not in the list of regions).
+		// The member's own zone is in the list even where this runtime files it under another name
+		// (a browser's "Asia/Kolkata" is "Asia/Calcutta" here).
+		zones: ['UTC', ...[...new Set([...Intl.supportedValuesOf('timeZone'), row.timeZone ?? 'UTC'])].filter((z) => z !== 'UTC').sort()],
 		sessions: active
 	};
 }) satisfies PageServerLoad;

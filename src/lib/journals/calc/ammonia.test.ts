@@ -5,6 +5,8 @@ import {
 	ammoniaNH4ToNH3,
 	ammoniaNToNH3,
 	ammoniumPKa,
+	dangerousTotalAmmonia,
+	UNIONISED_AMMONIA_LEVELS,
 	totalAmmoniaAsNH3,
 	unionisedAmmonia,
 	unionisedAmmoniaLevel,
@@ -40,6 +42,43 @@ describe('unionisedFraction (Emerson et al. 1975)', () => {
 	});
 });
 
+describe('against the published table of University of Florida IFAS Extension circular FA16 (Francis-Floyd et al., "Ammonia in Aquatic Systems", Table 1)', () => {
+	// Fraction of total ammonia that is un-ionised, as the circular prints it (four decimals), for
+	// pH 7.0 from 6 to 32 °C and the circular's worked example (pH 8.0, 24 °C: 0.0502). The circular
+	// computed its table from Emerson et al. (1975); the equation agrees to the printed last digit or
+	// within 2.5 % (the circular's warmest column reads slightly lower than the equation gives).
+	const pH7: [number, number][] = [
+		[6, 0.0013],
+		[8, 0.0016],
+		[10, 0.0018],
+		[12, 0.0022],
+		[14, 0.0025],
+		[16, 0.0029],
+		[18, 0.0034],
+		[20, 0.0039],
+		[22, 0.0046],
+		[24, 0.0052],
+		[26, 0.006],
+		[28, 0.0069],
+		[30, 0.008],
+		[32, 0.0093]
+	];
+	test.each(pH7)('pH 7.0 at %s °C → %s', (t, printed) => {
+		expect(Math.abs(unionisedFraction(7, t).fraction - printed)).toBeLessThanOrEqual(Math.max(0.0001, printed * 0.025));
+	});
+	test('worked example: 1.0 mg/L total at pH 8.0 and 24 °C is 0.0502 mg/L un-ionised, at the level the circular says may harm fish', () => {
+		const r = unionisedAmmonia({ totalMgPerL: 1, basis: 'NH3', pH: 8, tempC: 24 });
+		expect(Math.abs(r.nh3MgPerL - 0.0502)).toBeLessThanOrEqual(0.0001);
+		// FA16: "un-ionized ammonia of 0.05 mg/L may harm fish" — the danger level used here.
+		expect(UNIONISED_AMMONIA_LEVELS.danger).toBe(0.05);
+		expect(r.level).toBe('danger');
+	});
+	test('the total that reaches danger moves with pH: about 1 mg/L at pH 8.0, 24 °C; about 9.6 mg/L at pH 7.0 (0.05 ÷ 0.0052)', () => {
+		expect(dangerousTotalAmmonia(8, 24)).toBeCloseTo(0.05 / 0.0502, 2);
+		expect(Math.abs(dangerousTotalAmmonia(7, 24) - 0.05 / 0.0052) / (0.05 / 0.0052)).toBeLessThan(0.02);
+	});
+});
+
 describe('reading bases: N, NH3 and NH4', () => {
 	test('1 mg/L as N = 1.2159 mg/L as NH3 (14.007 and 17.031 g/mol, CIAAW 2021 abridged)', () => {
 		expect(NH3_PER_N).toBeCloseTo(17.031 / 14.007, 10);
@@ -68,7 +107,7 @@ describe('unionisedAmmonia', () => {
 		const asNH3 = unionisedAmmonia({ totalMgPerL: 1.2159, basis: 'NH3', pH: 7.5, tempC: 25 });
 		expect(asN.nh3MgPerL).toBeCloseTo(asNH3.nh3MgPerL, 5);
 	});
-	test('levels (common practice, no source): 0.02 concern, 0.05 danger', () => {
+	test('levels: 0.02 concern (common practice, no source), 0.05 danger (IFAS FA16)', () => {
 		expect(unionisedAmmoniaLevel(0.019)).toBe('safe');
 		expect(unionisedAmmoniaLevel(0.02)).toBe('concern');
 		expect(unionisedAmmoniaLevel(0.05)).toBe('danger');

@@ -13,7 +13,7 @@ const KELVIN = 273.15;
  */
 export const EMERSON_1975 = { a: 0.09018, b: 2729.92 } as const;
 
-/** Temperatures the equation was fitted over (0–50 °C, from memory of the paper). */
+/** Temperatures the equation was fitted over (0–50 °C, from memory of the paper; not checked against it). */
 export const AMMONIA_VALID_RANGE_C = { min: 0, max: 50 } as const;
 
 export function ammoniumPKa(tempC: number): number {
@@ -62,11 +62,25 @@ export function totalAmmoniaAsNH3(mgPerL: number, basis: AmmoniaBasis): number {
 }
 
 /**
- * Un-ionised ammonia levels for fish, mg/L NH3 (common practice, no source): around 0.02 mg/L is
- * the long-used figure for chronic stress in fish (from memory); 0.05 mg/L and above is treated
- * as acute danger here, erring on the side of the fish.
+ * Un-ionised ammonia levels for fish, mg/L NH3.
+ * - danger 0.05: University of Florida IFAS Extension circular FA16, "Ammonia in Aquatic Systems"
+ *   (Francis-Floyd et al.), which says un-ionised ammonia of 0.05 mg/L may harm fish and that fish
+ *   begin to die as it nears 2.0 mg/L (checked against the circular's text; see ammonia.test.ts).
+ * - concern 0.02: the long-used figure for long-term stress (common practice, no source).
  */
 export const UNIONISED_AMMONIA_LEVELS = { concern: 0.02, danger: 0.05 } as const;
+
+/** How members are told where the figures come from, in plain words (shown on pages and the sources note). */
+export const AMMONIA_SOURCES = {
+	split: 'the share of un-ionised ammonia is worked out from the pH and temperature by the equation of Emerson and colleagues (1975)',
+	danger: 'the University of Florida’s fish-health circular FA16 says 0.05 mg/L of un-ionised ammonia may harm fish',
+	concern: 'around 0.02 mg/L is the level keepers have long taken as the start of long-term stress'
+} as const;
+
+/** Total ammonia (mg/L as NH3) at which water of this pH and temperature holds the danger level of NH3. */
+export function dangerousTotalAmmonia(pH: number, tempC: number): number {
+	return UNIONISED_AMMONIA_LEVELS.danger / unionisedFraction(pH, tempC).fraction;
+}
 
 export type AmmoniaLevel = 'safe' | 'concern' | 'danger';
 

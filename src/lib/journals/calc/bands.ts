@@ -35,7 +35,7 @@ export const TARGET_BANDS: Record<WaterParameter, TargetBand> = {
 		low: 0,
 		high: 0.05,
 		dangerHigh: 0.25,
-		note: 'How harmful a reading is depends on pH and temperature: see the un-ionised ammonia figure.'
+		note: 'How harmful a reading is depends on pH and temperature: a test with both is judged on its un-ionised ammonia, and the danger line moves with them. A test without them is judged on the total alone.'
 	},
 	NO2: { label: 'Nitrite (NO₂)', unit: 'mg/L', low: 0, high: 0.05, dangerHigh: 0.25 },
 	temperature: { label: 'Temperature', unit: '°C', low: 22, high: 28, dangerLow: 15, dangerHigh: 32 },

@@ -17,7 +17,7 @@ export type DueStatus = { kind: 'due-in'; days: number } | { kind: 'due-today' }
 
 export interface ScheduledTask<T extends MaintenanceTask = MaintenanceTask> {
 	task: T;
-	/** 'YYYY-MM-DD' (UTC calendar day). */
+	/** 'YYYY-MM-DD' (the keeper's calendar day). */
 	nextDueOn: string;
 	status: DueStatus;
 	statusLabel: string;
@@ -44,12 +44,13 @@ function checkInterval(task: MaintenanceTask): number {
 }
 
 /**
- * Next due day and status on `now`. A task never logged is due today: the keeper has asked to be
- * reminded of it, and today is the first day it can be done.
+ * Next due day and status on `today` (the keeper's day, as YYYY-MM-DD from $lib/dates; a Date
+ * counts as its UTC day). A task never logged is due today: the keeper has asked to be reminded
+ * of it, and today is the first day it can be done.
  */
-export function scheduleTask<T extends MaintenanceTask>(task: T, now: Date): ScheduledTask<T> {
+export function scheduleTask<T extends MaintenanceTask>(task: T, todayIs: DayInput): ScheduledTask<T> {
 	const interval = checkInterval(task);
-	const today = dayNumber(now, 'today');
+	const today = dayNumber(todayIs, 'today');
 	const due = task.lastDoneOn === null ? today : dayNumber(task.lastDoneOn, 'last done') + interval;
 	const delta = due - today;
 	const status: DueStatus = delta > 0 ? { kind: 'due-in', days: delta } : delta === 0 ? { kind: 'due-today' } : { kind: 'overdue', days: -delta };
@@ -57,9 +58,9 @@ export function scheduleTask<T extends MaintenanceTask>(task: T, now: Date): Sch
 }
 
 /** Tasks of all tanks, the most overdue first; ties by tank then task name, so the order is stable. */
-export function scheduleAll<T extends MaintenanceTask>(tasks: readonly T[], now: Date): ScheduledTask<T>[] {
+export function scheduleAll<T extends MaintenanceTask>(tasks: readonly T[], today: DayInput): ScheduledTask<T>[] {
 	return tasks
-		.map((task) => scheduleTask(task, now))
+		.map((task) => scheduleTask(task, today))
 		.sort(
 			(a, b) =>
 				a.nextDueOn.localeCompare(b.nextDueOn) ||

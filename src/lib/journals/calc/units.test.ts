@@ -4,7 +4,10 @@ import {
 	celsiusToFahrenheit,
 	cmToInches,
 	fahrenheitToCelsius,
+	distanceUnitOf,
 	formatFlow,
+	formatGlass,
+	formatInchFraction,
 	formatLength,
 	formatMass,
 	formatTemperature,
@@ -16,6 +19,8 @@ import {
 	litresPerHourToUsGallonsPerHour,
 	litresToImperialGallons,
 	litresToUsGallons,
+	METRES_PER_MILE,
+	metresPerDistanceUnit,
 	parseLength,
 	parseQuantity,
 	parseTemperature,
@@ -98,6 +103,36 @@ describe('display', () => {
 		expect(formatTemperature(25.3, 'us')).toBe('77.5 °F'); // 25.3 × 1.8 + 32 = 77.54
 		expect(formatTemperature(25, 'imperial')).toBe('25 °C');
 		expect(unitSymbol('volume', 'imperial')).toBe('imp gal');
+	});
+});
+
+describe('glass and distances', () => {
+	// Checked against js-quantities (inch, mile) and NIST Handbook 44, Appendix C (1 mi = 1,609.344 m).
+	test('the international mile', () => {
+		expect(METRES_PER_MILE).toBe(Qty('1 mi').to('m').scalar);
+		expect(metresPerDistanceUnit(distanceUnitOf('us'))).toBe(1609.344);
+		expect(metresPerDistanceUnit(distanceUnitOf('imperial'))).toBe(1609.344);
+		expect(metresPerDistanceUnit(distanceUnitOf('metric'))).toBe(1000);
+	});
+	test('glass to the nearest sixteenth of an inch, in lowest terms', () => {
+		const inches = (mm: number) => Qty(`${mm} mm`).to('in').scalar;
+		// 10 mm = 0.3937 in: 6.3 sixteenths, so 6/16 = 3/8.
+		expect(inches(10) * 16).toBeCloseTo(6.299, 3);
+		expect(formatGlass(10, 'us')).toBe('3/8 in');
+		expect(formatGlass(6, 'imperial')).toBe('1/4 in'); // 3.78 sixteenths
+		expect(formatGlass(19, 'us')).toBe('3/4 in'); // 11.97 sixteenths
+		expect(formatGlass(25.4, 'us')).toBe('1 in');
+		expect(formatGlass(31.75, 'us')).toBe('1 1/4 in');
+		expect(formatGlass(8, 'us')).toBe('5/16 in'); // 5.04 sixteenths
+		expect(formatGlass(0.5, 'us')).toBe('1/16 in');
+		expect(formatGlass(8, 'metric')).toBe('8 mm');
+		expect(formatGlass(6.5, 'metric')).toBe('6.5 mm');
+		expect(formatInchFraction(0.5, 8)).toBe('1/2 in');
+	});
+	test('fractions typed as the trade writes them', () => {
+		expect(parseLength('3/8', 'us')).toEqual({ ok: true, value: 0.9525 });
+		expect(parseLength('1 1/2 in', 'metric')).toEqual({ ok: true, value: 3.81 });
+		expect(parseLength('1/0', 'us').ok).toBe(false);
 	});
 });
 

@@ -1,4 +1,5 @@
-// Unit conversion at the edges. Everything is stored metric (cm, L, kg, L/h, °C); a member's unit
+// Unit conversion at the edges, for every feature (journals, the swap board's distances, judges'
+// bands). Everything is stored metric (cm, mm of glass, L, kg, L/h, °C, metres); a member's unit
 // system only decides how a value is typed in and shown, so stored data never changes meaning
 // when someone switches their preference.
 
@@ -16,6 +17,14 @@ export const LITRES_PER_US_GALLON = 3.785411784;
 export const LITRES_PER_IMPERIAL_GALLON = 4.54609;
 /** International avoirdupois pound = 0.45359237 kg exactly (NIST Handbook 44, Appendix C). */
 export const KG_PER_POUND = 0.45359237;
+/** International mile = 5,280 ft × 0.3048 m = 1,609.344 m exactly (NIST Handbook 44, Appendix C). */
+export const METRES_PER_MILE = 1609.344;
+
+/** The unit distances between members are shown in: miles for US and imperial members, kilometres otherwise. */
+export type DistanceUnit = 'km' | 'mi';
+export const distanceUnitOf = (system: UnitSystem): DistanceUnit => (system === 'metric' ? 'km' : 'mi');
+/** Metres in one kilometre or one mile. */
+export const metresPerDistanceUnit = (unit: DistanceUnit) => (unit === 'km' ? 1000 : METRES_PER_MILE);
 
 export const cmToInches = (cm: number) => requireFinite('length', cm) / CM_PER_INCH;
 export const inchesToCm = (inches: number) => requireFinite('length', inches) * CM_PER_INCH;
@@ -118,6 +127,33 @@ export const formatMass = (kgValue: number, system: UnitSystem, options?: Format
 export const formatFlow = (lph: number, system: UnitSystem, options?: FormatOptions) => formatQuantity('flow', lph, system, options);
 export const formatTemperature = (celsiusValue: number, system: UnitSystem) => formatQuantity('temperature', celsiusValue, system);
 
+/** Glass is sold by nominal thickness: in whole millimetres, or in sixteenths of an inch. */
+export const GLASS_INCH_DENOMINATOR = 16;
+
+const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b));
+
+/**
+ * Inches as a trade fraction to the nearest `denominator`th (a power of two): "3/8 in",
+ * "1 1/4 in", "1 in". A value that rounds to nothing is shown as the smallest step ("1/16 in"), so
+ * a thin pane never reads as "0 in".
+ */
+export function formatInchFraction(inches: number, denominator = GLASS_INCH_DENOMINATOR): string {
+	requireFinite('length', inches);
+	if (inches < 0) throw new CalcInputError('length', `a thickness is not negative (got ${inches})`);
+	const steps = Math.max(1, Math.round(inches * denominator));
+	const whole = Math.floor(steps / denominator);
+	const rest = steps % denominator;
+	const divisor = gcd(rest, denominator);
+	const fraction = rest === 0 ? '' : `${rest / divisor}/${denominator / divisor}`;
+	return `${[whole ? String(whole) : '', fraction].filter(Boolean).join(' ')} in`;
+}
+
+/** The glass: millimetres for metric members (as it is sold), the nearest sixteenth of an inch otherwise ("3/8 in"). */
+export function formatGlass(mm: number, system: UnitSystem): string {
+	requireFinite('length', mm);
+	return system === 'metric' ? `${formatNumber(mm, { decimals: 1 })} mm` : formatInchFraction(cmToInches(mm / 10));
+}
+
 export type ParseResult = { ok: true; value: number } | { ok: false; error: string };
 
 /** Unit words a member may type after a number; each maps to a converter into metric. */
@@ -148,6 +184,18 @@ const SUFFIXES: Record<Quantity, Record<string, ((value: number) => number) | 'g
 };
 
 const NUMBER_WITH_UNIT = /^([+-]?(?:\d+(?:[.,]\d+)?|[.,]\d+))\s*(.*)$/;
+/** "3/8", "1 1/4" (a whole number, a space, a fraction): how inches are written in the trade. */
+const FRACTION_WITH_UNIT = /^(?:(\d+) )?(\d+)\/(\d+)\s*(.*)$/;
+
+/** A typed fraction as a plain decimal number followed by what came after it, or the text unchanged. */
+function fractionToDecimal(text: string): string | { error: string } {
+	const match = FRACTION_WITH_UNIT.exec(text);
+	if (!match) return text;
+	const denominator = Number(match[3]);
+	if (denominator === 0) return { error: 'A fraction cannot have 0 below the line.' };
+	const value = Number(match[1] ?? 0) + Number(match[2]) / denominator;
+	return `${value} ${match[4] ?? ''}`.trim();
+}
 
 export interface ParseOptions {
 	/** Accept zero (default true); a tank dimension would pass false. */
@@ -157,13 +205,15 @@ export interface ParseOptions {
 /**
  * Reads a form value typed in the member's system and returns it in metric. A number alone is in
  * the system's unit; a number followed by a unit ("60 cm", "24 in", "30 gal") is taken in that
- * unit. A plain "gal" means the member's own gallon and is refused for metric members, where it
+ * unit; a fraction ("3/8", "1 1/4 in") is read as its value. A plain "gal" means the member's own gallon and is refused for metric members, where it
  * would be ambiguous. Comma or point is accepted as the decimal mark; thousands separators are not,
  * and a comma followed by exactly three digits ("1,250") is refused because it reads either way.
  */
 export function parseQuantity(quantity: Quantity, input: string, system: UnitSystem, options: ParseOptions = {}): ParseResult {
-	const text = input.trim().replace(/\s+/g, ' ');
-	if (text === '') return { ok: false, error: 'Enter a number.' };
+	const typed = input.trim().replace(/\s+/g, ' ');
+	if (typed === '') return { ok: false, error: 'Enter a number.' };
+	const text = fractionToDecimal(typed);
+	if (typeof text !== 'string') return { ok: false, error: text.error };
 	const match = NUMBER_WITH_UNIT.exec(text);
 	if (!match) return { ok: false, error: 'Enter a number, such as 12 or 12.5.' };
 	const digits = match[1] ?? '';

@@ -1,5 +1,15 @@
 import { describe, expect, test } from 'vitest';
-import { FILLED_TANK_LOAD_CAUTION, SODA_LIME_GLASS_DENSITY_G_PER_CM3, filledTankWeight, glassMass, substrateMassKg, waterDensity, waterMassKg } from './weight';
+import Qty from 'js-quantities';
+import {
+	FILLED_TANK_LOAD_CAUTION,
+	SODA_LIME_GLASS_DENSITY_G_PER_CM3,
+	filledTankWeight,
+	glassMass,
+	loadCaution,
+	substrateMassKg,
+	waterDensity,
+	waterMassKg
+} from './weight';
 
 describe('waterDensity (Tanaka et al. 2001, Metrologia 38:301–309)', () => {
 	// Values of the paper's recommended table (kg/m³, air-free water, 101.325 kPa); the digits are
@@ -78,6 +88,12 @@ describe('substrate and total', () => {
 		expect(w.densityInValidRange).toBe(true);
 		expect(w.caution).toBe(FILLED_TANK_LOAD_CAUTION);
 		expect(FILLED_TANK_LOAD_CAUTION).toMatch(/1 kg for every litre/);
+		// Water near 1 kg/L: a US gallon (3.785 L) is 8.35 lb, an imperial gallon (4.546 L) 10.02 lb (js-quantities).
+		expect(Qty('3.785411784 kg').to('lb').scalar).toBeCloseTo(8.345, 3);
+		expect(Qty('4.54609 kg').to('lb').scalar).toBeCloseTo(10.022, 3);
+		expect(loadCaution('us')).toMatch(/about 8\.3 lb for every US gallon of water, plus/);
+		expect(loadCaution('imperial')).toMatch(/about 10 lb for every imperial gallon of water/);
+		expect(loadCaution('metric')).toBe(FILLED_TANK_LOAD_CAUTION);
 		expect(FILLED_TANK_LOAD_CAUTION).toMatch(/structural engineer/);
 	});
 });

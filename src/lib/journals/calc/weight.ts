@@ -2,6 +2,7 @@
 // number they need before they fill, so every part is shown and the caution travels with it.
 
 import { type OuterDimensions, innerFromOuter } from './volume';
+import type { UnitSystem } from './units';
 import { CalcInputError, requireFinite, requireNonNegative, requirePositive } from './validate';
 
 /**
@@ -147,6 +148,19 @@ export function filledTankWeight(input: FilledTankInput): FilledTankWeight {
 		caution: FILLED_TANK_LOAD_CAUTION
 	};
 }
+
+/**
+ * Water's weight per volume unit in words, rounded as a rule of thumb: 1 kg per litre; 3.785 kg
+ * (8.3 lb) per US gallon; 4.546 kg (10.0 lb) per imperial gallon (see the tests).
+ */
+const WATER_WEIGHT_WORDS: Record<UnitSystem, string> = {
+	metric: '1 kg for every litre',
+	us: '8.3 lb for every US gallon',
+	imperial: '10 lb for every imperial gallon'
+};
+
+/** The caution about a filled tank's load, its rule of thumb in the member's units. */
+export const loadCaution = (units: UnitSystem) => FILLED_TANK_LOAD_CAUTION.replace(WATER_WEIGHT_WORDS.metric, WATER_WEIGHT_WORDS[units]);
 
 export const FILLED_TANK_LOAD_CAUTION =
 	'A filled tank weighs about 1 kg for every litre of water, plus the glass, substrate and rock. ' +

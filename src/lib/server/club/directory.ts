@@ -2,7 +2,7 @@
 // number of ids, so a page of cards costs the same as one card): the name others see, where to
 // mail them, their role, whether they take club announcements or the weekly digest, and areas' names. Features never
 // read the member or area tables themselves.
-import { and, asc, eq, gt, inArray, isNotNull, type SQL } from 'drizzle-orm';
+import { and, asc, eq, gt, inArray, isNotNull, like, type SQL } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
 import { nameOf } from '../../club/names';
 import type { Role } from '../../club/roles';
@@ -25,18 +25,19 @@ const columns = {
 	email: users.email,
 	role: users.role,
 	unsubscribeToken: users.unsubscribeToken,
-	announcements: users.announcements
+	announcements: users.announcements,
+	deletedAt: users.deletedAt
 };
 
 async function select(where: SQL | undefined, context: Context): Promise<Member[]> {
 	const { db } = resolve(context);
 	const rows = await db.select(columns).from(users).where(where);
-	return rows.map(({ displayName, email, ...r }) => ({ ...r, name: nameOf(displayName), email: email ?? '' }));
+	return rows.map(({ displayName, email, deletedAt, ...r }) => ({ ...r, name: nameOf(displayName, deletedAt !== null), email: email ?? '' }));
 }
 
 const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
 
-/** The members with these ids, by id (ids of former members are missing). */
+/** The members with these ids, by id; a former member is named FORMER_MEMBER and has no address. */
 export async function byIds(ids: Iterable<string>, context: Context = {}): Promise<Map<string, Member>> {
 	const unique = [...new Set(ids)];
 	if (unique.length === 0) return new Map();
@@ -84,4 +85,22 @@ export async function weeklyDigestReaders(page: { afterId?: string; limit: numbe
 		.orderBy(asc(users.id))
 		.limit(page.limit);
 	return rows.map((r) => ({ ...r, email: r.email ?? '' }));
+}
+
+/** Members' home points (rounded to about a kilometre, as stored), by id; members without one are missing. */
+export async function homePoints(ids: Iterable<string>, context: Context = {}): Promise<Map<string, { lat: number; lng: number }>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	const { db } = resolve(context);
+	const rows = await db.select({ id: users.id, lat: users.homeLat, lng: users.homeLng }).from(users).where(inArray(users.id, unique));
+	return new Map(rows.flatMap((r) => (r.lat === null || r.lng === null ? [] : [[r.id, { lat: r.lat, lng: r.lng }] as const])));
+}
+
+/** Members whose shown name starts with `prefix` (at least two characters), by name, at most `limit`. */
+export async function findByName(prefix: string, limit = 10, context: Context = {}): Promise<Member[]> {
+	const typed = prefix.trim();
+	if (typed.length < 2) return [];
+	const escaped = typed.replace(/[\\%_]/g, (c) => `\\${c}`);
+	const found = await select(and(like(users.displayName, `${escaped}%`), isNotNull(users.email)), context);
+	return found.sort(byName).slice(0, limit);
 }

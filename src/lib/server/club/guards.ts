@@ -46,6 +46,22 @@ export function requireSignedIn(event: Guarded): Account {
 	return account;
 }
 
+/**
+ * "Not found" for something the viewer may not see. A signed-out visitor is offered sign-in, in
+ * the same words whether the thing is missing or only for members, so the answer says nothing
+ * about whether it exists.
+ */
+export function notFoundOrSignIn(event: Guarded, message: string): never {
+	if (!event.locals.user && !isApi(event)) {
+		error(404, {
+			message:
+				'There is nothing to show here without signing in. Much of the club’s site is for members only: sign in, and if it is there for you, you will see it.',
+			signIn: signInPath(event.url)
+		});
+	}
+	error(404, message);
+}
+
 /** The signed-in person when they hold one of `roles`; 403 otherwise. */
 export function requireRole(event: Guarded, ...roles: Role[]): Viewer {
 	const user = requireUser(event);

@@ -24,6 +24,8 @@ export const users = mysqlTable(
 		homeLng: decimal({ precision: 6, scale: 2, mode: 'number' }),
 		homeAreaId: ref(),
 		units: mysqlEnum(UNIT_SYSTEMS).notNull().default('metric'),
+		/** IANA name; null until the member chose one or their browser reported its own. */
+		timeZone: varchar({ length: 64 }),
 		notifyMessages: mysqlEnum(['each', 'hourly', 'off']).notNull().default('hourly'),
 		weeklyDigest: boolean().notNull().default(false),
 		announcements: boolean().notNull().default(true),
@@ -37,7 +39,11 @@ export const users = mysqlTable(
 		/** Why an admin suspended the member (shown to admins only). */
 		stateReason: varchar({ length: 500 }),
 		/** Whether the member appears in the member directory; off until they choose it. */
-		inDirectory: boolean().notNull().default(false)
+		inDirectory: boolean().notNull().default(false),
+		/** Set when the member deleted their account (or an admin removed it): the row is then an
+		 * opaque tombstone with nothing personal left, kept so published results, conversations and
+		 * audit rows still point somewhere. See club/account-deletion.ts. */
+		deletedAt: at()
 	},
 	(t) => [index('user_role_idx').on(t.role), index('user_display_name_idx').on(t.displayName), index('user_state_idx').on(t.state)]
 );

@@ -1,7 +1,7 @@
 // Database sessions (Auth.js writes them; we read, renew and end them) and the account page's
 // list of devices a member is signed in on.
 import { createHash } from 'node:crypto';
-import { and, desc, eq, gt } from 'drizzle-orm';
+import { and, desc, eq, gt, sql } from 'drizzle-orm';
 import { notFound } from '../../errors';
 import { resolve, type Context } from '../context';
 import { sessions, users } from './schema';
@@ -79,27 +79,33 @@ export const renewalDue = (session: Pick<ResolvedSession, 'expires'>, context: C
 	session.expires.getTime() - SESSION_MAX_AGE_MS + SESSION_UPDATE_AGE_MS <= resolve(context).now.getTime();
 
 /**
- * Records the device and time of use (at most every few minutes) and, when `renew` is set,
- * pushes the session's end out; returns the new end, or null when nothing was renewed.
+ * Records the device and time of use (at most every few minutes) and, when `renew` is set, pushes
+ * the session's end out; returns the new end, or null when nothing was renewed. The session and
+ * its member's last-seen time are written in one statement, and only when something is due, so a
+ * signed-in read costs the one query of `find`. The caller need not wait for the write: the new
+ * end is returned at once and the write settles in `written`.
  */
-export async function recordUse(
+export function recordUse(
 	token: string,
 	session: ResolvedSession,
 	userAgent: string | null,
 	renew: boolean,
 	context: Context = {}
-): Promise<Date | null> {
+): { expires: Date | null; written: Promise<void> } {
 	const { db, now } = resolve(context);
 	const expires = renew ? new Date(now.getTime() + SESSION_MAX_AGE_MS) : null;
 	const stale = (at: Date | null) => !at || now.getTime() - at.getTime() >= TOUCH_GAP_MS;
-	if (expires || stale(session.lastSeenAt)) {
-		await db
-			.update(sessions)
-			.set({ lastSeenAt: now, userAgent: userAgent?.slice(0, 255) ?? null, ...(expires ? { expires } : {}) })
-			.where(eq(sessions.sessionToken, token));
-	}
-	if (stale(session.user.lastSeenAt)) await db.update(users).set({ lastSeenAt: now }).where(eq(users.id, session.user.id));
-	return expires;
+	if (!expires && !stale(session.lastSeenAt) && !stale(session.user.lastSeenAt)) return { expires, written: Promise.resolve() };
+	// Drizzle has no multi-table UPDATE; the column names are the schema's (Auth.js's own for the session).
+	const written = db
+		.execute(
+			sql`UPDATE ${sessions} INNER JOIN ${users} ON ${users.id} = ${sessions.userId}
+				SET ${sessions.lastSeenAt} = ${now}, ${sessions.userAgent} = ${userAgent?.slice(0, 255) ?? null}, ${users.lastSeenAt} = ${now}
+				${expires ? sql`, ${sessions.expires} = ${expires}` : sql``}
+				WHERE ${sessions.sessionToken} = ${token}`
+		)
+		.then(() => undefined);
+	return { expires, written };
 }
 
 /** The session cookie's name as Auth.js sets it: the `__Secure-` form when the club is served over HTTPS. */

@@ -1,12 +1,14 @@
 // How many sign-in links may be asked for: a few an hour per address and per client.
 import { createHash } from 'node:crypto';
-import { and, count, eq, gte, lt } from 'drizzle-orm';
+import { and, count, eq, gte, lt, sql } from 'drizzle-orm';
 import { DomainError } from '../../errors';
 import { config } from '../config';
 import { resolve, type Context } from '../context';
 import { signInRequests } from './schema';
 
 export const SIGN_IN_WINDOW_MS = 60 * 60_000;
+/** How long a request waits for the ones before it with the same address or client. */
+const LOCK_WAIT_SECONDS = 10;
 
 // Addresses and client addresses are stored only as salted hashes.
 const hashOf = (value: string) =>
@@ -33,19 +35,41 @@ export async function checkAndRecord(email: string, client: string, limits: Sign
 	const emailHash = hashOf(email);
 	const clientHash = hashOf(client);
 
-	const [byAddress] = await db
-		.select({ n: count() })
-		.from(signInRequests)
-		.where(and(eq(signInRequests.emailHash, emailHash), gte(signInRequests.createdAt, since)));
-	if ((byAddress?.n ?? 0) >= perAddress) return { allowed: false, reason: 'address', retryAfterMinutes: 60 };
-	const [byClient] = await db
-		.select({ n: count() })
-		.from(signInRequests)
-		.where(and(eq(signInRequests.clientHash, clientHash), gte(signInRequests.createdAt, since)));
-	if ((byClient?.n ?? 0) >= perClient) return { allowed: false, reason: 'client', retryAfterMinutes: 60 };
-
-	await db.insert(signInRequests).values({ emailHash, clientHash, createdAt: now });
-	return { allowed: true };
+	// Requests for the same address or from the same client are counted one at a time: without it
+	// a burst sent at once is counted before any of it is recorded, and all of it passes. Each
+	// request takes a named lock per address and per client (in one order, so two requests never
+	// wait on each other); the counts are locking reads, which also wait for a row the previous
+	// holder inserted and has not committed yet. The table has no row to lock before the first
+	// request, hence named locks rather than a row lock.
+	return db.transaction(
+		async (tx) => {
+			const names = [`signin:a:${emailHash.slice(0, 48)}`, `signin:c:${clientHash.slice(0, 48)}`].sort();
+			for (const name of names) {
+				const [rows] = (await tx.execute(sql`SELECT GET_LOCK(${name}, ${LOCK_WAIT_SECONDS}) AS got`)) as unknown as [{ got: number | null }[]];
+				if (rows[0]?.got !== 1) throw new DomainError(503, 'busy', 'Too many sign-in requests at once. Try again in a moment.');
+			}
+			try {
+				const [byAddress] = await tx
+					.select({ n: count() })
+					.from(signInRequests)
+					.where(and(eq(signInRequests.emailHash, emailHash), gte(signInRequests.createdAt, since)))
+					.for('update');
+				if ((byAddress?.n ?? 0) >= perAddress) return { allowed: false, reason: 'address', retryAfterMinutes: 60 } as const;
+				const [byClient] = await tx
+					.select({ n: count() })
+					.from(signInRequests)
+					.where(and(eq(signInRequests.clientHash, clientHash), gte(signInRequests.createdAt, since)))
+					.for('update');
+				if ((byClient?.n ?? 0) >= perClient) return { allowed: false, reason: 'client', retryAfterMinutes: 60 } as const;
+				await tx.insert(signInRequests).values({ emailHash, clientHash, createdAt: now });
+				return { allowed: true } as const;
+			} finally {
+				for (const name of names) await tx.execute(sql`SELECT RELEASE_LOCK(${name})`);
+			}
+		},
+		// No gap locks: requests for other addresses never wait on this one.
+		{ isolationLevel: 'read committed' }
+	);
 }
 
 /** Records a request for a link, or refuses it (429, at the address field) when too many were asked for. */

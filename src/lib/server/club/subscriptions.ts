@@ -1,40 +1,50 @@
 // Which club-wide mail a member takes (announcements, the weekly digest), changed from the link
-// at the foot of such mail without signing in: the member's unguessable unsubscribe token is the
-// credential. The mail service builds those links (mail/unsubscribe.ts); the settings are ours.
-import { eq } from 'drizzle-orm';
+// at the foot of such mail without signing in. The link's signed token (mail/unsubscribe.ts) is
+// the credential, and it opens one member's one topic: nothing else can be read or changed with it.
+import { and, eq, isNull } from 'drizzle-orm';
 import { maskEmail } from '../../format';
 import { notFound } from '../../errors';
 import { resolve, type Context } from '../context';
+import { verifyUnsubscribeToken, type UnsubscribeTopic } from '../mail/unsubscribe';
 import { users } from './schema';
 
-export interface Subscriptions {
-	announcements: boolean;
-	weeklyDigest: boolean;
+export const INVALID_LINK = 'That unsubscribe link is not valid. You can change your mail settings on your account page.';
+
+export interface Subscription {
+	topic: UnsubscribeTopic;
+	/** The member's address, masked (the page is seen without signing in). */
+	email: string;
+	subscribed: boolean;
 }
 
-const TOKEN = /^[0-9a-f]{32}$/;
-export const INVALID_LINK = 'That unsubscribe link is not valid any more. You can change your mail settings on your account page.';
+const column = { announcements: users.announcements, digest: users.weeklyDigest } as const;
 
-async function memberOf(token: string, context: Context) {
-	if (!TOKEN.test(token)) return undefined;
+async function open(token: string, context: Context) {
+	const signed = verifyUnsubscribeToken(token);
+	if (!signed) return undefined;
 	const { db } = resolve(context);
 	const [row] = await db
-		.select({ id: users.id, email: users.email, announcements: users.announcements, weeklyDigest: users.weeklyDigest })
+		.select({ id: users.id, email: users.email, subscribed: column[signed.topic] })
 		.from(users)
-		.where(eq(users.unsubscribeToken, token))
+		.where(and(eq(users.id, signed.memberId), isNull(users.deletedAt)))
 		.limit(1);
-	return row;
+	return row && { ...row, topic: signed.topic };
 }
 
-/** The settings a token opens, with the address masked (the page is seen without signing in); undefined for an unknown token. */
-export async function byToken(token: string, context: Context = {}): Promise<(Subscriptions & { email: string }) | undefined> {
-	const row = await memberOf(token, context);
-	return row && { email: maskEmail(row.email ?? ''), announcements: row.announcements, weeklyDigest: row.weeklyDigest };
+/** What a token opens; undefined for a token we did not sign, or a member no longer here. */
+export async function byToken(token: string, context: Context = {}): Promise<Subscription | undefined> {
+	const row = await open(token, context);
+	return row && { topic: row.topic, email: maskEmail(row.email ?? ''), subscribed: row.subscribed };
 }
 
-export async function update(token: string, settings: Subscriptions, context: Context = {}): Promise<void> {
-	const row = await memberOf(token, context);
+/** Turns the token's one topic on or off for its one member. */
+export async function set(token: string, subscribed: boolean, context: Context = {}): Promise<Subscription> {
+	const row = await open(token, context);
 	if (!row) throw notFound(INVALID_LINK);
 	const { db } = resolve(context);
-	await db.update(users).set(settings).where(eq(users.id, row.id));
+	await db
+		.update(users)
+		.set({ [row.topic === 'digest' ? 'weeklyDigest' : 'announcements']: subscribed })
+		.where(eq(users.id, row.id));
+	return { topic: row.topic, email: maskEmail(row.email ?? ''), subscribed };
 }

@@ -1,11 +1,11 @@
 // Members: who they are, their profile and settings, and their role in the club.
-import { and, asc, count, eq, like, ne, or, sql } from 'drizzle-orm';
+import { and, asc, count, eq, isNull, like, ne, or, sql, type SQL } from 'drizzle-orm';
 import { assertRole, type Role } from '../../club/roles';
 import type { MemberState } from '../../club/membership';
-import type { ProfileInput } from '../../club/profile';
+import { timeZoneSchema, type ProfileInput } from '../../club/profile';
 import { roundToKilometre, type LatLng } from '../../club/location';
 import type { Viewer } from '../../club/viewer';
-import { conflict, invalid, notFound } from '../../errors';
+import { conflict, invalid, notFound, parseOrThrow } from '../../errors';
 import { resolve, within, type Context } from '../context';
 import * as audit from '../audit';
 import * as areas from './areas';
@@ -20,7 +20,8 @@ export function toViewer(row: UserRow): Viewer {
 		email: row.email ?? '',
 		displayName: row.displayName,
 		role: row.role,
-		units: row.units
+		units: row.units,
+		timeZone: row.timeZone
 	};
 }
 
@@ -57,6 +58,7 @@ export async function saveProfile(viewer: Viewer, input: ProfileInput, context: 
 		.set({
 			displayName: input.displayName,
 			units: input.units,
+			...(input.timeZone === undefined ? {} : { timeZone: input.timeZone }),
 			homeAreaId,
 			homeLat: home?.lat ?? null,
 			homeLng: home?.lng ?? null,
@@ -67,20 +69,35 @@ export async function saveProfile(viewer: Viewer, input: ProfileInput, context: 
 		.where(eq(users.id, viewer.id));
 }
 
+/**
+ * The zone the member's browser reports, kept only while the member has none: sent once after
+ * sign-in so that times are theirs from then on; a zone chosen on the account page is never
+ * replaced. Whether it was kept.
+ */
+export async function adoptTimeZone(viewer: Pick<Viewer, 'id'>, timeZone: string, context: Context = {}): Promise<boolean> {
+	const { db } = resolve(context);
+	const zone = parseOrThrow(timeZoneSchema, timeZone);
+	const [result] = await db
+		.update(users)
+		.set({ timeZone: zone })
+		.where(and(eq(users.id, viewer.id), isNull(users.timeZone)));
+	return result.affectedRows === 1;
+}
+
 export const MEMBERS_PAGE_SIZE = 20;
 
 /** The member list as admins see it (addresses included), searched by name or address, by role and state, one page at a time. */
 export async function listMembers(admin: Viewer, filter: { search?: string; role?: Role; state?: MemberState; page: number }, context: Context = {}) {
 	assertRole(admin, 'admin');
 	const { db } = resolve(context);
-	const conditions = [];
+	const conditions: (SQL | undefined)[] = [isNull(users.deletedAt)];
 	if (filter.search) {
 		const pattern = `%${filter.search.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
 		conditions.push(or(like(users.displayName, pattern), like(users.email, pattern)));
 	}
 	if (filter.role) conditions.push(eq(users.role, filter.role));
 	if (filter.state) conditions.push(eq(users.state, filter.state));
-	const where = conditions.length ? and(...conditions) : undefined;
+	const where = and(...conditions);
 	const [{ total }] = (await db.select({ total: count() }).from(users).where(where)) as [{ total: number }];
 	const rows = await db
 		.select({

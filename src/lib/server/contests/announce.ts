@@ -31,7 +31,7 @@ function podium(results: PublicResults): string[] {
 	});
 }
 
-export function announcementMail(results: PublicResults, token: string) {
+export function announcementMail(results: PublicResults, memberId: string) {
 	const c = results.contest;
 	const { html, text } = renderMail({
 		heading: `Results of “${c.title}”`,
@@ -42,9 +42,9 @@ export function announcementMail(results: PublicResults, token: string) {
 		],
 		action: { label: 'See the results', url: resultsUrl(c.id) },
 		footer: 'You get this mail because you take club announcements.',
-		unsubscribeUrl: unsubscribeUrl(token, 'announcements')
+		unsubscribeUrl: unsubscribeUrl(memberId, 'announcements')
 	});
-	return { subject: `Results: ${c.title}`, html, text, headers: unsubscribeHeaders(token, 'announcements') };
+	return { subject: `Results: ${c.title}`, html, text, headers: unsubscribeHeaders(memberId, 'announcements') };
 }
 
 export function entrantMail(results: PublicResults, entry: PublicEntry, name: string) {
@@ -96,10 +96,10 @@ async function plan(contestId: number, context: Context): Promise<AnnouncementPl
 export async function preview(viewer: Viewer, contestId: number, context: Context = {}) {
 	assertAdmin(viewer);
 	const p = await plan(contestId, context);
-	const sampleToken = p.recipients[0]?.unsubscribeToken ?? '0'.repeat(32);
 	const sample = p.entrants[0];
 	return {
-		announcement: announcementMail(p.results, sampleToken),
+		// The sample's unsubscribe link is the admin's own: never another member's working link.
+		announcement: announcementMail(p.results, viewer.id),
 		entrantSample: sample ? { name: sample.person.name, ...entrantMail(p.results, sample.entry, sample.person.name) } : null,
 		recipients: p.recipients.length,
 		entrants: p.entrants.length,
@@ -124,7 +124,7 @@ export async function send(viewer: Viewer, contestId: number, context: Context =
 			})),
 			...p.recipients.map((person) => ({
 				to: person.email,
-				...announcementMail(p.results, person.unsubscribeToken),
+				...announcementMail(p.results, person.id),
 				topic: `${topicPrefix(contestId)}announce`,
 				bulk: true,
 				dedupeKey: `contest:${contestId}:${rev}:announce:${person.id}`
@@ -155,4 +155,10 @@ export async function delivery(viewer: Viewer, contestId: number, page: number, 
 		listOutbox({ topic: topicPrefix(contestId), address: address || undefined, page })
 	]);
 	return { summary, ...listing };
+}
+
+/** Only the counts of `delivery`, for polling: one grouped count on the outbox's topic index. */
+export async function deliveryCounts(viewer: Viewer, contestId: number) {
+	assertAdmin(viewer);
+	return deliverySummary(topicPrefix(contestId));
 }

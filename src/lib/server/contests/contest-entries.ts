@@ -9,6 +9,7 @@ import * as media from '../media';
 import type { Photo } from '../media';
 import * as tanks from '../journals/tanks';
 import * as audit from '../audit';
+import { statementShown } from '../markdown';
 import { conflict, DomainError, invalid, isDomainError, notFound } from '../../errors';
 import { checkEligibility, type EligibilityCheck, type TankFacts } from '../../contests/eligibility';
 import { entriesAccepted } from '../../contests/lifecycle';
@@ -64,7 +65,7 @@ export async function tankOptions(viewer: Viewer, contest: ContestDetail, contex
 			cover: summary.cover,
 			facts,
 			ageLabel,
-			eligibility: Object.fromEntries(contest.categories.map((c) => [c.id, checkEligibility(ruleOf(c), facts)])),
+			eligibility: Object.fromEntries(contest.categories.map((c) => [c.id, checkEligibility(ruleOf(c), facts, viewer.units)])),
 			enteredAs: enteredAs.get(tank.id) ?? null
 		});
 	}
@@ -84,7 +85,7 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: Contest
 	const tank = await tanks.getOwn(viewer, input.tankId, { db: tx });
 	if (!tank) throw invalid({ tankId: 'Choose one of your own tanks.' }, undefined, 'bad-tank');
 	const { facts } = factsOf(tank, { now });
-	const check = checkEligibility(ruleOf(category), facts);
+	const check = checkEligibility(ruleOf(category), facts, viewer.units);
 	if (!check.eligible) {
 		throw invalid({ tankId: check.reasons.join(' ') }, `“${tank.name}” cannot be entered in ${category.name}: ${check.reasons.join(' ')}`, 'ineligible');
 	}
@@ -118,6 +119,7 @@ async function vet(tx: DbOrTx, viewer: Viewer, contestId: number, input: Contest
 			categoryId: category.id,
 			tankId: tank.id,
 			statement: input.statement,
+			...statementShown(input.statement),
 			litres: check.comparedLitres,
 			volumeSource: facts.volumeSource,
 			ageWeeks: facts.ageWeeks,

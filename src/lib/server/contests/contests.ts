@@ -18,6 +18,7 @@ export interface ContestDetail extends ContestRow {
 	criteria: CriterionRow[];
 	categories: CategoryRow[];
 }
+import { renderMarkdown } from '../markdown';
 
 export const isAdminViewer = (viewer: Pick<Viewer, 'role'> | null | undefined) => viewer?.role === 'admin';
 
@@ -259,6 +260,7 @@ export async function create(viewer: Viewer, input: ContestInput, context: Conte
 	return db.transaction(async (tx) => {
 		const [result] = await tx.insert(contests).values({
 			...settings(input),
+			rulesHtml: renderMarkdown(input.rules),
 			entriesPerMember: input.entriesPerMember,
 			aggregation: input.aggregation,
 			createdBy: viewer.id,
@@ -283,7 +285,12 @@ export async function update(viewer: Viewer, id: number, input: ContestInput, co
 		const locked = found.state !== 'draft';
 		await tx
 			.update(contests)
-			.set({ ...settings(input), ...(locked ? {} : { entriesPerMember: input.entriesPerMember, aggregation: input.aggregation }), updatedAt: now })
+			.set({
+				...settings(input),
+				rulesHtml: renderMarkdown(input.rules),
+				...(locked ? {} : { entriesPerMember: input.entriesPerMember, aggregation: input.aggregation }),
+				updatedAt: now
+			})
 			.where(eq(contests.id, id));
 		if (!locked) await writeRubricAndCategories(tx, id, input);
 		const changed = Object.entries(settings(input))

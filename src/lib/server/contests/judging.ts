@@ -11,7 +11,7 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as media from '../media';
 import * as audit from '../audit';
-import { renderMarkdown } from '../markdown';
+import { statementShown, storedHtml } from '../markdown';
 import { conflict, DomainError, notFound } from '../../errors';
 import type { RenditionSize } from '../../media/urls';
 import type { UnitSystem } from '../../club/roles';
@@ -38,7 +38,7 @@ import { SCOPE } from './contest-entries';
  * aspect ratio; the pixel size of a cropped photo could be matched as well.
  */
 export interface BlindPhoto {
-	/** 1 for the full-front view. */
+	/** 1 for the whole-tank photo. */
 	position: number;
 	urls: Record<RenditionSize, string>;
 	/** Width ÷ height, to two decimals. */
@@ -85,13 +85,14 @@ export interface BlindEntry {
  * see what the judges see.
  */
 export function blindText(
-	entry: Pick<ContestEntryRow, 'statement' | 'litres' | 'ageWeeks'>,
+	entry: Pick<ContestEntryRow, 'statement' | 'statementHtml' | 'statementPictures' | 'litres' | 'ageWeeks'>,
 	category: Pick<CategoryRow, 'minLitres' | 'maxLitres' | 'minAgeWeeks'>,
 	units: UnitSystem
 ): Pick<BlindEntry, 'statementHtml' | 'statementPictures' | 'figures'> {
 	return {
-		statementHtml: renderMarkdown(entry.statement, { images: false }),
-		statementPictures: (renderMarkdown(entry.statement).match(/<img\b/g) ?? []).length,
+		...(entry.statementHtml !== null && entry.statementPictures !== null
+			? { statementHtml: entry.statementHtml, statementPictures: entry.statementPictures }
+			: statementShown(entry.statement)),
 		figures: blindFigures(entry, ruleOf(category), units)
 	};
 }
@@ -203,7 +204,13 @@ export async function blindList(viewer: Viewer, contestId: number, context: Cont
 		.from(contestEntries)
 		.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.entrantId, viewer.id)));
 	return {
-		contest: { id: contest.id, title: contest.title, state: contest.state, judgingClosesOn: contest.judgingClosesOn, rulesHtml: renderMarkdown(contest.rules) },
+		contest: {
+			id: contest.id,
+			title: contest.title,
+			state: contest.state,
+			judgingClosesOn: contest.judgingClosesOn,
+			rulesHtml: storedHtml(contest.rulesHtml, contest.rules)
+		},
 		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description })),
 		entries: cells.filter((c) => c.number !== null).map((c) => ({ number: c.number!, categoryId: c.categoryId, state: c.state })),
 		ownEntries: own?.n ?? 0
@@ -221,19 +228,24 @@ interface Access {
  * "not found", so a judge cannot even tell their own entry's number from a missing one.
  */
 async function access(tx: DbOrTx, viewer: Viewer, contestId: number, number: number): Promise<Access> {
-	const contest = await load(contestId, { db: tx });
-	if (!contest || contest.state !== 'judging' || !(await isJudgeOn(tx, viewer, contestId))) throw notFound('No such entry to judge.');
-	const [entry] = await tx
-		.select()
-		.from(contestEntries)
-		.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.number, number)))
-		.limit(1);
-	if (!entry || entry.entrantId === viewer.id) throw notFound('No such entry to judge.');
-	const [declared] = await tx
-		.select({ judgeId: contestConflicts.judgeId })
-		.from(contestConflicts)
-		.where(and(eq(contestConflicts.entryId, entry.id), eq(contestConflicts.judgeId, viewer.id)));
-	if (declared) throw notFound('No such entry to judge.');
+	// The checks are read side by side; whichever fails, the answer is the same "not found".
+	const [contest, onPanel, [entry], [declared]] = await Promise.all([
+		load(contestId, { db: tx }),
+		isJudgeOn(tx, viewer, contestId),
+		tx
+			.select()
+			.from(contestEntries)
+			.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.number, number)))
+			.limit(1),
+		tx
+			.select({ judgeId: contestConflicts.judgeId })
+			.from(contestConflicts)
+			.innerJoin(contestEntries, eq(contestEntries.id, contestConflicts.entryId))
+			.where(and(eq(contestEntries.contestId, contestId), eq(contestEntries.number, number), eq(contestConflicts.judgeId, viewer.id)))
+			.limit(1)
+	]);
+	if (!contest || contest.state !== 'judging' || !onPanel) throw notFound('No such entry to judge.');
+	if (!entry || entry.entrantId === viewer.id || declared) throw notFound('No such entry to judge.');
 	return { contest, entry };
 }
 
@@ -283,7 +295,7 @@ export async function scorecardPage(viewer: Viewer, contestId: number, number: n
 	};
 }
 
-/** One rendition of an entry's photo (`position` 1 is the full-front view), for a judge who may reach the entry. */
+/** One rendition of an entry's photo (`position` 1 is the whole-tank photo), for a judge who may reach the entry. */
 export async function entryPhoto(
 	viewer: Viewer,
 	contestId: number,

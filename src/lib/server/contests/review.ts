@@ -2,11 +2,12 @@
 // hands them to $lib/contests (computeResults) and shapes what the admin's review, the progress
 // matrix, the public results and each entrant's feedback show. Also the state transitions that
 // depend on it (publication) and the corrections admins may make after publication.
-import { asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as media from '../media';
+import * as tanks from '../journals/tanks';
 import type { Photo } from '../media';
 import * as audit from '../audit';
 import { conflict, DomainError, invalid, notFound } from '../../errors';
@@ -16,7 +17,8 @@ import { checkDraftFields, normaliseFields, type CardFields } from '../../contes
 import { validateScorecard } from '../../contests/scoring';
 import { AUDITED_REASON_MIN, TRANSITIONS, transitionProblems, type TransitionName } from '../../contests/lifecycle';
 import type { MatrixCell, ProgressMatrix } from '../../contests/progress';
-import { contestCards, contestConflicts, contestEntries, contests, type CardRow, type ContestEntryRow } from './schema';
+import type { PublishedCategory, PublishedEntry, PublishedResults } from '../../contests/published';
+import { contestCards, contestConflicts, contestEntries, contestResults, contests, type CardRow, type ContestEntryRow } from './schema';
 import { adminChange, assertAdmin, auditSubject, load, lockedRow, rubricOf, tieBreakOf, windowsOf, type ContestDetail } from './contests';
 import { SCOPE } from './contest-entries';
 import { panelIds } from './panel';
@@ -183,47 +185,27 @@ export async function transition(
 				}));
 			}
 		}
+		if (name === 'publish') await keepResults(contestId, locked.resultsRevision, inTx, { data, report });
 		await audit.record({ actorId: viewer.id, action: `contest.${name}`, subject: auditSubject(contestId), detail }, { ...inTx, now });
 	});
 }
 
 // ---- Public results and feedback ---------------------------------------------------------------
 
-export interface PublicEntry {
-	entryId: number;
-	number: number | null;
-	categoryId: number;
-	entrantId: string;
+export interface PublicEntry extends PublishedEntry {
 	entrantName: string;
-	place: number | null;
-	placeRaw: number | null;
-	placeStandardised: number | null;
-	sharedWith: number;
-	tieBrokenBy: string | null;
-	score: number | null;
-	standardised: number | null;
-	cardCount: number;
-	method: string;
-	methodNote: string | null;
-	criteria: { id: string; label: string; maxPoints: number; value: number | null }[];
-	/** The judges' overall comments meant for the entrant (never the notes for the panel). */
-	comments: string[];
 	photos: Photo[];
-	litres: number | null;
-	ageWeeks: number | null;
+	/** The entered tank, only while its journal is public (for a link from the results). */
+	publicTankId: number | null;
 }
 
-export interface PublicCategory {
-	id: number;
-	name: string;
-	description: string;
+export interface PublicCategory extends Omit<PublishedCategory, 'entries'> {
 	entries: PublicEntry[];
-	unevenPanel: boolean;
 }
 
 export const PUBLIC_CORRECTION_ACTIONS = ['results.amend-card', 'results.rank-by'];
 
-function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo[]>): PublicEntry {
+function shape(data: ContestData, result: EntryResult): PublishedEntry {
 	const entry = data.entries.find((e) => String(e.id) === result.entryId)!;
 	const criteria = data.contest.criteria;
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
@@ -233,7 +215,6 @@ function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo
 		number: entry.number,
 		categoryId: entry.categoryId,
 		entrantId: entry.entrantId,
-		entrantName: nameIn(data, entry.entrantId),
 		place: result.place,
 		placeRaw: result.placeRaw,
 		placeStandardised: result.placeStandardised,
@@ -251,10 +232,56 @@ function shape(data: ContestData, result: EntryResult, photos: Map<number, Photo
 			value: result.aggregate?.criteria[String(c.id)]?.value ?? null
 		})),
 		comments: result.cards.map((c) => cards.get(c.cardId)?.fields.entrantComment.trim() ?? '').filter(Boolean),
-		photos: photos.get(entry.id) ?? [],
 		litres: entry.litres,
-		ageWeeks: entry.ageWeeks
+		ageWeeks: entry.ageWeeks,
+		tankId: entry.tankId
 	};
+}
+
+/** The results as they are kept: computed from the cards, without names or photos. */
+function recordOf(data: ContestData, report: ResultsReport): PublishedResults {
+	return {
+		categories: data.contest.categories.map((category, i) => {
+			const cat = report.categories[i]!;
+			return {
+				id: category.id,
+				name: category.name,
+				description: category.description,
+				unevenPanel: cat.unevenPanel,
+				entries: cat.entries.map((r) => shape(data, r))
+			};
+		}),
+		panelIds: data.panel.map((p) => p.id),
+		unevenPanel: report.unevenPanel
+	};
+}
+
+/**
+ * Computes the contest's results from its cards and keeps them as the record of `revision`: at
+ * publication and after each correction, inside the change's transaction. A record already kept
+ * for that revision stays (results do not change within a revision).
+ */
+async function keepResults(contestId: number, revision: number, context: Context, computed?: { data: ContestData; report: ResultsReport }) {
+	const { db } = resolve(context);
+	const data = computed?.data ?? (await loadData(contestId, context))!;
+	const report = computed?.report ?? computeResults(inputOf(data));
+	const results = recordOf(data, report);
+	await db
+		.insert(contestResults)
+		.values({ contestId, revision, results })
+		.onDuplicateKeyUpdate({ set: { contestId: sql`contest_id` } });
+	return results;
+}
+
+/** The kept record of the contest's current results revision; one computed and kept when there is none yet (results published before records were kept). */
+async function keptResults(contest: ContestDetail, context: Context): Promise<PublishedResults> {
+	const { db } = resolve(context);
+	const [row] = await db
+		.select({ results: contestResults.results })
+		.from(contestResults)
+		.where(and(eq(contestResults.contestId, contest.id), eq(contestResults.revision, contest.resultsRevision)))
+		.limit(1);
+	return row?.results ?? keepResults(contest.id, contest.resultsRevision, context);
 }
 
 export interface PublicResults {
@@ -267,30 +294,42 @@ export interface PublicResults {
 
 /** The published results: ranked entries with names revealed; null before publication. */
 export async function publicResults(contestId: number, context: Context = {}): Promise<PublicResults | null> {
-	const { db: tx } = resolve(context);
-	const data = await loadData(contestId, context);
-	if (!data || (data.contest.state !== 'published' && data.contest.state !== 'archived')) return null;
-	const report = computeResults(inputOf(data));
-	const photos = await media.listForMany(
-		SCOPE,
-		data.entries.map((e) => e.id),
-		{ db: tx }
-	);
+	const contest = await load(contestId, context);
+	return contest ? publishedResultsOf(contest, context) : null;
+}
+
+/** The published results of a contest already loaded (with its rubric and categories); null before publication. */
+export async function publishedResultsOf(contest: ContestDetail, context: Context = {}): Promise<PublicResults | null> {
+	if (contest.state !== 'published' && contest.state !== 'archived') return null;
+	const kept = await keptResults(contest, context);
+	const entries = kept.categories.flatMap((c) => c.entries);
+	const [people, photos, corrections, publicTanks] = await Promise.all([
+		directory.byIds([...entries.map((e) => e.entrantId), ...kept.panelIds], context),
+		media.listForMany(
+			SCOPE,
+			entries.map((e) => e.entryId),
+			context
+		),
+		audit.trail(auditSubject(contest.id), PUBLIC_CORRECTION_ACTIONS, context),
+		tanks.publicIds(
+			entries.flatMap((e) => (e.tankId == null ? [] : [e.tankId])),
+			context
+		)
+	]);
 	return {
-		contest: data.contest,
-		categories: data.contest.categories.map((category, i) => {
-			const cat = report.categories[i]!;
-			return {
-				id: category.id,
-				name: category.name,
-				description: category.description,
-				unevenPanel: cat.unevenPanel,
-				entries: cat.entries.map((r) => shape(data, r, photos))
-			};
-		}),
-		panel: data.panel.map((p) => p.name),
-		corrections: await audit.trail(auditSubject(contestId), PUBLIC_CORRECTION_ACTIONS, context),
-		unevenPanel: report.unevenPanel
+		contest,
+		categories: kept.categories.map((category) => ({
+			...category,
+			entries: category.entries.map((e) => ({
+				...e,
+				entrantName: people.get(e.entrantId)?.name ?? nameOf(null),
+				photos: photos.get(e.entryId) ?? [],
+				publicTankId: e.tankId != null && publicTanks.has(e.tankId) ? e.tankId : null
+			}))
+		})),
+		panel: kept.panelIds.map((id) => people.get(id)?.name ?? nameOf(null)),
+		corrections,
+		unevenPanel: kept.unevenPanel
 	};
 }
 
@@ -318,10 +357,18 @@ export async function feedback(viewer: Viewer, entryId: number, context: Context
 	const index = data.contest.categories.findIndex((c) => c.id === entry.categoryId);
 	const cat = report.categories[index]!;
 	const result = cat.entries.find((e) => e.entryId === String(entryId))!;
-	const photos = await media.listForMany(SCOPE, [entryId], { db: tx });
+	const [photos, publicTanks] = await Promise.all([
+		media.listForMany(SCOPE, [entryId], { db: tx }),
+		tanks.publicIds(entry.tankId === null ? [] : [entry.tankId], { db: tx })
+	]);
 	const cards = new Map(data.cards.map((c) => [String(c.id), c]));
 	return {
-		entry: shape(data, result, photos),
+		entry: {
+			...shape(data, result),
+			entrantName: nameIn(data, entry.entrantId),
+			photos: photos.get(entryId) ?? [],
+			publicTankId: entry.tankId !== null && publicTanks.has(entry.tankId) ? entry.tankId : null
+		},
 		categoryName: data.contest.categories[index]!.name,
 		entriesInCategory: cat.entries.length,
 		cards: result.cards.map((c, i) => {
@@ -364,6 +411,7 @@ export async function setRankBy(viewer: Viewer, contestId: number, rankBy: RankB
 			.update(contests)
 			.set({ rankBy, updatedAt: now, ...(published ? { resultsRevision: c.resultsRevision + 1 } : {}) })
 			.where(eq(contests.id, contestId));
+		if (published) await keepResults(contestId, c.resultsRevision + 1, inTx);
 		await audit.record(
 			{
 				actorId: viewer.id,
@@ -420,6 +468,7 @@ export async function amendCard(viewer: Viewer, cardId: number, fields: CardFiel
 			.update(contests)
 			.set({ resultsRevision: c.resultsRevision + 1, updatedAt: now })
 			.where(eq(contests.id, c.id));
+		await keepResults(c.id, c.resultsRevision + 1, within(context, tx));
 		const [entry] = await tx.select({ number: contestEntries.number }).from(contestEntries).where(eq(contestEntries.id, card.entryId));
 		await audit.record(
 			{

@@ -1,10 +1,11 @@
-import { date, decimal, index, int, json, mysqlEnum, mysqlTable, primaryKey, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { date, decimal, index, int, json, mediumtext, mysqlEnum, mysqlTable, primaryKey, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 import { users } from '../club/schema';
 import { tanks } from '../journals/schema';
 import { CONTEST_STATES } from '../../contests/lifecycle';
 import { RANK_BASES } from '../../contests/results';
 import type { CardFields } from '../../contests/card';
+import type { PublishedResults } from '../../contests/published';
 
 // Contests: the contest with its rubric and categories, the entries, the judging panel, the
 // judges' conflicts and their scorecards. Entry windows are calendar days (UTC); see
@@ -20,6 +21,8 @@ export const contests = mysqlTable(
 		id: id(),
 		title: varchar({ length: 120 }).notNull(),
 		rules: text().notNull(),
+		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
+		rulesHtml: mediumtext(),
 		state: mysqlEnum(CONTEST_STATES).notNull().default('draft'),
 		entryOpensOn: date({ mode: 'string' }).notNull(),
 		entryClosesOn: date({ mode: 'string' }).notNull(),
@@ -95,6 +98,9 @@ export const contestEntries = mysqlTable(
 		/** Drawn at random when judging starts; judges know an entry only by it. */
 		number: int(),
 		statement: text().notNull(),
+		/** The statement as judges read it: rendered without pictures (see markdown-fields.ts), and how many pictures it had. */
+		statementHtml: mediumtext(),
+		statementPictures: int(),
 		/** The tank's figures when it was entered or last edited, as checked for eligibility. */
 		litres: decimal({ precision: 8, scale: 1, mode: 'number' }),
 		volumeSource: mysqlEnum(['measured', 'estimated']),
@@ -161,6 +167,20 @@ export const contestCards = mysqlTable(
 		submittedAt: at()
 	},
 	(t) => [uniqueIndex('contest_card_cell_idx').on(t.entryId, t.judgeId), index('contest_card_judge_idx').on(t.contestId, t.judgeId)]
+);
+
+/** The published results, one record per contest and results revision (see review.ts). */
+export const contestResults = mysqlTable(
+	'contest_result',
+	{
+		contestId: ref()
+			.notNull()
+			.references(() => contests.id, { onDelete: 'cascade' }),
+		revision: int().notNull(),
+		results: json().$type<PublishedResults>().notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [primaryKey({ columns: [t.contestId, t.revision] })]
 );
 
 export type ContestRow = typeof contests.$inferSelect;

@@ -9,3 +9,4 @@ export * from '../species/schema';
 export * from '../journals/schema';
 export * from '../swaps/schema';
 export * from '../contests/schema';
+export * from '../away/schema';

@@ -2,6 +2,7 @@
 // from, what its body claims to be, and a clear 400 when a body cannot be read.
 import { error, json, type Handle, type RequestEvent } from '@sveltejs/kit';
 import { config } from '../config';
+import { UNSUBSCRIBE_PATH } from '../mail/unsubscribe';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -62,11 +63,31 @@ function guardBodyReaders(request: Request) {
 	});
 }
 
+/**
+ * The one exemption from the origin check: a mail provider's one-click unsubscribe (RFC 8058), a
+ * POST from its servers with no Origin, to an unsubscribe page, whose small form body is exactly
+ * `List-Unsubscribe=One-Click`. It is authenticated by the signed token in its path alone, and
+ * the page's action can only unsubscribe for such a body (see routes/unsubscribe/[token]).
+ */
+async function isOneClickUnsubscribe(event: RequestEvent): Promise<boolean> {
+	const { request } = event;
+	if (request.method !== 'POST' || !UNSUBSCRIBE_PATH.test(event.url.pathname)) return false;
+	const type = mediaType(request);
+	if (type !== 'application/x-www-form-urlencoded' && type !== 'multipart/form-data') return false;
+	if (Number(request.headers.get('content-length') ?? MAX_FORM_BYTES) > 4096) return false;
+	try {
+		const body = await request.clone().formData();
+		return [...body.keys()].length === 1 && body.get('List-Unsubscribe') === 'One-Click';
+	} catch {
+		return false;
+	}
+}
+
 export const checkRequests: Handle = async ({ event, resolve }) => {
 	const { request } = event;
 	if (SAFE_METHODS.has(request.method)) return resolve(event);
 
-	if (!sameOrigin(request)) return refuse(event, 403, 'This request did not come from a Riparia page.');
+	if (!sameOrigin(request) && !(await isOneClickUnsubscribe(event))) return refuse(event, 403, 'This request did not come from a Riparia page.');
 
 	const type = mediaType(request);
 	const length = Number(request.headers.get('content-length') ?? 0);

@@ -95,7 +95,7 @@ export async function sendWeeklyDigests(context: Context = {}): Promise<number> 
 				throw error;
 			}
 			if (!content) return false;
-			const unsubscribe = unsubscribeUrl(member.unsubscribeToken, 'digest');
+			const unsubscribe = unsubscribeUrl(member.id, 'digest');
 			const { html, text } = renderMail({
 				heading: content.heading,
 				paragraphs: content.paragraphs,
@@ -109,7 +109,7 @@ export async function sendWeeklyDigests(context: Context = {}): Promise<number> 
 					subject: content.subject,
 					html,
 					text,
-					headers: unsubscribeHeaders(member.unsubscribeToken, 'digest'),
+					headers: unsubscribeHeaders(member.id, 'digest'),
 					topic: 'journal-digest',
 					bulk: true,
 					dedupeKey: `journal-digest:${member.id}:${week}`

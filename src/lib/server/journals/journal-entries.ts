@@ -12,11 +12,12 @@ import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as audit from '../audit';
 import * as catalogue from '../species/catalogue';
-import { renderMarkdown } from '../markdown';
+import { renderMarkdown, storedHtml } from '../markdown';
 import { invalid, notFound } from '../../errors';
 import { UNNAMED_MEMBER } from '../../club/names';
 import type { EntryInput, EventInput } from '../../journals/journal-entry-form';
 import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
+import { doneEventKind } from '../../journals/schedule';
 import {
 	entryComments,
 	journalEntries,
@@ -33,9 +34,9 @@ import * as tanks from './tanks';
 import * as upkeep from './upkeep';
 import * as social from './social';
 
-export type { EntryRow, EventRow };
+export type { EventRow };
 
-export interface Entry extends EntryRow {
+export interface Entry extends Omit<EntryRow, 'bodyHtml'> {
 	html: string;
 	photos: Photo[];
 	events: EventRow[];
@@ -157,23 +158,80 @@ async function writeEvent(tx: DbOrTx, tankId: number, entryId: number, on: strin
 	await tx.insert(journalEvents).values(values);
 }
 
+/** Writes an entry's row (its HTML rendered once, here) and attaches its author's photos. */
+async function insertEntry(
+	tx: DbOrTx,
+	authorId: string,
+	tankId: number,
+	input: { entryOn: string; title: string; body: string },
+	photos: PhotoField[],
+	context: Context
+): Promise<number> {
+	const { now } = resolve(context);
+	const [result] = await tx.insert(journalEntries).values({
+		tankId,
+		authorId,
+		entryOn: input.entryOn,
+		title: input.title,
+		body: input.body,
+		bodyHtml: renderMarkdown(input.body),
+		updatedAt: now,
+		createdAt: now
+	});
+	await media.setPhotos(authorId, 'entry', result.insertId, photos, { max: ENTRY_PHOTOS_MAX }, context);
+	return result.insertId;
+}
+
 /** Creates an entry on the viewer's tank; mails followers (at most once a day each). */
 export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: EntryInput, photos: PhotoField[], context: Context = {}): Promise<number> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
 		const tank = await tanks.lockOwn(viewer, tankId, inTx);
-		const [result] = await tx
-			.insert(journalEntries)
-			.values({ tankId, authorId: viewer.id, entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now, createdAt: now });
-		const entryId = result.insertId;
-		await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
+		const entryId = await insertEntry(tx, viewer.id, tankId, input, photos, inTx);
 		for (const [position, e] of input.events.entries()) await writeEvent(tx, tankId, entryId, input.entryOn, position, e, position);
 		await upkeep.recompute(tankId, inTx);
 		await tanks.touch(tankId, inTx);
 		await social.notifyFollowers(tank, { id: entryId, title: input.title, entryOn: input.entryOn }, inTx);
 		return entryId;
 	});
+}
+
+/**
+ * An entry written on someone else's tank by a member the keeper asked to look in while away (the
+ * caller, away care, has checked that they may). Ticked schedule tasks are logged as done by this
+ * visit, so the schedule resets them; the photos are the sitter's own uploads.
+ */
+export async function createVisit(
+	sitter: Pick<Viewer, 'id'>,
+	tankId: number,
+	input: { entryOn: string; title: string; body: string; taskIds: number[] },
+	photos: PhotoField[],
+	context: Context = {}
+): Promise<number> {
+	const { db, now } = resolve(context);
+	const write = async (tx: DbOrTx) => {
+		const inTx = within({ ...context, now }, tx);
+		const tasks = (await upkeep.listForTank(tankId, inTx)).filter((t) => input.taskIds.includes(t.id));
+		const entryId = await insertEntry(tx, sitter.id, tankId, input, photos, inTx);
+		for (const [position, task] of tasks.entries()) {
+			const kind = doneEventKind(task.kind);
+			await tx.insert(journalEvents).values({
+				tankId,
+				entryId,
+				kind,
+				occurredOn: input.entryOn,
+				position,
+				filterPart: kind === 'filter-clean' ? task.filterPart : null,
+				what: kind === 'upkeep' ? task.label : '',
+				taskId: task.id
+			});
+		}
+		await upkeep.recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+		return entryId;
+	};
+	return db.transaction(write);
 }
 
 /**
@@ -199,7 +257,10 @@ export async function update(
 			.where(and(eq(journalEntries.id, entryId), eq(journalEntries.tankId, tankId)))
 			.for('update');
 		if (!entry) throw entryNotFound();
-		await tx.update(journalEntries).set({ entryOn: input.entryOn, title: input.title, body: input.body, updatedAt: now }).where(eq(journalEntries.id, entryId));
+		await tx
+			.update(journalEntries)
+			.set({ entryOn: input.entryOn, title: input.title, body: input.body, bodyHtml: renderMarkdown(input.body), updatedAt: now })
+			.where(eq(journalEntries.id, entryId));
 		const keys = await media.setPhotos(viewer.id, 'entry', entryId, photos, { max: ENTRY_PHOTOS_MAX }, inTx);
 		const existing = new Map((await tx.select().from(journalEvents).where(eq(journalEvents.entryId, entryId))).map((e) => [e.id, e]));
 		const kept = new Set<number>();
@@ -274,9 +335,9 @@ async function hydrate(rows: EntryRow[], context: Context): Promise<Entry[]> {
 		db.select({ entryId: entryComments.entryId, n: count() }).from(entryComments).where(inArray(entryComments.entryId, ids)).groupBy(entryComments.entryId)
 	]);
 	const counts = new Map(comments.map((c) => [c.entryId, c.n]));
-	return rows.map((r) => ({
+	return rows.map(({ bodyHtml, ...r }) => ({
 		...r,
-		html: renderMarkdown(r.body),
+		html: storedHtml(bodyHtml, r.body),
 		photos: photos.get(r.id) ?? [],
 		events: events.filter((e) => e.entryId === r.id),
 		authorName: names.get(r.authorId) ?? UNNAMED_MEMBER,
@@ -351,7 +412,7 @@ export async function comments(
 		entryId: comment.entryId,
 		authorId: comment.authorId,
 		authorName: names.get(comment.authorId) ?? UNNAMED_MEMBER,
-		html: renderMarkdown(comment.body),
+		html: storedHtml(comment.bodyHtml, comment.body),
 		createdAt: comment.createdAt,
 		removable: !!viewer && (viewer.id === comment.authorId || viewer.id === tank.ownerId || viewer.role === 'admin')
 	}));
@@ -365,7 +426,7 @@ export async function addComment(viewer: Pick<Viewer, 'id'>, tankId: number, ent
 	return resolve(context).db.transaction(async (tx) => {
 		const found = await get(viewer, tankId, entryId, within(context, tx));
 		if (!found) throw entryNotFound();
-		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text });
+		const [result] = await tx.insert(entryComments).values({ entryId, authorId: viewer.id, body: text, bodyHtml: renderMarkdown(text) });
 		return result.insertId;
 	});
 }
@@ -403,7 +464,15 @@ export async function removeComment(viewer: Pick<Viewer, 'id' | 'role'>, tankId:
 /** The newest entries in tanks the viewer follows and may still see, for the dashboard. */
 export async function recentFollowed(viewer: Pick<Viewer, 'id'>, limit = 6, context: Context = {}) {
 	const rows = await resolve(context)
-		.db.select({ id: journalEntries.id, title: journalEntries.title, entryOn: journalEntries.entryOn, createdAt: journalEntries.createdAt, tank: tankTable })
+		// Only the tank's columns the card and the visibility check need: whole rows (descriptions
+		// included) would ride through the sort.
+		.db.select({
+			id: journalEntries.id,
+			title: journalEntries.title,
+			entryOn: journalEntries.entryOn,
+			createdAt: journalEntries.createdAt,
+			tank: { id: tankTable.id, name: tankTable.name, ownerId: tankTable.ownerId, visibility: tankTable.visibility }
+		})
 		.from(tankFollows)
 		.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
 		.innerJoin(journalEntries, eq(journalEntries.tankId, tankTable.id))

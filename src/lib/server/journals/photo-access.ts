@@ -15,12 +15,16 @@ async function tankPhotoAudience(viewer: Viewer | null, tankId: number, context:
 	return found.visibility === 'public' ? 'public' : 'restricted';
 }
 
-/** Scope 'entry': the visibility of the entry's tank. */
+/** Scope 'entry': the visibility of the entry's tank; besides, its author (a member who looked in while the keeper was away). */
 async function entryPhotoAudience(viewer: Viewer | null, entryId: number, context: Context = {}): Promise<media.MediaAudience | null> {
 	const { db } = resolve(context);
-	const [row] = await db.select({ tankId: journalEntries.tankId }).from(journalEntries).where(eq(journalEntries.id, entryId));
+	const [row] = await db
+		.select({ tankId: journalEntries.tankId, authorId: journalEntries.authorId })
+		.from(journalEntries)
+		.where(eq(journalEntries.id, entryId));
 	if (!row) return null;
-	return tankPhotoAudience(viewer, row.tankId, context);
+	const audience = await tankPhotoAudience(viewer, row.tankId, context);
+	return audience ?? (viewer !== null && viewer.id === row.authorId ? 'restricted' : null);
 }
 
 const tankPhotos: media.ScopeAccess = { audienceFor: tankPhotoAudience };

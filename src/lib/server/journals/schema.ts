@@ -1,4 +1,5 @@
-import { date, decimal, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
+import { sql } from 'drizzle-orm';
+import { date, datetime, decimal, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 import { users } from '../club/schema';
 import { species } from '../species/schema';
@@ -31,12 +32,16 @@ export const tanks = mysqlTable(
 		hardscape: varchar({ length: 500 }).notNull().default(''),
 		hardscapeLitres: decimal({ precision: 8, scale: 2, mode: 'number' }),
 		heaterWatts: decimal({ precision: 6, scale: 1, mode: 'number' }),
+		/** What the heater is set to, °C. */
+		heaterSetC: decimal({ precision: 4, scale: 1, mode: 'number' }),
 		heaterNote: varchar({ length: 160 }).notNull().default(''),
 		co2Method: mysqlEnum(CO2_METHODS).notNull().default('none'),
 		co2BubblesPerSecond: decimal({ precision: 4, scale: 1, mode: 'number' }),
 		/** A measured water volume, when the keeper has one; it wins over the estimate. */
 		waterLitres: decimal({ precision: 8, scale: 2, mode: 'number' }),
 		description: text(),
+		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
+		descriptionHtml: mediumtext(),
 		visibility: mysqlEnum(TANK_VISIBILITIES).notNull().default('club'),
 		retiredOn: date({ mode: 'string' }),
 		retiredNote: varchar({ length: 300 }).notNull().default(''),
@@ -45,12 +50,17 @@ export const tanks = mysqlTable(
 		/** Last change to the profile or its journal (entries, events, tests): "recently updated". */
 		activityAt: at(),
 		createdAt: createdAt(),
-		updatedAt: at()
+		updatedAt: at(),
+		/** The showcase's "recently updated" order (last activity, else creation), kept by the database so an index serves it. */
+		recentAt: datetime({ mode: 'date', fsp: 3 }).generatedAlwaysAs(sql`coalesce(activity_at, created_at)`, { mode: 'stored' })
 	},
 	(t) => [
 		index('tank_owner_idx').on(t.ownerId, t.retiredOn),
-		index('tank_visibility_idx').on(t.visibility),
-		index('tank_activity_idx').on(t.visibility, t.activityAt)
+		index('tank_activity_idx').on(t.visibility, t.activityAt),
+		// The showcase: running public tanks in each order it offers, and its style list.
+		index('tank_showcase_recent_idx').on(t.visibility, t.retiredOn, t.recentAt),
+		index('tank_showcase_new_idx').on(t.visibility, t.retiredOn, t.createdAt),
+		index('tank_showcase_style_idx').on(t.visibility, t.retiredOn, t.style)
 	]
 );
 
@@ -149,10 +159,12 @@ export const journalEntries = mysqlTable(
 		title: varchar({ length: 120 }).notNull().default(''),
 		/** Markdown, rendered through $lib/server/markdown. */
 		body: mediumtext().notNull(),
+		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
+		bodyHtml: mediumtext(),
 		createdAt: createdAt(),
 		updatedAt: at()
 	},
-	(t) => [index('journal_entry_tank_idx').on(t.tankId, t.entryOn)]
+	(t) => [index('journal_entry_timeline_idx').on(t.tankId, t.entryOn, t.createdAt)]
 );
 
 export const maintenanceTasks = mysqlTable(
@@ -204,7 +216,12 @@ export const journalEvents = mysqlTable(
 		taskId: ref().references(() => maintenanceTasks.id, { onDelete: 'set null' }),
 		createdAt: createdAt()
 	},
-	(t) => [index('journal_event_tank_idx').on(t.tankId, t.occurredOn), index('journal_event_entry_idx').on(t.entryId, t.position)]
+	(t) => [
+		index('journal_event_date_idx').on(t.tankId, t.occurredOn, t.createdAt),
+		// Events logged on their own, newest first, for the timeline.
+		index('journal_event_standalone_idx').on(t.tankId, t.entryId, t.occurredOn, t.createdAt),
+		index('journal_event_entry_idx').on(t.entryId, t.position)
+	]
 );
 
 export const AMMONIA_BASES = ['NH3', 'NH4', 'N'] as const;
@@ -233,7 +250,7 @@ export const waterTests = mysqlTable(
 		note: varchar({ length: 500 }).notNull().default(''),
 		createdAt: createdAt()
 	},
-	(t) => [index('water_test_tank_idx').on(t.tankId, t.testedOn)]
+	(t) => [index('water_test_timeline_idx').on(t.tankId, t.testedOn, t.createdAt)]
 );
 
 export const entryComments = mysqlTable(
@@ -247,6 +264,8 @@ export const entryComments = mysqlTable(
 			.notNull()
 			.references(() => users.id),
 		body: text().notNull(),
+		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
+		bodyHtml: mediumtext(),
 		createdAt: createdAt()
 	},
 	(t) => [index('entry_comment_entry_idx').on(t.entryId, t.createdAt)]

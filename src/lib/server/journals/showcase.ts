@@ -49,7 +49,7 @@ export async function list(filter: ShowcaseFilter, context: Context = {}): Promi
 		filter.sort === 'admired'
 			? [desc(admirers), desc(tanks.activityAt), desc(tanks.id)]
 			: filter.sort === 'updated'
-				? [desc(sql`COALESCE(${tanks.activityAt}, ${tanks.createdAt})`), desc(tanks.id)]
+				? [desc(tanks.recentAt), desc(tanks.id)]
 				: [desc(tanks.createdAt), desc(tanks.id)];
 	const rows = await tx
 		.select({

@@ -11,6 +11,7 @@ import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
 import * as catalogue from '../species/catalogue';
 import { notFound } from '../../errors';
+import { renderMarkdown } from '../markdown';
 import { UNNAMED_MEMBER } from '../../club/names';
 import type { TankInput } from '../../journals/tank-input';
 import { TANK_COVER_MAX } from '../../journals/tank-vocabulary';
@@ -94,6 +95,16 @@ async function load(found: TankRow, context: Context): Promise<Tank> {
 	};
 }
 
+/** Which of these tanks anyone may see (public ones), for other features' links; one query. */
+export async function publicIds(ids: number[], context: Context = {}): Promise<Set<number>> {
+	if (ids.length === 0) return new Set();
+	const rows = await resolve(context)
+		.db.select({ id: tanks.id })
+		.from(tanks)
+		.where(and(inArray(tanks.id, ids), eq(tanks.visibility, 'public')));
+	return new Set(rows.map((r) => r.id));
+}
+
 /** The bare row of a tank the viewer may see (no lists or photos), or null. */
 export async function findVisible(viewer: Pick<Viewer, 'id'> | null, id: number, context: Context = {}): Promise<TankRow | null> {
 	const found = await row(id, resolve(context).db);
@@ -118,6 +129,17 @@ export async function lockOwn(viewer: Pick<Viewer, 'id'>, id: number, context: C
 }
 
 /** Notes new journal activity (an entry, event or test) for "recently updated". */
+/**
+ * Tanks' names by id, for a feature that has already decided the viewer may know them (away care
+ * names the tank to the member asked to look in). Ids of no tank are missing.
+ */
+export async function namesOf(ids: Iterable<number>, context: Context = {}): Promise<Map<number, string>> {
+	const unique = [...new Set(ids)];
+	if (unique.length === 0) return new Map();
+	const rows = await resolve(context).db.select({ id: tanks.id, name: tanks.name }).from(tanks).where(inArray(tanks.id, unique));
+	return new Map(rows.map((r) => [r.id, r.name]));
+}
+
 export async function touch(id: number, context: Context = {}): Promise<void> {
 	const { db, now } = resolve(context);
 	await db.update(tanks).set({ activityAt: now }).where(eq(tanks.id, id));
@@ -229,11 +251,13 @@ function columns(input: TankInput) {
 		hardscape: input.hardscape,
 		hardscapeLitres: input.hardscapeLitres,
 		heaterWatts: input.heaterWatts,
+		heaterSetC: input.heaterSetC,
 		heaterNote: input.heaterNote,
 		co2Method: input.co2Method,
 		co2BubblesPerSecond: input.co2Method === 'pressurised' ? input.co2BubblesPerSecond : null,
 		waterLitres: input.waterLitres,
 		description: input.description || null,
+		descriptionHtml: input.description ? renderMarkdown(input.description) : null,
 		visibility: input.visibility
 	};
 }

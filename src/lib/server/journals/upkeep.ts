@@ -6,7 +6,8 @@ import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import { invalid, notFound } from '../../errors';
 import { today } from '../../dates';
-import { scheduleAll, type ScheduledTask, type MaintenanceTask } from '../../journals/calc';
+import { zoneOf } from '../../club/viewer';
+import { SALTS, roundTo, scheduleAll, type MaintenanceTask, type SaltId, type ScheduledTask } from '../../journals/calc';
 import { asMaintenanceTask, doneEventKind, lastDoneOn, type LoggedUpkeep, type TaskDraft } from '../../journals/schedule';
 import { journalEvents, maintenanceTasks, tanks as tankTable, waterTests, type TaskRow } from './schema';
 import * as tanks from './tanks';
@@ -23,6 +24,15 @@ export async function listForTank(tankId: number, context: Context = {}): Promis
 		.from(maintenanceTasks)
 		.where(eq(maintenanceTasks.tankId, tankId))
 		.orderBy(asc(maintenanceTasks.position), asc(maintenanceTasks.id));
+}
+
+/** The top-ups logged for a tank (day and litres), for the evaporation estimate of away care. */
+export async function topUpsOf(tankId: number, context: Context = {}): Promise<{ on: string; litres: number }[]> {
+	const rows = await resolve(context)
+		.db.select({ on: journalEvents.occurredOn, litres: journalEvents.amount })
+		.from(journalEvents)
+		.where(and(eq(journalEvents.tankId, tankId), eq(journalEvents.kind, 'top-up')));
+	return rows.flatMap((r) => (r.litres === null ? [] : [{ on: r.on, litres: r.litres }]));
 }
 
 /** Everything logged for a tank that can count as doing a task. */
@@ -46,7 +56,9 @@ export async function recompute(tankId: number, context: Context = {}): Promise<
 	const tasks = await listForTank(tankId, context);
 	if (!tasks.length) return;
 	const logged = await loggedFor(db, tankId);
-	const day = today('UTC', now);
+	// Events dated up to today somewhere on earth count: the owner's own today may be ahead of
+	// UTC's (UTC+14 is the furthest ahead any clock is).
+	const day = today('Etc/GMT-14', now);
 	for (const task of tasks) {
 		const last = lastDoneOn(task, logged, day);
 		if (last !== task.lastDoneOn) await db.update(maintenanceTasks).set({ lastDoneOn: last }).where(eq(maintenanceTasks.id, task.id));
@@ -94,7 +106,7 @@ export interface DueTask extends MaintenanceTask {
 }
 
 /** The schedule of every running tank of the viewer, the most overdue first. */
-export async function scheduleOf(viewer: Pick<Viewer, 'id'>, context: Context = {}): Promise<ScheduledTask<DueTask>[]> {
+export async function scheduleOf(viewer: Pick<Viewer, 'id' | 'timeZone'>, context: Context = {}): Promise<ScheduledTask<DueTask>[]> {
 	const { db, now } = resolve(context);
 	const rows = await db
 		.select({ task: maintenanceTasks, tankName: tankTable.name })
@@ -108,18 +120,18 @@ export async function scheduleOf(viewer: Pick<Viewer, 'id'>, context: Context = 
 		tankName,
 		kind: task.kind
 	}));
-	return scheduleAll(tasks, now);
+	return scheduleAll(tasks, today(zoneOf(viewer), now));
 }
 
 export { dueWithin } from '../../journals/schedule';
 
-/** The schedule of one tank for its page. */
-export async function scheduleOfTank(tankId: number, context: Context = {}) {
+/** The schedule of one tank for its page, on the owner's day in `timeZone`. */
+export async function scheduleOfTank(tankId: number, timeZone: string, context: Context = {}) {
 	const { now } = resolve(context);
 	const rows = await listForTank(tankId, context);
 	return scheduleAll(
 		rows.map((t) => ({ ...asMaintenanceTask(t), taskId: t.id, kind: t.kind, filterPart: t.filterPart })),
-		now
+		today(timeZone, now)
 	).sort((a, b) => a.nextDueOn.localeCompare(b.nextDueOn) || Number(a.task.id) - Number(b.task.id));
 }
 
@@ -127,12 +139,20 @@ export async function scheduleOfTank(tankId: number, context: Context = {}) {
  * "Done today": logs an event for the task on the owner's tank (not tied to an entry) and resets
  * it. Returns the tank's id; "not found" when the task is not the viewer's.
  */
-export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, context: Context = {}): Promise<number> {
+/** What "done today" logged: the task's label and the event, so the page can say which and offer to take it back. */
+export interface LoggedDone {
+	tankId: number;
+	tankName: string;
+	eventId: number;
+	label: string;
+}
+
+export async function markDone(viewer: Pick<Viewer, 'id' | 'timeZone'>, taskId: number, context: Context = {}): Promise<LoggedDone> {
 	const { db, now } = resolve(context);
 	return db.transaction(async (tx) => {
 		const inTx = within({ ...context, now }, tx);
 		const [row] = await tx
-			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId })
+			.select({ task: maintenanceTasks, ownerId: tankTable.ownerId, tankName: tankTable.name })
 			.from(maintenanceTasks)
 			.innerJoin(tankTable, eq(tankTable.id, maintenanceTasks.tankId))
 			.where(eq(maintenanceTasks.id, taskId))
@@ -140,18 +160,45 @@ export async function markDone(viewer: Pick<Viewer, 'id'>, taskId: number, conte
 		if (!row || row.ownerId !== viewer.id) throw notFound('We could not find that task.');
 		const { task } = row;
 		const kind = doneEventKind(task.kind);
-		await tx.insert(journalEvents).values({
+		const [inserted] = await tx.insert(journalEvents).values({
 			tankId: task.tankId,
 			entryId: null,
 			kind,
-			occurredOn: today('UTC', now),
+			occurredOn: today(zoneOf(viewer), now),
 			filterPart: kind === 'filter-clean' ? task.filterPart : null,
 			what: kind === 'upkeep' ? task.label : '',
 			taskId: task.id
 		});
 		await recompute(task.tankId, inTx);
 		await tanks.touch(task.tankId, inTx);
-		return task.tankId;
+		return { tankId: task.tankId, tankName: row.tankName, eventId: inserted.insertId, label: task.label };
+	});
+}
+
+/**
+ * Logs a dose worked out by the dose calculator on the viewer's own tank, today, as a journal
+ * event of its own (like "done today": it can be taken back from the journal).
+ */
+export async function logDose(viewer: Pick<Viewer, 'id'>, tankId: number, dose: { saltId: SaltId; grams: number }, context: Context = {}): Promise<LoggedDone> {
+	const { db, now } = resolve(context);
+	if (!(dose.grams < 10_000_000 && roundTo(dose.grams, 3) > 0)) throw invalid({ grams: 'That dose is too small or too large to log (to the milligram).' });
+	return db.transaction(async (tx) => {
+		const inTx = within({ ...context, now }, tx);
+		const tank = await tanks.lockOwn(viewer, tankId, inTx);
+		const label = SALTS[dose.saltId].name;
+		const [inserted] = await tx.insert(journalEvents).values({
+			tankId,
+			entryId: null,
+			kind: 'dose',
+			occurredOn: today('UTC', now),
+			what: label,
+			amount: roundTo(dose.grams, 3),
+			amountUnit: 'g',
+			saltId: dose.saltId
+		});
+		await recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+		return { tankId, tankName: tank.name, eventId: inserted.insertId, label };
 	});
 }
 

@@ -74,6 +74,17 @@ export async function enqueue(mails: QueuedMail | QueuedMail[], context: Context
 		.onDuplicateKeyUpdate({ set: { id: sql`id` } });
 }
 
+/**
+ * Deletes every message to an address, sent or waiting, with its attempts (an account deletion:
+ * the rows hold the address and what was said). A message being sent right now may still go out.
+ */
+export async function forgetAddress(address: string, context: Context = {}): Promise<number> {
+	if (!address) return 0;
+	const { db } = resolve(context);
+	const [result] = await db.delete(outbox).where(eq(outbox.toAddress, address));
+	return result.affectedRows;
+}
+
 export interface DeliveryOptions {
 	transport?: MailTransport;
 	worker?: string;

@@ -1,15 +1,54 @@
-// The links and headers that let a member stop club-wide mail. The token and what it changes
-// belong to the club (club/subscriptions.ts); mail only puts them in messages.
-import { absoluteUrl } from '../config';
+// The links and headers that let a member stop club-wide mail without signing in. A link carries
+// a token signed with an HMAC (SHA-256, keyed from AUTH_SECRET) over the member's id and one
+// topic, so it works for that member and that topic only, and a changed character anywhere makes
+// it worthless. What a topic changes belongs to the club (club/subscriptions.ts); mail only signs,
+// checks and puts the links in messages. Mail programs get RFC 2369's List-Unsubscribe and RFC
+// 8058's List-Unsubscribe-Post, whose one-click POST arrives from the provider's servers without
+// an Origin header; http/requests.ts lets exactly that request through to the unsubscribe page.
+import { createHmac, timingSafeEqual } from 'node:crypto';
+import { absoluteUrl, config } from '../config';
 
-export type MailKind = 'announcements' | 'digest';
+export const UNSUBSCRIBE_TOPICS = ['announcements', 'digest'] as const;
+export type UnsubscribeTopic = (typeof UNSUBSCRIBE_TOPICS)[number];
 
-/** The link at the foot of announcement-style mail; it needs no sign-in. */
-export function unsubscribeUrl(token: string, kind: MailKind): string {
-	return absoluteUrl(`/unsubscribe/${token}?kind=${kind}`);
+/** The path of unsubscribe pages; requests.ts exempts one-click POSTs to it from the origin check. */
+export const UNSUBSCRIBE_PATH = /^\/unsubscribe\/[A-Za-z0-9_.-]{1,400}$/;
+
+function key(): Buffer {
+	const secret = config().AUTH_SECRET;
+	if (!secret) throw new Error('AUTH_SECRET must be set to sign unsubscribe links.');
+	// A key of its own, derived from the secret, so these signatures are never valid for anything else.
+	return createHmac('sha256', secret).update('riparia:unsubscribe-links:v1').digest();
 }
 
-/** RFC 2369 header so mail programs can offer their own "unsubscribe" button. */
-export function unsubscribeHeaders(token: string, kind: MailKind): Record<string, string> {
-	return { 'List-Unsubscribe': `<${unsubscribeUrl(token, kind)}>` };
+const signature = (memberId: string, topic: string) => createHmac('sha256', key()).update(`${memberId}\n${topic}`).digest();
+
+/** `<member id, base64url>.<topic>.<HMAC, base64url>` */
+export function unsubscribeToken(memberId: string, topic: UnsubscribeTopic): string {
+	return `${Buffer.from(memberId).toString('base64url')}.${topic}.${signature(memberId, topic).toString('base64url')}`;
+}
+
+/** The member and topic a token was signed for; null for anything not signed by us exactly so. */
+export function verifyUnsubscribeToken(token: string): { memberId: string; topic: UnsubscribeTopic } | null {
+	const parts = token.split('.');
+	if (parts.length !== 3) return null;
+	const [id64, topic, sig64] = parts as [string, string, string];
+	if (!(UNSUBSCRIBE_TOPICS as readonly string[]).includes(topic) || !/^[A-Za-z0-9_-]+$/.test(id64) || !/^[A-Za-z0-9_-]{43}$/.test(sig64)) return null;
+	const memberId = Buffer.from(id64, 'base64url').toString();
+	// Decoding must give back the very text that was sent (no second spelling of the same id).
+	if (Buffer.from(memberId).toString('base64url') !== id64) return null;
+	const expected = signature(memberId, topic);
+	const given = Buffer.from(sig64, 'base64url');
+	if (given.length !== expected.length || !timingSafeEqual(given, expected)) return null;
+	return { memberId, topic: topic as UnsubscribeTopic };
+}
+
+/** The link at the foot of club-wide mail; it needs no sign-in. */
+export function unsubscribeUrl(memberId: string, topic: UnsubscribeTopic): string {
+	return absoluteUrl(`/unsubscribe/${unsubscribeToken(memberId, topic)}`);
+}
+
+/** RFC 2369 and RFC 8058 headers, so mail programs can offer their own one-click "unsubscribe". */
+export function unsubscribeHeaders(memberId: string, topic: UnsubscribeTopic): Record<string, string> {
+	return { 'List-Unsubscribe': `<${unsubscribeUrl(memberId, topic)}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' };
 }

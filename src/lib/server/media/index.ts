@@ -219,11 +219,13 @@ export async function setPhotos(
 	requireScope(scope);
 	if (photos.length > rules.max) throw refusal(rules, 'too-many-photos', `Add at most ${rules.max} photo${rules.max === 1 ? '' : 's'}.`);
 	const { db, now } = resolve(context);
-	const current = await db
-		.select()
-		.from(media)
-		.where(and(eq(media.scope, scope), eq(media.scopeId, scopeId)))
-		.for('update');
+	const ofScope = and(eq(media.scope, scope), eq(media.scopeId, scopeId));
+	// A locking read on the (scope, scope_id) index takes a gap lock where no row matches: two members
+	// creating an entry (or tank, listing) at once then both hold the gap their photos' UPDATEs must
+	// enter, and InnoDB kills one as a deadlock. A scope with no photos yet (always so when it was just
+	// created) is therefore only read; one with photos is locked as before, so edits of it queue.
+	const seen = await db.select({ id: media.id }).from(media).where(ofScope);
+	const current = seen.length ? await db.select().from(media).where(ofScope).for('update') : [];
 	const currentIds = new Set(current.map((r) => r.id));
 	const newIds = photos.map((p) => p.id).filter((id) => !currentIds.has(id));
 	if (newIds.length) {
@@ -269,6 +271,17 @@ export async function deleteFor(scope: MediaScope, scopeId: number, context: Con
 				rows.map((r) => r.id)
 			)
 		);
+	return rows.flatMap((r) => objectKeys(r.storageKey));
+}
+
+/**
+ * Deletes the rows of every photo a member uploaded, attached or pending (an account deletion),
+ * and returns the object keys to purge once the caller's transaction has committed.
+ */
+export async function deleteOwnedBy(ownerId: string, context: Context = {}): Promise<Purge> {
+	const { db } = resolve(context);
+	const rows = await db.select({ id: media.id, storageKey: media.storageKey }).from(media).where(eq(media.ownerId, ownerId)).for('update');
+	if (rows.length) await db.delete(media).where(eq(media.ownerId, ownerId));
 	return rows.flatMap((r) => objectKeys(r.storageKey));
 }
 

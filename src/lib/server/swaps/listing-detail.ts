@@ -19,6 +19,7 @@ import type { Assessment } from '../../swaps/restrictions';
 import { listingEvents } from './schema';
 import { canView, rowOf, toPure, type ListingRow } from './listings';
 import * as restricted from './restricted';
+import { storedHtml } from '../markdown';
 
 export interface ListingDetail {
 	id: number;
@@ -34,6 +35,8 @@ export interface ListingDetail {
 	quantityText: string;
 	conditionNote: string;
 	description: string;
+	/** The description rendered (stored when it was written). */
+	descriptionHtml: string;
 	terms: ListingTerms;
 	termsNote: string;
 	termsText: string;
@@ -83,6 +86,7 @@ async function detail(viewer: Viewer | null, row: ListingRow, context: Context):
 		quantityText: formatQuantity({ amount: row.quantityAmount, unit: row.quantityUnit }),
 		conditionNote: row.conditionNote,
 		description: row.description ?? '',
+		descriptionHtml: storedHtml(row.descriptionHtml, row.description),
 		terms: row.terms,
 		termsNote: row.termsNote,
 		termsText: describeTerms(row.terms, row.termsNote),

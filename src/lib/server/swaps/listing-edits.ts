@@ -11,6 +11,7 @@ import * as tanks from '../journals/tanks';
 import * as matching from '../species/matching';
 import type { PhotoField } from '../../media/form';
 import { conflict, DomainError, invalid, isDomainError, notFound } from '../../errors';
+import { renderMarkdown } from '../markdown';
 import { effectiveState, transition } from '../../swaps/listing-state';
 import { hasSpecies, LISTING_PHOTOS_MAX, speciesKindFor, type ListingInput } from '../../swaps/listing-form';
 import { nearestArea } from '../../swaps/places';
@@ -74,6 +75,7 @@ function contentColumns(input: ListingInput, checked: { speciesId: number | null
 		quantityUnit: input.quantity.unit,
 		conditionNote: input.condition,
 		description: input.description || null,
+		descriptionHtml: input.description ? renderMarkdown(input.description) : null,
 		terms: input.terms,
 		termsNote: input.termsNote
 	};

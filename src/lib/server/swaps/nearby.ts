@@ -16,7 +16,8 @@ import * as suspension from '../club/suspension';
 import * as matching from '../species/matching';
 import type { LatLng } from '../../club/location';
 import { boundingBox, MEAN_EARTH_RADIUS_M } from '../../swaps/distance';
-import { DISTANCE_BANDS, labelOf, radiusReachMetres } from '../../swaps/display';
+import { bandsInMetres, labelOf, radiusReachMetres, type DistanceUnit } from '../../swaps/display';
+import { distanceUnitOf } from '../../journals/calc/units';
 import { BOARD_PAGE_SIZE, pageCount, type BoardFilter } from '../../swaps/board-filter';
 import type { BoardPage } from '../../swaps/listing-card';
 import { listings, memberBlocks } from './schema';
@@ -57,14 +58,14 @@ export function boxSql(point: LatLng, radiusMetres: number): SQL {
 const escapeLike = (text: string) => text.replace(/[\\%_]/g, (c) => '\\' + c);
 
 /**
- * The figure members are shown for a distance `d` in metres, as $lib/swaps/display's shownMetres
- * computes it (the same bands, the same operations): 0 for "under 2 km", else
- * FLOOR((d + step/2) / step) * step in the band of `d`.
+ * The figure members are shown for a distance `d` in metres, in `unit` (kilometres or miles), as
+ * $lib/swaps/display's shownFigure computes it (the same bands, the same literals, the same
+ * operations): 0 for "under 2", else FLOOR((d + half step) / step) * step in the band of `d`.
  */
-export function shownSql(d: SQL | SQL.Aliased | AnyColumn): SQL<number> {
-	const cases = DISTANCE_BANDS.map(({ below, step }) => {
-		const figure = step === 0 ? sql`0` : sql`FLOOR((${d} + ${decimal(step / 2)}) / ${decimal(step)}) * ${decimal(step)}`;
-		return Number.isFinite(below) ? sql`WHEN ${d} < ${decimal(below)} THEN ${figure}` : sql`ELSE ${figure}`;
+export function shownSql(d: SQL | SQL.Aliased | AnyColumn, unit: DistanceUnit): SQL<number> {
+	const cases = bandsInMetres(unit).map(({ belowMetres, step, stepMetres, halfStepMetres }) => {
+		const figure = step === 0 ? sql`0` : sql`FLOOR((${d} + ${decimal(halfStepMetres)}) / ${decimal(stepMetres)}) * ${sql.raw(String(step))}`;
+		return Number.isFinite(belowMetres) ? sql`WHEN ${d} < ${decimal(belowMetres)} THEN ${figure}` : sql`ELSE ${figure}`;
 	});
 	return sql<number>`(CASE ${sql.join(cases, sql` `)} END)`;
 }
@@ -76,10 +77,10 @@ export function shownSql(d: SQL | SQL.Aliased | AnyColumn): SQL<number> {
  * searched for match the title, the species name on the listing, or the catalogue's common name
  * of its species (looked up first, in the catalogue).
  */
-export async function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, point: LatLng | null, context: Context = {}): Promise<SQL> {
+export async function boardWhere(viewer: Pick<Viewer, 'id' | 'units'>, filter: BoardFilter, point: LatLng | null, context: Context = {}): Promise<SQL> {
 	const { now } = resolve(context);
 	const conditions: (SQL | undefined)[] = [eq(listings.state, 'open'), gt(listings.availableUntil, now)];
-	if (point && filter.radiusKm !== null) conditions.push(boxSql(point, radiusReachMetres(filter.radiusKm)));
+	if (point && filter.radius !== null) conditions.push(boxSql(point, radiusReachMetres(filter.radius, distanceUnitOf(viewer.units))));
 	if (filter.category) conditions.push(eq(listings.category, filter.category));
 	if (filter.kind) conditions.push(eq(listings.kind, filter.kind));
 	if (filter.speciesId !== null) conditions.push(eq(listings.speciesId, filter.speciesId));
@@ -110,36 +111,40 @@ export async function boardWhere(viewer: Pick<Viewer, 'id'>, filter: BoardFilter
  * (so the distance is computed once per row), their shown figure, and the radius as a condition
  * on that figure.
  */
-function fromPoint(where: SQL, point: LatLng, radiusKm: BoardFilter['radiusKm'], context: Context) {
+function fromPoint(where: SQL, point: LatLng, radius: BoardFilter['radius'], unit: DistanceUnit, context: Context) {
 	const { db } = resolve(context);
 	const inner = db
 		.select({ ...cardColumns, distance: sql<number>`${distanceSql(point)}`.as('distance') })
 		.from(listings)
 		.where(where)
 		.as('nearby');
-	const shown = shownSql(inner.distance);
-	return { inner, shown, within: radiusKm === null ? undefined : sql`${shown} <= ${decimal(radiusKm * 1000)}` };
+	const shown = shownSql(inner.distance, unit);
+	return { inner, shown, within: radius === null ? undefined : sql`${shown} <= ${sql.raw(String(radius))}` };
 }
 
 /**
  * One page of the board from a point, for the conditions of `boardWhere`: by shown figure, then
  * newest first, never by the exact distance (also used by the benchmark to EXPLAIN it).
  */
-export function nearbyQuery(where: SQL, point: LatLng, filter: Pick<BoardFilter, 'radiusKm' | 'page'>, context: Context = {}) {
+export function nearbyQuery(where: SQL, point: LatLng, filter: Pick<BoardFilter, 'radius' | 'page'>, unit: DistanceUnit, context: Context = {}) {
 	const { db } = resolve(context);
-	const { inner, shown, within } = fromPoint(where, point, filter.radiusKm, context);
+	const { inner, shown, within } = fromPoint(where, point, filter.radius, unit, context);
 	// The card columns of the derived table (a subquery's fields are only reached through it, one by one).
 	const columns = Object.fromEntries(Object.keys(cardColumns).map((key) => [key, inner[key as keyof typeof cardColumns]])) as Pick<
 		typeof inner,
 		keyof typeof cardColumns
 	>;
-	return db
-		.select({ ...columns, shown: sql<number>`${shown}`.mapWith(Number).as('shown') })
-		.from(inner)
-		.where(within)
-		.orderBy(sql`shown`, desc(inner.createdAt), desc(inner.id))
-		.limit(BOARD_PAGE_SIZE)
-		.offset((filter.page - 1) * BOARD_PAGE_SIZE);
+	return (
+		db
+			// The count of every row that qualifies comes with the page (a window over the whole result,
+			// taken before LIMIT), so the distances are computed once, not again for a separate count.
+			.select({ ...columns, shown: sql<number>`${shown}`.mapWith(Number).as('shown'), matching: sql<number>`COUNT(*) OVER ()`.mapWith(Number).as('matching') })
+			.from(inner)
+			.where(within)
+			.orderBy(sql`shown`, desc(inner.createdAt), desc(inner.id))
+			.limit(BOARD_PAGE_SIZE)
+			.offset((filter.page - 1) * BOARD_PAGE_SIZE)
+	);
 }
 
 /** One page of the board without a location: newest first. */
@@ -155,10 +160,10 @@ function newestQuery(where: SQL, page: number, context: Context) {
 }
 
 /** How many listings the board has for these conditions, counted as the page query selects them. */
-async function total(where: SQL, point: LatLng | null, radiusKm: BoardFilter['radiusKm'], context: Context): Promise<number> {
+async function total(where: SQL, point: LatLng | null, radius: BoardFilter['radius'], unit: DistanceUnit, context: Context): Promise<number> {
 	const { db } = resolve(context);
 	if (point) {
-		const { inner, within } = fromPoint(where, point, radiusKm, context);
+		const { inner, within } = fromPoint(where, point, radius, unit, context);
 		const [row] = await db.select({ n: count() }).from(inner).where(within);
 		return row?.n ?? 0;
 	}
@@ -166,21 +171,30 @@ async function total(where: SQL, point: LatLng | null, radiusKm: BoardFilter['ra
 	return row?.n ?? 0;
 }
 
-/** One page of the board for the viewer: nearest first by the shown figure when they have a location. */
-export async function search(viewer: Pick<Viewer, 'id'>, filter: BoardFilter, context: Context = {}): Promise<BoardPage> {
+/**
+ * One page of the board for the viewer: nearest first by the shown figure when they have a location,
+ * with distances and the radius in the viewer's unit (kilometres, or miles for US and imperial members).
+ */
+export async function search(viewer: Pick<Viewer, 'id' | 'units'>, filter: BoardFilter, context: Context = {}): Promise<BoardPage> {
 	const { db, now } = resolve(context);
 	const at = { ...context, db, now };
+	const unit = distanceUnitOf(viewer.units);
 	const point = await viewerPoint(viewer.id, at);
 	const where = await boardWhere(viewer, filter, point, at);
-	const [rows, n] = await Promise.all([
-		point ? nearbyQuery(where, point, filter, at) : newestQuery(where, filter.page, at),
-		total(where, point, filter.radiusKm, at)
-	]);
+	let rows: (Awaited<ReturnType<typeof nearbyQuery>>[number] | Awaited<ReturnType<typeof newestQuery>>[number])[];
+	let n: number;
+	if (point) {
+		rows = await nearbyQuery(where, point, filter, unit, at);
+		// A page past the end has no row to carry the count.
+		n = rows.length ? (rows[0] as { matching: number }).matching : filter.page > 1 ? await total(where, point, filter.radius, unit, at) : 0;
+	} else {
+		[rows, n] = await Promise.all([newestQuery(where, filter.page, at), total(where, null, filter.radius, unit, at)]);
+	}
 	const cards = await toCards(rows, viewer, at);
 	return {
 		rows: cards.map((card, i) => {
 			const row = rows[i]!;
-			return { ...card, distance: 'shown' in row ? labelOf(row.shown) : null };
+			return { ...card, distance: 'shown' in row ? labelOf(row.shown, unit) : null };
 		}),
 		total: n,
 		page: filter.page,

@@ -1,4 +1,4 @@
-import { boolean, date, decimal, index, int, json, mysqlEnum, mysqlTable, primaryKey, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
+import { boolean, date, decimal, index, int, json, mediumtext, mysqlEnum, mysqlTable, primaryKey, text, uniqueIndex, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 import { clubAreas, users } from '../club/schema';
 import { species } from '../species/schema';
@@ -34,6 +34,8 @@ export const listings = mysqlTable(
 		quantityUnit: mysqlEnum(QUANTITY_UNITS).notNull(),
 		conditionNote: varchar({ length: 500 }).notNull().default(''),
 		description: text(),
+		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
+		descriptionHtml: mediumtext(),
 		terms: mysqlEnum(LISTING_TERMS).notNull().default('free'),
 		termsNote: varchar({ length: 160 }).notNull().default(''),
 		pickupAreaId: ref().references(() => clubAreas.id, { onDelete: 'set null' }),

@@ -1,7 +1,7 @@
 // Conversations about a listing: a request (or an answer to a wanted post) opens one between the
 // listing's owner and the other member. Only those two may read it, and an admin while a report
 // about one of its messages is open; to everyone else it does not exist (404).
-import { and, asc, count, desc, eq, gt, inArray, isNull, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gt, inArray, isNull, type SQL, countDistinct } from 'drizzle-orm';
 import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
@@ -214,7 +214,7 @@ export async function poll(viewer: Viewer | null, id: number, afterId: number, c
 	if (!found) return null;
 	const { thread, role, listing } = found;
 	const [rows, names] = await Promise.all([messageRows(id, { db }, afterId), namesOf(thread, { db })]);
-	if (role !== 'admin') await markRead(found.viewer, id, { db, now });
+	if (role !== 'admin' && hasUnread(rows, found.viewer.id)) await markRead(found.viewer, id, { db, now });
 	const pure = toPure(listing);
 	return {
 		messages: toViews(rows, names),
@@ -223,6 +223,10 @@ export async function poll(viewer: Viewer | null, id: number, afterId: number, c
 		version: versionOf(listing)
 	};
 }
+
+/** Whether any of these messages is to the member and not read yet (reading a conversation writes only then). */
+export const hasUnread = (messages: Pick<MessageRow, 'recipientId' | 'readAt'>[], viewerId: string) =>
+	messages.some((m) => m.recipientId === viewerId && m.readAt === null);
 
 /** Marks every message to the viewer in this thread as read. */
 export async function markRead(viewer: Pick<Viewer, 'id'>, threadId: number, context: Context = {}): Promise<number> {
@@ -241,6 +245,20 @@ export async function unreadCount(userId: string, context: Context = {}): Promis
 		.select({ n: count() })
 		.from(swapMessages)
 		.where(and(eq(swapMessages.recipientId, userId), isNull(swapMessages.readAt)));
+	return row?.n ?? 0;
+}
+
+/**
+ * Conversations on the member's own listings with messages they have not read (new requests and
+ * replies), for the dashboard: one COUNT starting from the (recipient, read) index.
+ */
+export async function unreadOnOwnListings(userId: string, context: Context = {}): Promise<number> {
+	const { db } = resolve(context);
+	const [row] = await db
+		.select({ n: countDistinct(swapMessages.threadId) })
+		.from(swapMessages)
+		.innerJoin(swapThreads, eq(swapThreads.id, swapMessages.threadId))
+		.where(and(eq(swapMessages.recipientId, userId), isNull(swapMessages.readAt), eq(swapThreads.ownerId, userId)));
 	return row?.n ?? 0;
 }
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { requireRole } from '$lib/server/club/guards';
 import { listOutbox, OUTBOX_STATES } from '$lib/server/mail/report';
+import { describeTopic, topicFilter } from '$lib/mail/topics';
 import type { PageServerLoad } from './$types';
 
 const query = z.object({
@@ -13,5 +14,9 @@ const query = z.object({
 export const load = (async (event) => {
 	requireRole(event, 'admin');
 	const params = query.parse(Object.fromEntries(event.url.searchParams));
-	return { ...(await listOutbox({ ...params, topic: params.topic || undefined, address: params.address || undefined })), params };
+	const topic = topicFilter(params.topic);
+	const found = await listOutbox({ ...params, topic, address: params.address || undefined });
+	// Topic keys are internal: the page gets the kind in words.
+	const rows = found.rows.map(({ topic: key, ...row }) => ({ ...row, kind: describeTopic(key) }));
+	return { ...found, rows, params: { ...params, topic } };
 }) satisfies PageServerLoad;

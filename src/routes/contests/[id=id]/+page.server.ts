@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
 import * as contests from '$lib/server/contests/contests';
 import * as contestEntries from '$lib/server/contests/contest-entries';
-import { publicResults } from '$lib/server/contests/review';
-import { renderMarkdown } from '$lib/server/markdown';
+import { publishedResultsOf } from '$lib/server/contests/review';
+import { storedHtml } from '$lib/server/markdown';
 import { describeRule } from '$lib/contests/eligibility';
 import type { PageServerLoad } from './$types';
 
@@ -13,7 +13,7 @@ export const load = (async (event) => {
 	if (!contest) error(404, 'We could not find that contest.');
 	const accepting = contests.acceptingEntries(contest);
 	const mine = viewer ? await contestEntries.listOwn(viewer, contest.id) : [];
-	const results = contest.state === 'published' || contest.state === 'archived' ? await publicResults(contest.id) : null;
+	const results = contest.state === 'published' || contest.state === 'archived' ? await publishedResultsOf(contest) : null;
 	return {
 		contest: {
 			id: contest.id,
@@ -28,7 +28,7 @@ export const load = (async (event) => {
 			rankBy: contest.rankBy,
 			publishedAt: contest.publishedAt
 		},
-		rulesHtml: renderMarkdown(contest.rules),
+		rulesHtml: storedHtml(contest.rulesHtml, contest.rules),
 		criteria: contest.criteria.map((c) => ({
 			id: c.id,
 			label: c.label,
@@ -37,7 +37,7 @@ export const load = (async (event) => {
 			weight: c.weight,
 			tieBreakRank: c.tieBreakRank
 		})),
-		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
+		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c), viewer?.units) })),
 		accepting,
 		mine: mine.map((e) => ({
 			id: e.id,
@@ -50,7 +50,6 @@ export const load = (async (event) => {
 		canEnter: !!viewer && accepting && mine.length < contest.entriesPerMember,
 		results: results && {
 			panel: results.panel,
-			unevenPanel: results.unevenPanel,
 			corrections: results.corrections.map((c) => ({ id: c.id, action: c.action, createdAt: c.createdAt, reason: String(c.detail.reason ?? '') })),
 			categories: results.categories.map((cat) => ({
 				id: cat.id,
@@ -61,8 +60,8 @@ export const load = (async (event) => {
 					place: e.place,
 					shared: e.sharedWith > 0,
 					entrantName: e.entrantName,
+					publicTankId: e.publicTankId,
 					score: e.score,
-					standardised: e.standardised,
 					thumb: e.photos[0]?.urls.thumb ?? null,
 					alt: e.photos[0]?.alt ?? ''
 				}))

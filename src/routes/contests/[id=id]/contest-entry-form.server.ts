@@ -8,18 +8,20 @@ import * as media from '$lib/server/media';
 import * as contests from '$lib/server/contests/contests';
 import * as contestEntries from '$lib/server/contests/contest-entries';
 import { describeRule, roundLitres } from '$lib/contests/eligibility';
+import { formatVolume } from '$lib/journals/calc/units';
 import { contestEntryDraftOf, contestEntryPhotosOf, type EntryCategoryChoice, type EntryTankChoice } from '$lib/contests/contest-entry-form';
 
 /** What the enter and edit pages both list: the categories with their rules, and the member's tanks. */
 export async function entryChoices(viewer: Viewer, contest: contests.ContestDetail): Promise<{ categories: EntryCategoryChoice[]; tanks: EntryTankChoice[] }> {
 	const options = await contestEntries.tankOptions(viewer, contest);
 	return {
-		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c)) })),
+		categories: contest.categories.map((c) => ({ id: c.id, name: c.name, description: c.description, rule: describeRule(contests.ruleOf(c), viewer.units) })),
 		tanks: options.map((t) => ({
 			id: t.id,
 			name: t.name,
 			thumb: t.cover?.urls.thumb ?? null,
 			litres: t.facts.litres === null ? null : roundLitres(t.facts.litres),
+			volume: t.facts.litres === null ? null : formatVolume(roundLitres(t.facts.litres), viewer.units),
 			volumeSource: t.facts.volumeSource,
 			ageLabel: t.ageLabel,
 			retired: t.facts.retired,

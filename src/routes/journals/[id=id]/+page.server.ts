@@ -1,6 +1,6 @@
-import { error, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
-import { requireUser } from '$lib/server/club/guards';
+import { notFoundOrSignIn, requireUser } from '$lib/server/club/guards';
 import { formAction, parseForm } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
 import * as tankDeletion from '$lib/server/journals/tank-deletion';
@@ -8,9 +8,10 @@ import * as social from '$lib/server/journals/social';
 import * as timeline from '$lib/server/journals/timeline';
 import * as upkeep from '$lib/server/journals/upkeep';
 import * as water from '$lib/server/journals/water';
-import { renderMarkdown } from '$lib/server/markdown';
+import { storedHtml } from '$lib/server/markdown';
 import { invalid, notFound } from '$lib/errors';
 import { today } from '$lib/dates';
+import { zoneOf } from '$lib/club/viewer';
 import { dayNumber } from '$lib/journals/calc';
 import { buildSeries, derivedFigures, latestWarnings } from '$lib/journals/water-tests';
 import { ownTankRow } from './own-tank.server';
@@ -22,23 +23,23 @@ const TABLE_TESTS = 8;
 export const load = (async (event) => {
 	const viewer = event.locals.user;
 	const tank = await tanks.get(viewer, Number(event.params.id));
-	if (!tank) error(404, 'We could not find that tank.');
+	if (!tank) notFoundOrSignIn(event, 'We could not find that tank.');
 	const isOwner = tanks.isOwner(viewer, tank);
 	const now = new Date();
 	const [page, standing, tests, schedule] = await Promise.all([
 		timeline.pageOf(tank.id, Number(event.url.searchParams.get('page') ?? 1)),
 		social.standingOf(viewer, tank.id),
 		water.latestOf(tank.id),
-		isOwner ? upkeep.scheduleOfTank(tank.id, { now }) : Promise.resolve([])
+		isOwner ? upkeep.scheduleOfTank(tank.id, zoneOf(viewer), { now }) : Promise.resolve([])
 	]);
 	const units = viewer?.units ?? 'metric';
 	const latest = tests[0] ?? null;
 	return {
 		tank,
 		figures: tanks.tankFigures(tank, { now }),
-		descriptionHtml: tank.description ? renderMarkdown(tank.description) : '',
+		descriptionHtml: storedHtml(tank.descriptionHtml, tank.description),
 		isOwner,
-		today: today('UTC', now),
+		today: today(zoneOf(viewer), now),
 		timeline: page,
 		standing,
 		schedule,
@@ -86,8 +87,7 @@ export const actions = {
 			const { viewer } = await ownTankRow(event);
 			const taskId = idField(data, 'taskId');
 			if (!taskId) throw invalid({ taskId: 'Choose a task.' });
-			await upkeep.markDone(viewer, taskId);
-			return { doneTask: taskId };
+			return { done: await upkeep.markDone(viewer, taskId) };
 		},
 		{ id: 'done' }
 	),

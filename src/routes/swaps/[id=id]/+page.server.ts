@@ -6,7 +6,6 @@ import * as transitions from '$lib/server/swaps/listing-transitions';
 import * as threads from '$lib/server/swaps/threads';
 import * as reports from '$lib/server/swaps/reports';
 import * as blocks from '$lib/server/swaps/blocks';
-import { renderMarkdown } from '$lib/server/markdown';
 import { invalid } from '$lib/errors';
 import { availableActions, isReservationOverdue } from '$lib/swaps/listing-state';
 import { DAY_MS } from '$lib/swaps/listing';
@@ -31,7 +30,7 @@ export const load = (async (event) => {
 	const shown = { ...rest, reservedRequesterId: party ? rest.reservedRequesterId : null, reservedRequesterName: party ? rest.reservedRequesterName : null };
 	return {
 		listing: shown,
-		descriptionHtml: listing.description ? renderMarkdown(listing.description) : '',
+		descriptionHtml: listing.descriptionHtml,
 		own,
 		overdue: own && isReservationOverdue(pure, now),
 		threadId,

@@ -11,9 +11,10 @@ import { entryDraftFrom, parseEntryDraft, type EntryDraft, type EntryInput } fro
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
 
 /** The entry's input and photos (an entry may be photos alone), or a refusal with every field's message. */
-export function readJournalEntryForm(data: FormData, tank: { setUpOn: string | null }): { input: EntryInput; photos: PhotoField[] } {
+/** `timeZone` is the keeper's: an entry may be dated up to their today. */
+export function readJournalEntryForm(data: FormData, tank: { setUpOn: string | null }, timeZone: string): { input: EntryInput; photos: PhotoField[] } {
 	const read = readWithPhotos(data, 'photos', ENTRY_PHOTOS_MAX, (photos) =>
-		parseEntryDraft(entryDraftFrom(data), { today: today(), setUpOn: tank.setUpOn, hasPhotos: photos.length > 0 })
+		parseEntryDraft(entryDraftFrom(data), { today: today(timeZone), setUpOn: tank.setUpOn, hasPhotos: photos.length > 0 })
 	);
 	if (!read.ok) throw invalid(read.errors);
 	return { input: read.input, photos: read.photos };

@@ -7,6 +7,7 @@ import * as transitions from '$lib/server/swaps/listing-transitions';
 import * as blocks from '$lib/server/swaps/blocks';
 import * as reports from '$lib/server/swaps/reports';
 import { today } from '$lib/dates';
+import { zoneOf } from '$lib/club/viewer';
 import { availableActions } from '$lib/swaps/listing-state';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -21,7 +22,7 @@ export const load = (async (event) => {
 	const id = Number(event.params.id);
 	const thread = await threads.get(viewer, id, { now });
 	if (!thread) error(404, NOT_FOUND);
-	if (thread.role !== 'admin') await threads.markRead(viewer, id, { now });
+	if (thread.role !== 'admin' && threads.hasUnread(thread.messages, viewer.id)) await threads.markRead(viewer, id, { now });
 	const { pure, ...shown } = thread;
 	const actions = thread.role === 'admin' ? [] : availableActions(pure, { kind: 'member', userId: viewer.id }, now);
 	const relation = thread.otherId ? await blocks.between(viewer.id, thread.otherId) : { aBlockedB: false, bBlockedA: false };
@@ -31,7 +32,7 @@ export const load = (async (event) => {
 		canConfirmHandover: thread.status === 'accepted' && actions.includes('confirm-handover'),
 		canRelease: thread.role === 'owner' && thread.status === 'accepted' && actions.includes('release'),
 		youBlocked: relation.aBlockedB,
-		today: today('UTC', now)
+		today: today(zoneOf(viewer), now)
 	};
 }) satisfies PageServerLoad;
 

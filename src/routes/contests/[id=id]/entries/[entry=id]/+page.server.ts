@@ -34,7 +34,9 @@ export const load = (async (event) => {
 				caption: p.caption,
 				urls: p.urls,
 				width: p.renditions.medium.width,
-				height: p.renditions.medium.height
+				height: p.renditions.medium.height,
+				largeWidth: p.renditions.large.width,
+				largeHeight: p.renditions.large.height
 			}))
 		},
 		own: entry.entrantId === viewer.id,

@@ -1,5 +1,5 @@
-import { error, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/club/guards';
+import { redirect } from '@sveltejs/kit';
+import { notFoundOrSignIn, requireUser } from '$lib/server/club/guards';
 import { formAction } from '$lib/server/http/forms';
 import * as tanks from '$lib/server/journals/tanks';
 import * as journalEntries from '$lib/server/journals/journal-entries';
@@ -9,7 +9,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load = (async (event) => {
 	const viewer = event.locals.user;
 	const found = await journalEntries.get(viewer, Number(event.params.id), Number(event.params.entry));
-	if (!found) error(404, 'We could not find that entry.');
+	if (!found) notFoundOrSignIn(event, 'We could not find that entry.');
 	const { tank, entry } = found;
 	return {
 		tank: { id: tank.id, name: tank.name, visibility: tank.visibility, volumeLitres: tank.volumeLitres },

@@ -2,6 +2,7 @@ import { error, redirect } from '@sveltejs/kit';
 import { formAction } from '$lib/server/http/forms';
 import * as journalEntries from '$lib/server/journals/journal-entries';
 import { today } from '$lib/dates';
+import { zoneOf } from '$lib/club/viewer';
 import { eventDraftFrom, type EntryDraft } from '$lib/journals/journal-entry-form';
 import { ownTank } from '../../../own-tank.server';
 import { journalEntryFormAgain, readJournalEntryForm } from '../../form.server';
@@ -16,7 +17,7 @@ async function ownEntry(event: RequestEvent) {
 }
 
 export const load = (async (event) => {
-	const { tank, entry } = await ownEntry(event);
+	const { viewer, tank, entry } = await ownEntry(event);
 	const draft: EntryDraft = { entryOn: entry.entryOn, title: entry.title, body: entry.body, events: entry.events.map(eventDraftFrom) };
 	return {
 		tank: { id: tank.id, name: tank.name, setUpOn: tank.setUpOn },
@@ -25,7 +26,7 @@ export const load = (async (event) => {
 		livestock: tank.livestock.filter((a) => !a.removedOn).map((a) => ({ id: a.id, name: a.name, count: a.count })),
 		draft,
 		photos: entry.photos.map((p) => ({ id: p.id, alt: p.alt, caption: p.caption, urls: p.urls })),
-		today: today()
+		today: today(zoneOf(viewer))
 	};
 }) satisfies PageServerLoad;
 
@@ -33,7 +34,7 @@ export const actions = {
 	default: formAction(
 		async (event, data) => {
 			const { viewer, tank, entry } = await ownEntry(event);
-			const { input, photos } = readJournalEntryForm(data, tank);
+			const { input, photos } = readJournalEntryForm(data, tank, zoneOf(viewer));
 			await journalEntries.update(viewer, tank.id, entry.id, input, photos);
 			redirect(303, `/journals/${tank.id}/entries/${entry.id}`);
 		},

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { parseOrThrow } from '$lib/errors';
 import { requireRole } from '$lib/server/club/guards';
+import * as accountDeletion from '$lib/server/club/account-deletion';
 import * as membership from '$lib/server/club/membership';
 import * as suspension from '$lib/server/club/suspension';
 import * as users from '$lib/server/club/users';
@@ -31,6 +32,11 @@ const change = z.object({ userId, role: z.enum(ROLES) });
 const suspendForm = z.object({
 	userId,
 	reason: z.string().trim().min(3, 'Say why, in a few words (the member is not shown this).').max(REASON_MAX, `Keep the reason to ${REASON_MAX} characters.`)
+});
+const removeForm = z.object({
+	userId,
+	reason: z.string().trim().min(3, 'Say why, in a few words; it goes into the audit log.').max(REASON_MAX, `Keep the reason to ${REASON_MAX} characters.`),
+	understood: z.literal('yes', { error: 'Tick the box to confirm: a removal cannot be undone.' })
 });
 const decideForm = z.object({
 	requestId: z.coerce.number().int().positive(),
@@ -65,6 +71,15 @@ export const actions = {
 			return { reinstated: input.userId };
 		},
 		{ id: 'reinstate' }
+	),
+	remove: formAction(
+		async (event, data) => {
+			const admin = requireRole(event, 'admin');
+			const input = parseOrThrow(removeForm, valuesOf(data));
+			await accountDeletion.removeMember(admin, input.userId, input.reason);
+			return { removed: input.userId };
+		},
+		{ id: 'remove' }
 	),
 	decide: formAction(
 		async (event, data) => {

@@ -96,7 +96,8 @@ const isEnhancedAction = (event: RequestEvent) => event.request.method === 'POST
 
 /**
  * Refuses a section to anyone without its role before any route code runs: a signed-out visitor
- * goes to sign-in (401 JSON for API-style requests), a signed-in one gets 403 (JSON, an
+ * goes to sign-in (401 JSON for API-style requests), an applicant to their membership page (403
+ * JSON), a member without the role gets 403 (JSON, an
  * ActionResult for use:enhance, or plain text). Only a signed-in visitor's page view reaches the
  * route, because only a route can render the site's error page: its own guard (or the
  * section's layout) refuses it there, and anything other than that refusal is replaced by a
@@ -107,6 +108,12 @@ export const guardSections: Handle = async ({ event, resolve }) => {
 	const section = sectionOf(event.url.pathname);
 	if (!section || hasRole(event.locals.user, ...section.roles)) return resolve(event);
 	const user = event.locals.user;
+	// Signed in but not a member (waiting to be admitted): told where they stand, as requireUser does.
+	if (!user && event.locals.account) {
+		if (isEnhancedAction(event)) return json({ type: 'redirect', status: 303, location: MEMBERSHIP_PATH });
+		if (wantsJson(event) || event.isDataRequest) return json({ code: 'forbidden', message: MEMBERS_ONLY, fields: {} }, { status: 403 });
+		return new Response(null, { status: 303, headers: { location: MEMBERSHIP_PATH } });
+	}
 	const status = user ? 403 : 401;
 	const message = user ? onlyFor(section.roles) : SIGN_IN_FIRST;
 

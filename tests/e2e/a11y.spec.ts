@@ -1,7 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { personByEmail } from '../helpers/people';
-import { contextFor } from './fixtures';
+import { contextFor, crawl } from './fixtures';
 
 // axe (WCAG 2.0, 2.1 and 2.2, levels A and AA) on every kind of page the demo club has, signed out
 // and as each role: each role walks the pages it reaches from the main sections, one page per
@@ -46,22 +46,17 @@ async function violations(page: Page, label: string): Promise<string[]> {
 
 async function walk(page: Page, limit: number): Promise<{ visited: string[]; problems: string[] }> {
 	const problems: string[] = [];
-	const seen = new Set<string>();
-	const visited: string[] = [];
-	const queue = [...START];
-	while (queue.length && visited.length < limit) {
-		const path = queue.shift()!;
-		const shape = path.replace(/\d+/g, 'N').replace(/[?#].*$/, '');
-		if (seen.has(shape) || SKIP.test(path)) continue;
-		seen.add(shape);
-		const response = await page.goto(path);
-		// Pages this role may not open (403, 404, a sign-in redirect) are the access tests' business.
-		if (!response || response.status() >= 400 || new URL(page.url()).pathname !== path.replace(/[?#].*$/, '')) continue;
-		visited.push(path);
-		await page.waitForLoadState('networkidle');
-		problems.push(...(await violations(page, path)));
-		for (const href of await page.$$eval('a[href^="/"]', (links) => links.map((a) => a.getAttribute('href')!))) queue.push(href);
-	}
+	const visited = await crawl(page, {
+		start: START,
+		skip: SKIP,
+		limit,
+		visit: async (path, response) => {
+			// Pages this role may not open (403, 404, a sign-in redirect) are the access tests' business.
+			if (!response || response.status() >= 400 || new URL(page.url()).pathname !== path.replace(/[?#].*$/, '')) return false;
+			problems.push(...(await violations(page, path)));
+			return true;
+		}
+	});
 	return { visited, problems };
 }
 

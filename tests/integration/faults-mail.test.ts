@@ -3,16 +3,16 @@
 // retrying at once, the pages (and the actions that queue mail) keep answering, and once the fake
 // is back every queued message arrives exactly once, each with its own Message-ID. Runs an app
 // instance on a scratch database with a mail fake of its own, so the stack's are never touched.
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { waitForPort } from '../../scripts/lib/system';
 import { backoffMs } from '../../src/lib/server/mail/outbox';
 import { outbox, outboxAttempts } from '../../src/lib/server/mail/schema';
 import type { StoredMessage } from '../../fakes/mail';
 import { appUrl } from '../helpers/env';
+import { killHard, startFakeProcess } from '../helpers/fake-process';
 import { request } from '../helpers/http';
 import { checkoutRoot, poll, startInstance, type AppInstance } from '../helpers/instance';
 import { freePort } from '../helpers/ports';
@@ -34,24 +34,18 @@ let fake: ChildProcess | null = null;
 let ports: { smtp: number; http: number };
 let fixture: Fixture;
 
-/** The mail fake as its own process (as the stack runs it), keeping every message it accepts in `store`. */
+/** The mail fake as its own process, keeping every message it accepts in `store`. */
 async function startFake() {
-	fake = spawn(process.execPath, ['--import', 'tsx', join(checkoutRoot, 'fakes', 'mail.ts')], {
-		cwd: checkoutRoot,
-		env: { ...process.env, MAIL_FAKE_SMTP_PORT: String(ports.smtp), MAIL_FAKE_HTTP_PORT: String(ports.http), MAIL_FAKE_STORE: store },
-		stdio: 'ignore'
+	fake = await startFakeProcess('mail', ports.smtp, {
+		MAIL_FAKE_SMTP_PORT: String(ports.smtp),
+		MAIL_FAKE_HTTP_PORT: String(ports.http),
+		MAIL_FAKE_STORE: store
 	});
-	if (!(await waitForPort(ports.smtp, 30_000))) throw new Error('The mail fake did not start.');
 }
 
-/** Stops it the hard way: the relay is simply gone, connections and all. */
 async function stopFake() {
-	const proc = fake;
+	await killHard(fake);
 	fake = null;
-	if (!proc || proc.exitCode !== null || proc.signalCode !== null) return;
-	const gone = new Promise((resolve) => proc.once('exit', resolve));
-	proc.kill('SIGKILL');
-	await gone;
 }
 
 /** What the fake accepted, read from its store (each line is written before the fake answers 250). */

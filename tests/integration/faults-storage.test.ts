@@ -2,14 +2,14 @@
 // "storage-unavailable", not the database's outage page nor an unexpected error), no row and no
 // object are left of it, and the same photo uploads once the store is back. Runs an app instance
 // with a storage fake of its own, so the stack's bucket is never touched.
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import { rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { waitForPort } from '../../scripts/lib/system';
 import { appUrl } from '../helpers/env';
+import { killHard, startFakeProcess } from '../helpers/fake-process';
 import { checkoutRoot, startInstance, type AppInstance } from '../helpers/instance';
 import { mediaRowsOf, uploadFile } from '../helpers/media';
 import { makePerson, type TestPerson } from '../helpers/people';
@@ -24,22 +24,12 @@ let app: AppInstance | null = null;
 let member: TestPerson;
 
 async function startFake() {
-	fake = spawn(process.execPath, ['--import', 'tsx', join(checkoutRoot, 'fakes', 'storage.ts')], {
-		cwd: checkoutRoot,
-		env: { ...process.env, STORAGE_FAKE_PORT: String(port), STORAGE_FAKE_DIR: join(home, 's3'), S3_BUCKET: bucket },
-		stdio: 'ignore'
-	});
-	if (!(await waitForPort(port, 30_000))) throw new Error('The storage fake did not start.');
+	fake = await startFakeProcess('storage', port, { STORAGE_FAKE_PORT: String(port), STORAGE_FAKE_DIR: join(home, 's3'), S3_BUCKET: bucket });
 }
 
-/** The store simply goes away, connections and all. */
 async function stopFake() {
-	const proc = fake;
+	await killHard(fake);
 	fake = null;
-	if (!proc || proc.exitCode !== null || proc.signalCode !== null) return;
-	const gone = new Promise((resolve) => proc.once('exit', resolve));
-	proc.kill('SIGKILL');
-	await gone;
 }
 
 /** Every object the store holds for one member (keys start with the owner's id). */

@@ -23,6 +23,7 @@ import sharp from 'sharp';
 import { SetupError, note, ok, reportFailure, step, warn } from '../scripts/lib/log';
 import { bringUp, dataRoot, hashTree, portsFor, root, type Stack } from '../scripts/lib/stack';
 import { spawnManaged, waitForPort, type ManagedProcess } from '../scripts/lib/system';
+import { stopEverything } from '../scripts/lib/children';
 import { startCluster, type Cluster } from '../scripts/lib/cluster';
 import { drawAquarium } from '../scripts/seed/lib/images';
 import { BENCH_SEED_MARKER, SIZES } from './seed/sizes';
@@ -121,6 +122,8 @@ async function stopAll() {
 	await cluster?.stop();
 	for (const proc of managed.reverse()) await proc.stop();
 	await stack?.stop();
+	// Whatever a step had still running (every spawned process is tracked).
+	await stopEverything();
 }
 for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, () => void stopAll().then(() => process.exit(130)));
 

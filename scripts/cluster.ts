@@ -4,26 +4,23 @@
 // instances on PORT + 1 and PORT + 2. Ctrl-C stops everything in order.
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { SetupError, ok, orderlyShutdown, reportFailure, step } from './lib/log';
-import { bringUp, dataRoot, portsFor, type Stack } from './lib/stack';
-import { startCluster, type Cluster } from './lib/cluster';
+import { orderlyShutdown } from './lib/children';
+import { SetupError, ok, reportFailure, step } from './lib/log';
+import { bringUp, dataRoot, portsFor } from './lib/stack';
+import { startCluster } from './lib/cluster';
 
 const started = Date.now();
-let stack: Stack | null = null;
-let cluster: Cluster | null = null;
-const { shutdown, stopping } = orderlyShutdown(async () => {
-	await cluster?.stop();
-	await stack?.stop();
-});
+// Every process is tracked from its start and stopped newest first: nginx, workers, instances, fakes, MariaDB.
+const { shutdown, stopping } = orderlyShutdown();
 
 try {
 	const dotenv = join(import.meta.dirname, '..', '.env');
 	if (existsSync(dotenv)) process.loadEnvFile(dotenv);
 	if (process.env.NODE_ENV === 'test') throw new SetupError('NODE_ENV=test is set.', 'Unset NODE_ENV for `npm run cluster`.');
 	const ports = portsFor('start');
-	stack = await bringUp({ mode: 'start', home: join(dataRoot, 'start'), ports, database: 'riparia', fresh: false });
+	const stack = await bringUp({ mode: 'start', home: join(dataRoot, 'start'), ports, database: 'riparia', fresh: false });
 	step('Starting two app instances, two workers and nginx…');
-	cluster = await startCluster({
+	const cluster = await startCluster({
 		env: stack.env,
 		home: join(dataRoot, 'cluster'),
 		publicPort: ports.app,

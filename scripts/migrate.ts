@@ -31,9 +31,19 @@ if (import.meta.url === `file://${process.argv[1]}`) {
 		log.fatal('DATABASE_URL is not set.');
 		process.exit(1);
 	}
+	// MariaDB runs DDL outside transactions, so a migration stopped half-way would leave tables the
+	// next run tries to create again: on Ctrl-C or SIGTERM the migrator finishes, then stops.
+	let interrupted = false;
+	for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) {
+		process.on(signal, () => {
+			if (!interrupted) log.warn({ signal }, 'finishing the migrations before stopping');
+			interrupted = true;
+		});
+	}
 	try {
 		await applyMigrations(url);
 		log.info('migrations applied');
+		if (interrupted) process.exit(130);
 	} catch (error) {
 		const cause = error instanceof Error && error.cause instanceof Error ? error.cause.message : undefined;
 		log.fatal({ reason: reason(error), cause }, 'migration failed');

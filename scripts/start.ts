@@ -1,21 +1,20 @@
 // `npm start`: set up what is missing, then serve the app with the demo club until Ctrl-C.
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { SetupError, ok, orderlyShutdown, reportFailure, step } from './lib/log';
-import { bringUp, dataRoot, portsFor, type Stack } from './lib/stack';
+import { orderlyShutdown } from './lib/children';
+import { SetupError, ok, reportFailure, step } from './lib/log';
+import { bringUp, dataRoot, portsFor } from './lib/stack';
 import { DEMO_SIGN_IN } from './seed/people';
 
 const started = Date.now();
-let stack: Stack | null = null;
-const { shutdown, stopping } = orderlyShutdown(async () => {
-	await stack?.stop();
-});
+// Every process started below is tracked from its start, so Ctrl-C or SIGTERM at any step stops them all.
+const { shutdown, stopping } = orderlyShutdown();
 
 try {
 	const dotenv = join(import.meta.dirname, '..', '.env');
 	if (existsSync(dotenv)) process.loadEnvFile(dotenv);
 	if (process.env.NODE_ENV === 'test') throw new SetupError('NODE_ENV=test is set.', 'Use `npm test` for tests; unset NODE_ENV for `npm start`.');
-	stack = await bringUp({ mode: 'start', home: join(dataRoot, 'start'), ports: portsFor('start'), database: 'riparia', fresh: false });
+	const stack = await bringUp({ mode: 'start', home: join(dataRoot, 'start'), ports: portsFor('start'), database: 'riparia', fresh: false });
 	step('Starting the app…');
 	const app = await stack.serve();
 	void app.exited.then((code) => {

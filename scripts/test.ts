@@ -11,11 +11,11 @@
 //
 // `install` clones the committed HEAD into a temporary folder, installs, builds and prunes it as
 // a production server would be, and checks that it migrates and answers /readyz (a few minutes).
-import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { SetupError, ok, reportFailure, step, warn } from './lib/log';
-import { bringUp, dataRoot, portsFor, root, type Stack } from './lib/stack';
+import { orderlyShutdown, runChild, stopEverything } from './lib/children';
+import { bringUp, dataRoot, portsFor, root } from './lib/stack';
 import { aptInstall } from './lib/system';
 
 const CHROMIUM = '/usr/bin/chromium';
@@ -48,23 +48,15 @@ function parseArgs(argv: string[]) {
 	return { runners, grep, files, serve };
 }
 
-function run(command: string, args: string[], env: NodeJS.ProcessEnv): Promise<number> {
-	return new Promise((resolve) => {
-		const child = spawn(command, args, { cwd: root, env, stdio: 'inherit' });
-		child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
-	});
+/** Runs a test runner (tracked, so a shutdown stops it too) and returns its exit code. */
+async function run(command: string, args: string[], env: NodeJS.ProcessEnv): Promise<number> {
+	const { code, signal } = await runChild(`${command} ${args[0]}`, command, args, { cwd: root, env });
+	return code ?? (signal ? 1 : 0);
 }
 
-let stack: Stack | null = null;
-let stopping = false;
-const stopAll = async () => {
-	if (stopping) return;
-	stopping = true;
-	await stack?.stop();
-};
-for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) {
-	process.on(signal, () => void stopAll().then(() => process.exit(130)));
-}
+// Every process started below (MariaDB, the fakes, the app, each step and runner) is tracked from
+// its start: Ctrl-C or SIGTERM at any step stops them all and exits with 130.
+orderlyShutdown(130);
 
 const started = Date.now();
 const results: { runner: string; code: number }[] = [];
@@ -77,7 +69,7 @@ try {
 	const quiet = { NODE_ENV: 'test', LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
 	let env: NodeJS.ProcessEnv = { ...process.env, ...quiet };
 	if (needsStack) {
-		stack = await bringUp({ mode: 'test', home: join(dataRoot, 'test'), ports: portsFor('test'), database: 'riparia_test', fresh: true });
+		const stack = await bringUp({ mode: 'test', home: join(dataRoot, 'test'), ports: portsFor('test'), database: 'riparia_test', fresh: true });
 		step('Starting the app for the tests…');
 		await stack.serve();
 		ok(`Test stack is up at ${stack.urls.app}`);
@@ -108,7 +100,7 @@ try {
 	reportFailure(error);
 	results.push({ runner: 'set-up', code: 1 });
 } finally {
-	await stopAll().catch((e) => warn(`While stopping: ${String(e)}`));
+	await stopEverything().catch((e) => warn(`While stopping: ${String(e)}`));
 }
 
 console.log('\nSummary');

@@ -18,30 +18,20 @@ export class SetupError extends Error {
 	}
 }
 
+/** A step or a spawn cut short because everything is being stopped (Ctrl-C, SIGTERM). */
+export class Interrupted extends Error {
+	constructor() {
+		super('Interrupted.');
+	}
+}
+
 export function reportFailure(error: unknown): void {
+	// The shutdown itself says what happens; an interrupted step is not a failure to report.
+	if (error instanceof Interrupted) return;
 	if (error instanceof SetupError) {
 		console.error(paint('31', '\n✗ ' + error.message));
 		console.error('  ' + error.fix.split('\n').join('\n  '));
 	} else {
 		console.error(paint('31', '\n✗ Unexpected failure:'), error);
 	}
-}
-
-/**
- * Stops everything once — on Ctrl-C, SIGTERM or SIGHUP, or when `shutdown` is called — and exits
- * with the code given (0 for a signal).
- */
-export function orderlyShutdown(stop: () => Promise<void>) {
-	let stopping = false;
-	const shutdown = async (code: number) => {
-		if (stopping) return;
-		stopping = true;
-		console.log('');
-		step('Shutting down…');
-		await stop();
-		ok('Stopped cleanly.');
-		process.exit(code);
-	};
-	for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, () => void shutdown(0));
-	return { shutdown, stopping: () => stopping };
 }

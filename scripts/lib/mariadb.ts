@@ -1,10 +1,10 @@
 // A private MariaDB server for this checkout: its own data folder under .data/, its own socket,
 // bound to 127.0.0.1 on its own port, so it never touches a system-wide MariaDB.
-import { spawnSync } from 'node:child_process';
-import { closeSync, existsSync, mkdirSync, openSync, readFileSync } from 'node:fs';
+import { closeSync, existsSync, mkdirSync, openSync, readdirSync, readFileSync, renameSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import mysql from 'mysql2/promise';
-import { SetupError, note, ok, step } from './log';
+import { Interrupted, SetupError, note, ok, step } from './log';
+import { runStep, shuttingDown, track } from './children';
 import { aptInstall, isRoot, requireFreeDisk, requireFreePort, spawnManaged, which, type ManagedProcess } from './system';
 
 export interface MariaDbOptions {
@@ -86,18 +86,28 @@ export async function startMariaDb(options: MariaDbOptions): Promise<RunningMari
 
 	if (!existsSync(join(dataDir, 'mysql'))) {
 		step(`Initialising a MariaDB data folder in ${dataDir}…`);
-		mkdirSync(dataDir, { recursive: true });
-		const init = spawnSync(
-			'mariadb-install-db',
-			['--no-defaults', `--datadir=${dataDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...asRoot],
-			{ encoding: 'utf8' }
-		);
-		if (init.status !== 0) {
+		// Into a folder of its own, renamed into place only when complete: an initialisation cut
+		// short (Ctrl-C) must not leave a half-made data folder that the next start takes as ready.
+		const initDir = `${dataDir}.init`;
+		rmSync(initDir, { recursive: true, force: true });
+		if (existsSync(dataDir) && readdirSync(dataDir).length > 0) {
 			throw new SetupError(
-				`mariadb-install-db could not initialise ${dataDir}:\n${(init.stderr || init.stdout).trim().split('\n').slice(-15).join('\n')}`,
-				`Check free disk space and permissions on ${options.home}; to start over, delete that folder and run the command again.`
+				`${dataDir} holds files but no MariaDB system tables.`,
+				`Move that folder away (or delete ${options.home}) and run the command again.`
 			);
 		}
+		rmSync(dataDir, { recursive: true, force: true });
+		mkdirSync(initDir, { recursive: true });
+		await runStep(
+			`mariadb-install-db (initialising ${dataDir})`,
+			'mariadb-install-db',
+			['--no-defaults', `--datadir=${initDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', ...asRoot],
+			{
+				quiet: true,
+				fix: `Check free disk space and permissions on ${options.home}; to start over, delete that folder and run the command again.`
+			}
+		);
+		renameSync(initDir, dataDir);
 	}
 
 	const admin = async <T>(statements: string[]) => {
@@ -114,14 +124,23 @@ export async function startMariaDb(options: MariaDbOptions): Promise<RunningMari
 	const earlierPid = processAlive(pidFile);
 	if (earlierPid && (await canConnect(socket))) {
 		note(`MariaDB from an earlier run is still up (pid ${earlierPid}); reusing it.`);
+		const gone = async () => {
+			for (let i = 0; i < 300 && processAlive(pidFile); i++) await new Promise((r) => setTimeout(r, 100));
+		};
+		const signal = () => {
+			if (processAlive(pidFile)) process.kill(earlierPid, 'SIGTERM');
+		};
+		// Tracked like one we started, so a shutdown stops it too (SIGTERM: its clean shutdown).
+		const untrack = track({ name: 'MariaDB', signal, stop: async () => (signal(), await gone()) });
 		return {
 			socket,
 			port: options.port,
 			process: null,
 			admin,
 			stop: async () => {
-				process.kill(earlierPid, 'SIGTERM');
-				for (let i = 0; i < 300 && processAlive(pidFile); i++) await new Promise((r) => setTimeout(r, 100));
+				signal();
+				await gone();
+				untrack();
 			}
 		};
 	}
@@ -156,6 +175,7 @@ export async function startMariaDb(options: MariaDbOptions): Promise<RunningMari
 
 	const deadline = Date.now() + 60_000;
 	while (!(await canConnect(socket))) {
+		if (shuttingDown()) throw new Interrupted();
 		if (proc.exited() || Date.now() > deadline) {
 			await proc.stop(2000);
 			throw new SetupError(

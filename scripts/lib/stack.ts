@@ -1,9 +1,9 @@
 // Brings up everything the app needs (MariaDB, the mail and storage fakes, migrations, demo
 // seed, a current build) for `npm start` and `npm test`, and takes it down again in order.
-import { spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, openSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
+import { runStep, shuttingDown, stopEverything } from './children';
 import { SetupError, note, ok, step, warn } from './log';
 import { ensureDatabase, startMariaDb, type RunningMariaDb } from './mariadb';
 import { requireFreePort, spawnManaged, waitForPort, type ManagedProcess } from './system';
@@ -133,7 +133,7 @@ function sourceHash(): string {
 	return hash.digest('hex');
 }
 
-export function ensureBuild(): void {
+export async function ensureBuild(): Promise<void> {
 	const marker = join(root, 'build', '.source-hash');
 	const current = sourceHash();
 	if (existsSync(marker) && readFileSync(marker, 'utf8') === current) {
@@ -141,27 +141,26 @@ export function ensureBuild(): void {
 		return;
 	}
 	step('Building the app and the database scripts (npm run build)…');
+	// A build cut short must not pass for the old one: the marker goes first, and comes back last.
+	rmSync(marker, { force: true });
 	// The same two steps as `npm run build`, with vite's output cut down to warnings.
 	for (const config of ['vite.config.ts', 'vite.scripts.config.ts']) {
-		const result = spawnSync('npx', ['vite', 'build', '-c', config, '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
-		if (result.status !== 0) {
-			throw new SetupError('The app did not build (see the errors above).', 'Fix the build errors, or run `npm run check` for details.');
-		}
+		await runStep('The build', 'npx', ['vite', 'build', '-c', config, '--logLevel', 'warn'], {
+			cwd: root,
+			fix: 'Fix the build errors, or run `npm run check` for details.'
+		});
 	}
 	writeFileSync(marker, current);
 	ok('Built.');
 }
 
 /** Runs a built script (build/scripts/*.js) with plain Node, as `npm run db:migrate` does in production. */
-function runBuiltScript(script: string, env: NodeJS.ProcessEnv, what: string) {
-	const result = spawnSync(process.execPath, [join(root, 'build', 'scripts', script)], {
+function runBuiltScript(script: string, env: NodeJS.ProcessEnv, what: string, graceMs?: number) {
+	return runStep(what, process.execPath, [join(root, 'build', 'scripts', script)], {
 		cwd: root,
 		env: { ...env, LOG_FORMAT: env.LOG_FORMAT ?? 'pretty' },
-		stdio: 'inherit'
+		graceMs
 	});
-	if (result.status !== 0) {
-		throw new SetupError(`${what} failed (see above).`, 'Fix the error shown above and run the command again.');
-	}
 }
 
 export async function bringUp(options: StackOptions): Promise<Stack> {
@@ -171,6 +170,8 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 	let db: RunningMariaDb | null = null;
 
 	const stop = async () => {
+		// A shutdown (Ctrl-C, SIGTERM) stops every tracked process itself, steps first, MariaDB last.
+		if (shuttingDown()) return stopEverything();
 		for (const proc of [...managed].reverse()) {
 			note(`Stopping ${proc.name}…`);
 			await proc.stop();
@@ -264,10 +265,11 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 		}
 
 		// The database scripts run from the build, as in production, so the build comes first.
-		ensureBuild();
+		await ensureBuild();
 
 		step('Applying database migrations…');
-		runBuiltScript('migrate.js', env, 'Applying migrations');
+		// MariaDB cannot roll back DDL, so the migrator finishes what it began before it stops.
+		await runBuiltScript('migrate.js', env, 'Applying migrations', 120_000);
 
 		for (const [port, name] of [
 			...(useFakeMail ? [[ports.smtp, 'the mail fake'] as const] : []),
@@ -279,7 +281,7 @@ export async function bringUp(options: StackOptions): Promise<Stack> {
 		}
 
 		step('Seeding the demo club (only what is not there yet)…');
-		runBuiltScript('seed.js', env, 'Seeding the demo club');
+		await runBuiltScript('seed.js', env, 'Seeding the demo club');
 
 		const serve = async () => {
 			await requireFreePort(ports.app, 'the app', options.mode === 'start' ? 'PORT' : 'TEST_PORT_OFFSET');

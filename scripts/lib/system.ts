@@ -2,7 +2,8 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, statfsSync, writeFileSync, rmSync } from 'node:fs';
 import net from 'node:net';
-import { SetupError, step } from './log';
+import { Interrupted, SetupError, step } from './log';
+import { shuttingDown, track } from './children';
 
 export const isRoot = () => typeof process.getuid === 'function' && process.getuid() === 0;
 
@@ -98,9 +99,14 @@ export function aptInstall(packages: string[], why: string): void {
 	}
 }
 
-/** Starts a long-running helper in its own process group, so Ctrl-C reaches us first and we stop it in order. */
+/**
+ * Starts a long-running helper in its own process group, so Ctrl-C reaches us first and we stop it
+ * in order. It is tracked (`children.ts`) from the moment it is spawned, so a shutdown at any step
+ * or our own exit stops it too.
+ */
 export function spawnManaged(name: string, command: string, args: string[], options: { env?: NodeJS.ProcessEnv; cwd?: string; logFile?: number | 'inherit' }) {
 	const stdio = options.logFile === undefined || options.logFile === 'inherit' ? 'inherit' : options.logFile;
+	if (shuttingDown()) throw new Interrupted();
 	const child = spawn(command, args, {
 		cwd: options.cwd,
 		env: options.env ?? process.env,
@@ -108,26 +114,28 @@ export function spawnManaged(name: string, command: string, args: string[], opti
 		stdio: ['ignore', stdio, stdio]
 	});
 	let exited = false;
-	const exitPromise = new Promise<number | null>((resolve) =>
+	const exitPromise = new Promise<number | null>((resolve) => {
 		child.once('exit', (code) => {
 			exited = true;
 			resolve(code);
-		})
-	);
-	return {
-		name,
-		child,
-		exited: () => exited,
-		exitPromise,
-		async stop(timeoutMs = 30_000) {
-			if (exited) return;
-			child.kill('SIGTERM');
-			const timer = setTimeout(() => {
-				if (!exited) child.kill('SIGKILL');
-			}, timeoutMs);
-			await exitPromise;
-			clearTimeout(timer);
-		}
+		});
+		// A command that cannot be started at all (ENOENT) ends here, with no exit event.
+		child.once('error', () => {
+			exited = true;
+			resolve(null);
+		});
+	});
+	const stop = async (timeoutMs = 30_000) => {
+		if (exited) return;
+		child.kill('SIGTERM');
+		const timer = setTimeout(() => {
+			if (!exited) child.kill('SIGKILL');
+		}, timeoutMs);
+		await exitPromise;
+		clearTimeout(timer);
 	};
+	const untrack = track({ name, stop: () => stop(), signal: () => void (!exited && child.kill('SIGTERM')) });
+	void exitPromise.then(untrack);
+	return { name, child, exited: () => exited, exitPromise, stop };
 }
 export type ManagedProcess = ReturnType<typeof spawnManaged>;

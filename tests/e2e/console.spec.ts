@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { personByEmail } from '../helpers/people';
-import { contextFor } from './fixtures';
+import { contextFor, crawl } from './fixtures';
 
 // The strict CSP (no 'unsafe-eval', no inline script) must never have to refuse anything our
 // own pages try: a refusal is a console error, and usually a feature quietly not working.
@@ -21,19 +21,7 @@ async function walk(page: Page, limit: number): Promise<{ visited: string[]; pro
 			console.error(`CSP refused ${e.violatedDirective}: ${e.blockedURI} ${e.sourceFile}:${e.lineNumber}`)
 		);
 	});
-	const seen = new Set<string>();
-	const visited: string[] = [];
-	const queue = [...START];
-	while (queue.length && visited.length < limit) {
-		const path = queue.shift()!;
-		const shape = path.replace(/\d+/g, 'N').replace(/[?#].*$/, '');
-		if (seen.has(shape) || SKIP.test(path)) continue;
-		seen.add(shape);
-		visited.push(path);
-		await page.goto(path);
-		await page.waitForLoadState('networkidle');
-		for (const href of await page.$$eval('a[href^="/"]', (links) => links.map((a) => a.getAttribute('href')!))) queue.push(href);
-	}
+	const visited = await crawl(page, { start: START, skip: SKIP, limit, visit: async () => true });
 	return { visited, problems };
 }
 

@@ -113,7 +113,7 @@ async function storeUpload(ownerId: string, bytes: Uint8Array, context: MediaCon
 			})
 		);
 		const failed = puts.find((p): p is PromiseRejectedResult => p.status === 'rejected');
-		if (failed) throw failed.reason;
+		if (failed) throw storeUnavailable(failed.reason);
 		const renditions = Object.fromEntries(prepared.renditions.map((r) => [r.size, { width: r.width, height: r.height, bytes: r.data.byteLength }])) as Record<
 			RenditionSize,
 			StoredRendition
@@ -134,6 +134,20 @@ async function storeUpload(ownerId: string, bytes: Uint8Array, context: MediaCon
 		});
 		throw error;
 	}
+}
+
+/**
+ * The bucket did not take a write (it is down, unreachable or refusing). The member is told so in
+ * plain words, with a 503 they may retry, rather than an unexpected error or the database's outage
+ * page (a refused connection looks alike to both); the cause goes to the log.
+ */
+function storeUnavailable(cause: unknown): DomainError {
+	log.warn({ reason: reason(cause) }, 'the photo store did not take an upload');
+	return new DomainError(
+		503,
+		'storage-unavailable',
+		'We could not store your photo just now: the photo store is not answering. Nothing was saved; please try the same photo again in a minute.'
+	);
 }
 
 /** Object keys to delete once the transaction that removed their rows has committed. */

@@ -13,6 +13,7 @@ import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 import * as plans from '../../src/lib/server/away/plans';
+import * as news from '../../src/lib/server/news/posts';
 import { dayNumber, isoDay } from '../../src/lib/journals/calc';
 import { today } from '../../src/lib/dates';
 
@@ -53,6 +54,9 @@ const apiSignedIn = (status: number) => ({ anonymous: 401, member: status, judge
 const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
 const hidden = { anonymous: 404, member: 404, judge: 404, admin: 404 };
 let targetListing: number;
+/** A published members-only news post (to judges), and a draft. */
+let clubPost: number;
+let draftPost: number;
 let targetThread: number;
 /** A contest being judged, with an entry of `target`'s and one card by a judge of its panel. */
 let contest: Fixture;
@@ -85,9 +89,11 @@ const rows: Row[] = [
 	{
 		method: 'POST',
 		path: '/account?/profile',
-		form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', notifyMessages: 'hourly', homeLat: '', homeLng: '' }),
+		form: () => ({ displayName: 'Guard Test', units: 'metric', locationMode: 'none', homeLat: '', homeLng: '' }),
 		expect: signedIn(200)
 	},
+	{ path: '/account/notifications', expect: signedIn(200) },
+	{ method: 'POST', path: '/account/notifications', form: () => ({ swaps: 'sometimes' }), expect: signedIn(400) },
 	{ method: 'POST', path: '/account?/revoke', form: () => ({ handle: 'no-such-session' }), expect: { anonymous: 303, member: 404, judge: 404, admin: 404 } },
 	{
 		method: 'POST',
@@ -267,7 +273,21 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/away/:plan?/share', form: () => ({}), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/unshare', form: () => ({}), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/visit', form: () => ({ done: 'Looked', note: 'x' }), expect: notOwner },
-	{ path: '/away/shared/not-a-real-token-of-any-plan-00000', expect: everyone(404) }
+	{ path: '/away/shared/not-a-real-token-of-any-plan-00000', expect: everyone(404) },
+	{ path: '/news', expect: everyone(200) },
+	{ path: '/news/feed.xml', expect: everyone(200) },
+	{ path: '/news/:clubPost', expect: { anonymous: 404, member: 200, judge: 200, admin: 200 } },
+	{ path: '/news/:draftPost', expect: hidden },
+	{ path: '/admin/news', expect: adminOnly(200) },
+	{ path: '/admin/news/new', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/news/new', form: () => ({ title: '' }), expect: adminOnly(400) },
+	{ path: '/admin/news/:draftPost', expect: adminOnly(200) },
+	{ path: '/admin/news/999999999', expect: adminOnly(404) },
+	{ path: '/admin/news/:draftPost/status', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/news/:draftPost?/save', form: () => ({ title: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/news/:draftPost?/test', form: () => ({}), expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/news/:draftPost?/publish', form: () => ({}), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/news/999999999?/delete', form: () => ({}), expect: adminOnly(404) }
 ];
 
 beforeAll(async () => {
@@ -295,6 +315,10 @@ beforeAll(async () => {
 	});
 	cardId = await cardIdOf(contest.entries[0]!.entryId, contest.judges[0]!.id);
 	pendingPhoto = (await photoOf(target)).id;
+	const newsInput = { title: 'Guard news', body: 'x', visibility: 'members' as const, audienceKind: 'judges' as const };
+	clubPost = await news.create(viewerOf(people.admin), newsInput);
+	await news.publish(viewerOf(people.admin), clubPost);
+	draftPost = await news.create(viewerOf(people.admin), newsInput);
 	const todayNumber = dayNumber(today());
 	targetPlan = await plans.start(keeper, targetTank, {
 		startsOn: isoDay(todayNumber + 1),
@@ -309,6 +333,8 @@ beforeAll(async () => {
 /** A row's path with its placeholders filled in. */
 const pathOf = (row: Row) =>
 	row.path
+		.replaceAll(':clubPost', String(clubPost))
+		.replaceAll(':draftPost', String(draftPost))
 		.replaceAll(':tank', String(targetTank))
 		.replaceAll(':contestEntry', String(contest.entries[0]!.entryId))
 		.replaceAll(':entry', String(targetEntry))

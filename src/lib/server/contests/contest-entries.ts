@@ -248,3 +248,10 @@ export async function photoAudience(viewer: Viewer | null, entryId: number, cont
 	if (!viewer) return null;
 	return viewer.id === found.entrantId || isAdminViewer(viewer) ? 'restricted' : null;
 }
+
+/** The members with an entry in a contest (each once), for mail to its entrants. */
+export async function entrantIds(contestId: number, context: Context = {}): Promise<string[]> {
+	const { db } = resolve(context);
+	const rows = await db.selectDistinct({ id: contestEntries.entrantId }).from(contestEntries).where(eq(contestEntries.contestId, contestId));
+	return rows.map((r) => r.id);
+}

@@ -12,7 +12,8 @@ export interface Member {
 	id: string;
 	/** As others see it (nameOf). */
 	name: string;
-	/** Empty when the member has no address (nothing may be sent). */
+	/** Empty when nothing may be sent: the member has no address, or is not an active member
+	 * (suspended, or an applicant not admitted), so no feature mails them by accident. */
 	email: string;
 	role: Role;
 	unsubscribeToken: string;
@@ -24,13 +25,21 @@ const columns = {
 	email: users.email,
 	role: users.role,
 	unsubscribeToken: users.unsubscribeToken,
-	deletedAt: users.deletedAt
+	deletedAt: users.deletedAt,
+	state: users.state
 };
+
+/** Only members in good standing are listed, found by name or mailed. */
+const active = eq(users.state, 'active');
 
 async function select(where: SQL | undefined, context: Context): Promise<Member[]> {
 	const { db } = resolve(context);
 	const rows = await db.select(columns).from(users).where(where);
-	return rows.map(({ displayName, email, deletedAt, ...r }) => ({ ...r, name: nameOf(displayName, deletedAt !== null), email: email ?? '' }));
+	return rows.map(({ displayName, email, deletedAt, state, ...r }) => ({
+		...r,
+		name: nameOf(displayName, deletedAt !== null),
+		email: state === 'active' ? (email ?? '') : ''
+	}));
 }
 
 const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
@@ -49,12 +58,12 @@ export async function names(ids: Iterable<string>, context: Context = {}): Promi
 
 /** Members with a role and an address, by name. */
 export async function withRole(role: Role, context: Context = {}): Promise<Member[]> {
-	return (await select(and(eq(users.role, role), isNotNull(users.email)), context)).sort(byName);
+	return (await select(and(eq(users.role, role), isNotNull(users.email), active), context)).sort(byName);
 }
 
-/** Every member with an address (a club-wide mailing; the outbox drops those who turned its category off). */
+/** Every active member with an address (a club-wide mailing; the outbox drops those who turned its category off). */
 export async function everyone(context: Context = {}): Promise<Member[]> {
-	return select(isNotNull(users.email), context);
+	return select(and(isNotNull(users.email), active), context);
 }
 
 /** Club areas' names, by id. An id of no area (e.g. one removed since) is not in the map. */
@@ -80,7 +89,7 @@ export async function digestReaders(ids: string[], context: Context = {}): Promi
 	const rows = await db
 		.select({ id: users.id, email: users.email, displayName: users.displayName, unsubscribeToken: users.unsubscribeToken })
 		.from(users)
-		.where(and(inArray(users.id, ids), isNotNull(users.email)))
+		.where(and(inArray(users.id, ids), isNotNull(users.email), active))
 		.orderBy(asc(users.id));
 	return rows.map((r) => ({ ...r, email: r.email ?? '' }));
 }
@@ -99,6 +108,6 @@ export async function findByName(prefix: string, limit = 10, context: Context = 
 	const typed = prefix.trim();
 	if (typed.length < 2) return [];
 	const escaped = typed.replace(/[\\%_]/g, (c) => `\\${c}`);
-	const found = await select(and(like(users.displayName, `${escaped}%`), isNotNull(users.email)), context);
+	const found = await select(and(like(users.displayName, `${escaped}%`), isNotNull(users.email), active), context);
 	return found.sort(byName).slice(0, limit);
 }

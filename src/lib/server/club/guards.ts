@@ -3,6 +3,7 @@
 // requireUser or requireRole itself. Domain commands check roles a third time (assertRole in
 // $lib/club/roles), so a command is safe whoever calls it.
 import { error, json, redirect, type Handle, type RequestEvent } from '@sveltejs/kit';
+import type { Account } from '../../club/membership';
 import { hasRole, onlyFor, type Role } from '../../club/roles';
 import type { Viewer } from '../../club/viewer';
 
@@ -14,17 +15,35 @@ const SIGN_IN_FIRST = 'Sign in to use this.';
 
 const signInPath = (url: URL) => `/signin?redirectTo=${encodeURIComponent(url.pathname + url.search)}`;
 
+const MEMBERS_ONLY = 'This part of Riparia is for members of the club.';
+
+/** Where a signed-in person who is not (yet) a member is told where they stand. */
+export const MEMBERSHIP_PATH = '/membership';
+
 /**
- * The signed-in person, or: a redirect to sign-in for pages, 401 for API routes. Call it in every
- * protected load, action and endpoint; a layout check alone does not protect actions.
+ * The signed-in member (active), or: a redirect to sign-in for pages, 401 for API routes. Someone
+ * signed in who is not a member (waiting to be admitted, turned down) is sent to their membership
+ * page (403 for API routes). Call it in every protected load, action and endpoint; a layout check
+ * alone does not protect actions.
  */
 export function requireUser(event: Guarded): Viewer {
 	const user = event.locals.user;
 	if (!user) {
+		const applicant = event.locals.account;
+		if (isApi(event)) error(applicant ? 403 : 401, applicant ? MEMBERS_ONLY : SIGN_IN_FIRST);
+		redirect(303, applicant ? MEMBERSHIP_PATH : signInPath(event.url));
+	}
+	return user;
+}
+
+/** Whoever is signed in, member or not (a suspended member is signed out): for their own membership pages. */
+export function requireSignedIn(event: Guarded): Account {
+	const account = event.locals.account;
+	if (!account) {
 		if (isApi(event)) error(401, SIGN_IN_FIRST);
 		redirect(303, signInPath(event.url));
 	}
-	return user;
+	return account;
 }
 
 /**

@@ -1,7 +1,7 @@
 // Members' entries: which tank in which category, its photos and statement, the tank's figures
 // as checked for eligibility. Entries are made, changed and withdrawn only while the contest takes
 // entries; judges never reach them through here (see ./judging.ts for the blind view).
-import { and, asc, count, eq, ne } from 'drizzle-orm';
+import { and, asc, count, countDistinct, eq, inArray, ne } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
 import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
@@ -254,4 +254,15 @@ export async function entrantIds(contestId: number, context: Context = {}): Prom
 	const { db } = resolve(context);
 	const rows = await db.selectDistinct({ id: contestEntries.entrantId }).from(contestEntries).where(eq(contestEntries.contestId, contestId));
 	return rows.map((r) => r.id);
+}
+
+/** How many contests each of these members has entered, by member id (for the member directory). */
+export async function contestsEnteredBy(memberIds: readonly string[], context: Context = {}): Promise<Map<string, number>> {
+	if (memberIds.length === 0) return new Map();
+	const rows = await resolve(context)
+		.db.select({ id: contestEntries.entrantId, n: countDistinct(contestEntries.contestId) })
+		.from(contestEntries)
+		.where(inArray(contestEntries.entrantId, [...memberIds]))
+		.groupBy(contestEntries.entrantId);
+	return new Map(rows.map((r) => [r.id, r.n]));
 }

@@ -193,7 +193,8 @@ export async function update(admin: Viewer, id: number, input: PostInput, contex
 				actorId: admin.id,
 				action: 'news.edit',
 				subject: subject(id),
-				detail: { before: { title: before.title, audience: before.audience }, after: { title: input.title, audience } }
+				before: { title: before.title, visibility: before.visibility, audience: before.audience },
+				after: { title: input.title, visibility: input.visibility, audience }
 			},
 			{ ...context, db: tx }
 		);
@@ -295,7 +296,13 @@ export async function publish(admin: Viewer, id: number, context: Context = {}):
 		const queued = await enqueue(mails, inTx);
 		await tx.update(newsPosts).set({ publishedAt: now, recipients: queued }).where(eq(newsPosts.id, id));
 		await audit.record(
-			{ actorId: admin.id, action: 'news.publish', subject: subject(id), detail: { title: post.title, audience: post.audience, recipients: queued } },
+			{
+				actorId: admin.id,
+				action: 'news.publish',
+				subject: subject(id),
+				detail: { title: post.title, audience: post.audience, recipients: queued },
+				after: { publishedAt: now.toISOString() }
+			},
 			inTx
 		);
 		return { queued };

@@ -21,6 +21,7 @@ try {
 	if (people.length < RECIPIENTS) throw new Error(`Only ${people.length} members to mail; the large club has not been seeded.`);
 	const later = new Date(Date.now() + 365 * 86_400_000);
 	const mails: QueuedMail[] = people.map((p) => ({
+		category: 'account',
 		to: p.email!,
 		subject: 'The results of the autumn layout contest are out',
 		text: `Hello ${p.name},\n\nThe results are on the club's site. Thank you to every entrant and judge.\n`,

@@ -5,7 +5,7 @@
 // SQL (the baseline, same server, same run); SQL statements per request on the demo club and on
 // the large one; the JS and CSS a browser downloads per page; the tank page's largest contentful
 // paint; the photo pipeline on a 24-megapixel photo; a 100-entry contest's results; queueing a
-// mail to 2,000 members; and the same pages through the cluster (nginx, two instances). Prints
+// mail to 2,000 members; queueing a news post to 2,000 members; and the same pages through the cluster (nginx, two instances). Prints
 // one table with targets beside the figures (never asserted) and writes it as JSON to
 // bench/results/<date>-<commit>.json.
 //
@@ -302,6 +302,8 @@ try {
 	const contestMs = timeResults(contestInput, 10);
 	step('Queueing a mail to 2,000 members in one transaction…');
 	const mail = jsonChild<{ recipients: number; msMedian: number }>('bench/mail-queue.ts', env);
+	step('Queueing a news post to 2,000 members…');
+	const news = jsonChild<{ recipients: number; msMedian: number }>('bench/news-queue.ts', env);
 
 	// --- The table --------------------------------------------------------------------------------
 	const baseline = results.find((r) => r.key === 'baseline')!;
@@ -358,6 +360,7 @@ try {
 	);
 	lines.push(`Results of one category, 100 entries × 6 judges × 6 criteria (${contestInput.cards.length} cards): ${contestMs.toFixed(1)} ms`);
 	lines.push(`Queueing a mail to ${mail.recipients} members in one transaction: ${mail.msMedian.toFixed(0)} ms`);
+	lines.push(`Queueing a news post to ${news.recipients} members (audience, settings, one row each): ${news.msMedian.toFixed(0)} ms`);
 	lines.push(`Cluster: ${clusterNote}`);
 
 	const targets: { what: string; figure: string; ok: boolean }[] = [];
@@ -429,6 +432,7 @@ try {
 				photo,
 				contest: { entries: 100, judges: 6, criteria: 6, cards: contestInput.cards.length, ms: contestMs },
 				mail,
+				news,
 				cluster: clusterNote,
 				targets,
 				table: lines

@@ -13,6 +13,7 @@ import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as water from '../../src/lib/server/journals/water';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
 import * as social from '../../src/lib/server/journals/social';
+import * as preferences from '../../src/lib/server/mail/preferences';
 import { defaultSchedule } from '../../src/lib/journals/schedule';
 import type { EventInput } from '../../src/lib/journals/journal-entry-form';
 import { dayNumber, isoDay } from '../../src/lib/journals/calc';
@@ -703,9 +704,9 @@ export async function seedJournals(db: DbOrTx): Promise<void> {
 		await entries.addComment(await viewerOf(authorId), e.tankId, e.entryId, COMMENTS[c++ % COMMENTS.length]!, { db });
 	}
 
-	// Two members have asked for the weekly digest.
+	// Two members have asked for the weekly upkeep reminder.
 	for (const key of ['mara', 'lio']) {
 		const id = people.get(key);
-		if (id) await db.update(users).set({ weeklyDigest: true }).where(eq(users.id, id));
+		if (id) await preferences.save(id, { upkeep: 'weekly' }, { db });
 	}
 }

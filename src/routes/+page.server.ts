@@ -8,6 +8,7 @@ import * as showcase from '$lib/server/journals/showcase';
 import * as upkeep from '$lib/server/journals/upkeep';
 import * as judging from '$lib/server/contests/judging';
 import * as threads from '$lib/server/swaps/threads';
+import * as posts from '$lib/server/news/posts';
 import type { Actions, PageServerLoad } from './$types';
 
 /** Upkeep due within this many days shows on the dashboard. */
@@ -23,12 +24,13 @@ export const load = (async ({ locals }) => {
 		return { dashboard: null, showcase: cards.slice(0, 3) };
 	}
 	const now = new Date();
-	const [scheduled, mine, followed, judged, swapNews] = await Promise.all([
+	const [scheduled, mine, followed, judged, swapNews, news] = await Promise.all([
 		upkeep.scheduleOf(viewer, { now }),
 		tanks.listOwn(viewer, { retired: false }),
 		entries.recentFollowed(viewer),
 		judging.myContests(viewer),
-		threads.unreadOnOwnListings(viewer.id)
+		threads.unreadOnOwnListings(viewer.id),
+		posts.latest(viewer)
 	]);
 	const judgingNow = judged.filter((c) => c.state === 'judging' && c.toScore > c.submitted);
 	const withSchedule = new Set(scheduled.map((s) => s.task.tankIdNumber));
@@ -41,7 +43,8 @@ export const load = (async ({ locals }) => {
 			// Cards a judge still owes in contests being judged, and conversations on the member's listings with news.
 			cardsWaiting: judgingNow.reduce((n, c) => n + c.toScore - c.submitted, 0),
 			judgingContests: judgingNow.length,
-			swapNews
+			swapNews,
+			news: news.map((p) => ({ id: p.id, title: p.title, publishedAt: p.publishedAt }))
 		},
 		showcase: []
 	};

@@ -10,8 +10,8 @@ test('a swap from posting to handover: photo, radius filter, request, acceptance
 	// Two members about 3.3 km apart over the open sea (0.03° of latitude).
 	const owner = await makePerson({ displayName: 'Willa Offerton' });
 	const asker = await makePerson({ displayName: 'Tobin Askwith' });
-	await placePerson(owner, { lat: -47.3, lng: -35.4 }, 'each');
-	await placePerson(asker, { lat: -47.33, lng: -35.4 }, 'each');
+	await placePerson(owner, { lat: -47.3, lng: -35.4 }, 'immediately');
+	await placePerson(asker, { lat: -47.33, lng: -35.4 }, 'immediately');
 	const title = `Rotala tops ${token('e2e')}`;
 
 	// The owner posts an offer with a photo and a catalogue plant.

@@ -4,6 +4,8 @@ import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
+import * as preferences from '../../src/lib/server/mail/preferences';
+import type { Preferences } from '../../src/lib/mail/categories';
 import type { Viewer } from '../../src/lib/server/club/users';
 import type { Context } from '../../src/lib/server/context';
 import { species } from '../../src/lib/server/species/schema';
@@ -16,15 +18,16 @@ import { makePerson, type TestPerson } from './people';
 
 export const viewerOf = (p: TestPerson): Viewer => ({ id: p.id, email: p.email, displayName: p.displayName, role: p.role, units: 'metric' });
 
-export async function placePerson(person: TestPerson, point: LatLng | null, notify: 'each' | 'hourly' | 'off' = 'hourly'): Promise<void> {
+export async function placePerson(person: TestPerson, point: LatLng | null, notify: Preferences['swaps'] = 'daily'): Promise<void> {
 	await db
 		.update(users)
-		.set({ homeLat: point?.lat ?? null, homeLng: point?.lng ?? null, homeAreaId: null, notifyMessages: notify })
+		.set({ homeLat: point?.lat ?? null, homeLng: point?.lng ?? null, homeAreaId: null })
 		.where(eq(users.id, person.id));
+	await preferences.save(person.id, { swaps: notify });
 }
 
 /** A member living at `point` (rounded points only: give two decimals). */
-export async function memberAt(point: LatLng | null, label = 'swapper', notify: 'each' | 'hourly' | 'off' = 'hourly'): Promise<TestPerson> {
+export async function memberAt(point: LatLng | null, label = 'swapper', notify: Preferences['swaps'] = 'daily'): Promise<TestPerson> {
 	const person = await makePerson({ label });
 	await placePerson(person, point, notify);
 	return person;

@@ -25,6 +25,7 @@ import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 import * as judging from '../../src/lib/server/contests/judging';
 import * as plans from '../../src/lib/server/away/plans';
+import * as news from '../../src/lib/server/news/posts';
 import { dayNumber, isoDay } from '../../src/lib/journals/calc';
 import { today } from '../../src/lib/dates';
 import { cardIdOf, contestFixture, fields, photoOf, type Fixture } from '../helpers/contests';
@@ -124,6 +125,9 @@ let targetListing: number;
 let targetThread: number;
 /** A care plan of the owner's for `:tank`, nobody asked to look in yet. */
 let targetPlan: number;
+/** A published members-only news post (mailed to judges), and a draft. */
+let clubPost: number;
+let draftPost: number;
 /** A contest being judged with one entry, the owner's; the panel judge's card of it. */
 let contest: Fixture;
 let cardId: number;
@@ -419,6 +423,25 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/away/:plan?/visit', form: () => ({ done: 'Looked', note: 'x' }), expect: ownerOnly(409) },
 	{ path: '/away/shared/not-a-real-token-of-any-plan-00000', expect: everyone(404) },
 
+	// Notification settings and club news.
+	{ path: '/account/notifications', expect: signedIn(200) },
+	{ method: 'POST', path: '/account/notifications', form: () => ({ swaps: 'sometimes' }), expect: signedIn(400) },
+	{ path: '/news', expect: everyone(200) },
+	{ path: '/news/feed.xml', expect: everyone(200) },
+	// A members-only post does not exist for anyone who is not a member; a draft for nobody outside the admin pages.
+	{ path: '/news/:clubPost', expect: by((k) => (k.role ? 200 : 404)) },
+	{ path: '/news/:draftPost', expect: everyone(404) },
+	{ path: '/admin/news', expect: adminOnly(200) },
+	{ path: '/admin/news/new', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/news/new', form: () => ({ title: '' }), expect: adminOnly(400) },
+	{ path: '/admin/news/:draftPost', expect: adminOnly(200) },
+	{ path: '/admin/news/999999999', expect: adminOnly(404) },
+	{ path: '/admin/news/:draftPost/status', expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/news/:draftPost?/save', form: () => ({ title: '' }), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/news/:draftPost?/test', form: () => ({}), expect: adminOnly(200) },
+	{ method: 'POST', path: '/admin/news/:draftPost?/publish', form: () => ({}), expect: adminOnly(400) },
+	{ method: 'POST', path: '/admin/news/999999999?/delete', form: () => ({}), expect: adminOnly(404) },
+
 	// Last, the rows that end something of the owner's (the owner's request is the last of each row).
 	{ method: 'DELETE', path: '/api/media/:photo', api: true, expect: by((k, v) => (!k.role ? notMemberApi(k) : v === 'owner' ? 204 : 404)) },
 	{
@@ -499,6 +522,10 @@ beforeAll(async () => {
 		evaporationLitresPerDay: null
 	});
 	people = await makeViewers(owner, contest);
+	const newsInput = { title: 'Guard news', body: 'x', visibility: 'members' as const, audienceKind: 'judges' as const };
+	clubPost = await news.create(viewerOf(people.admin), newsInput);
+	await news.publish(viewerOf(people.admin), clubPost);
+	draftPost = await news.create(viewerOf(people.admin), newsInput);
 });
 
 /** A row's path with its placeholders filled in. */
@@ -518,6 +545,8 @@ const pathOf = (row: Row) =>
 		.replaceAll(':category', String(contest.categories[0]))
 		.replaceAll(':card', String(cardId))
 		.replaceAll(':plan', String(targetPlan))
+		.replaceAll(':clubPost', String(clubPost))
+		.replaceAll(':draftPost', String(draftPost))
 		.replaceAll(':photo', String(pendingPhoto));
 
 /**

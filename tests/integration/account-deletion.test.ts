@@ -25,6 +25,7 @@ import * as panel from '../../src/lib/server/contests/panel';
 import { publicResults, transition } from '../../src/lib/server/contests/review';
 import { contestEntries as entryTable } from '../../src/lib/server/contests/schema';
 import { enqueue } from '../../src/lib/server/mail/outbox';
+import * as preferences from '../../src/lib/server/mail/preferences';
 import { FORMER_MEMBER } from '../../src/lib/club/names';
 import type { Viewer } from '../../src/lib/club/viewer';
 import type { Role } from '../../src/lib/club/roles';
@@ -203,7 +204,9 @@ describe('deleting an account', () => {
 
 		// A pending upload, and mail to the leaver waiting in the outbox.
 		await photo(leaver, '#000000');
-		await enqueue({ to: leaver.email, subject: 'Waiting mail', text: 'x', html: '<p>x</p>' }, ctx());
+		await enqueue({ category: 'account', to: leaver.email, subject: 'Waiting mail', text: 'x', html: '<p>x</p>' }, ctx());
+		// Their notification settings.
+		await preferences.save(leaver.id, { news: 'off' }, ctx());
 
 		// What the deletion must remove, counted before it by the tables' own columns.
 		const tankChildren = ['tank_light', 'tank_filter', 'tank_fertiliser', 'tank_plant', 'tank_livestock', 'maintenance_task', 'water_test', 'journal_event'];
@@ -244,6 +247,7 @@ describe('deleting an account', () => {
 			contest_card: 0,
 			// every mail to the address goes; one goodbye is queued
 			outbox: leaverMail - 1,
+			mail_preference: 1,
 			audit_log: -1
 		};
 		for (const [table, n] of before) {
@@ -256,7 +260,7 @@ describe('deleting an account', () => {
 
 		// The member row is a tombstone: the id stays, nothing personal does.
 		const [tomb] = await scratch.db.select().from(users).where(eq(users.id, leaver.id));
-		expect(tomb).toMatchObject({ email: null, displayName: null, name: null, homeLat: null, homeLng: null, role: 'member', announcements: false });
+		expect(tomb).toMatchObject({ email: null, displayName: null, name: null, homeLat: null, homeLng: null, role: 'member' });
 		expect(tomb!.deletedAt).toBeInstanceOf(Date);
 		expect((await directory.names([leaver.id], ctx())).get(leaver.id)).toBe(FORMER_MEMBER);
 

@@ -114,7 +114,7 @@ describe('two app instances on one database', () => {
 });
 
 describe('workers beside the app', () => {
-	const mail = (to: string): QueuedMail => ({ to, subject: `Queued for ${to}`, text: 'plain part', html: '<p>html part</p>' });
+	const mail = (to: string): QueuedMail => ({ category: 'account', to, subject: `Queued for ${to}`, text: 'plain part', html: '<p>html part</p>' });
 
 	test("a standalone worker and the app's own worker deliver the stack's outbox once each", async () => {
 		startWorker(process.env);

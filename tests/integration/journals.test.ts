@@ -8,6 +8,7 @@ import { db } from '../../src/lib/server/db';
 import { users } from '../../src/lib/server/club/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { unsubscribeToken } from '../../src/lib/server/mail/unsubscribe';
+import * as preferences from '../../src/lib/server/mail/preferences';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
@@ -493,7 +494,7 @@ describe('the Atom feed', () => {
 describe('the weekly digest', () => {
 	test('lists due upkeep and followed entries, with an unsubscribe link and header; one per week', async () => {
 		const reader = await makePerson({ label: 'digest-reader', displayName: 'Digest Reader' });
-		await db.update(users).set({ weeklyDigest: true }).where(eq(users.id, reader.id));
+		await preferences.save(reader.id, { upkeep: 'weekly' });
 		const tankId = await tanks.create(viewerOf(reader), tankInput({ name: 'Digest tank', setUpOn: daysAgo(60) }));
 		await upkeep.saveSchedule(viewerOf(reader), tankId, [
 			{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 },
@@ -510,7 +511,7 @@ describe('the weekly digest', () => {
 		await social.toggleFollow(viewerOf(reader), followedTank, true);
 		await entries.create(viewerOf(keeper), followedTank, { entryOn: daysAgo(1), title: 'Fresh stones', body: 'x', ...noEvents }, []);
 		const quiet = await makePerson({ label: 'digest-quiet' });
-		await db.update(users).set({ weeklyDigest: true }).where(eq(users.id, quiet.id));
+		await preferences.save(quiet.id, { upkeep: 'weekly' });
 
 		const now = new Date();
 		expect(await digest.sendWeeklyDigests({ now })).toBeGreaterThanOrEqual(1);
@@ -520,7 +521,7 @@ describe('the weekly digest', () => {
 		expect(mail.text).toContain('• Digest tank: Water change — overdue by 3 days');
 		expect(mail.text).not.toContain('Trim the stems');
 		expect(mail.text).toMatch(/• Followed for digest: Fresh stones — http\S+\/journals\/\d+\/entries\/\d+/);
-		const token = unsubscribeToken(reader.id, 'digest');
+		const token = unsubscribeToken(reader.id, 'upkeep');
 		expect(mail.text).toContain(`/unsubscribe/${token}`);
 		expect(mail.headers['list-unsubscribe']).toContain(`/unsubscribe/${token}>`);
 

@@ -11,6 +11,7 @@ test('an admin reads a queued mail made safe, in words; no one else may', async 
 	const member = await makePerson({ label: 'mail-log-member' });
 	const subject = `Log check ${crypto.randomUUID().slice(0, 8)}`;
 	await enqueue({
+		category: 'account',
 		to: member.email,
 		subject,
 		text: 'Plain words for the log.',

@@ -160,7 +160,7 @@ describe('metrics', () => {
 		const scratch = await scratchDatabase();
 		try {
 			expect(await queueStats({ db: scratch.db })).toEqual({ byState: { queued: 0, sending: 0, sent: 0, failed: 0 }, oldestUndeliveredSeconds: null });
-			const message = (n: number) => ({ to: `gauge-${n}@tests.riparia.test`, subject: 'Gauge', text: 'x', html: '<p>x</p>' });
+			const message = (n: number) => ({ category: 'account' as const, to: `gauge-${n}@tests.riparia.test`, subject: 'Gauge', text: 'x', html: '<p>x</p>' });
 			await enqueue([message(1), message(2), message(3)], { db: scratch.db });
 			const transport = { send: async () => {}, close: () => {} };
 			// One delivered (the batch takes the first), two still waiting.

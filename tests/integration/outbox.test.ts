@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { eq, inArray } from 'drizzle-orm';
 import { startMailFake } from '../../fakes/mail';
-import { deliverDue, enqueue } from '../../src/lib/server/mail/outbox';
+import { deliverDue, enqueue, type QueuedMail } from '../../src/lib/server/mail/outbox';
 import { outbox, outboxAttempts } from '../../src/lib/server/mail/schema';
 import { smtpTransport } from '../../src/lib/server/mail/transport';
 import { freePort } from '../helpers/ports';
@@ -16,7 +16,8 @@ afterAll(async () => {
 	await scratch?.drop();
 });
 
-const mail = (to: string, extra: Partial<Parameters<typeof enqueue>[0] & object> = {}) => ({
+const mail = (to: string, extra: Partial<Omit<QueuedMail, 'category' | 'memberId'>> = {}): QueuedMail => ({
+	category: 'account',
 	to,
 	subject: `Test message to ${to}`,
 	text: 'plain part',

@@ -121,10 +121,7 @@ async function walkBoard(tag: string, units: UnitSystem, lng: number, radii: (Ra
 			locationMode: 'point',
 			homeAreaId: null,
 			homeLat: -56.56 + step * 0.0009,
-			homeLng: lng,
-			notifyMessages: 'off',
-			weeklyDigest: false,
-			announcements: false
+			homeLng: lng
 		});
 		const results = new Map<Radius | null, number[]>();
 		const labels = new Map<number, string>();

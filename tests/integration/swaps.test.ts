@@ -341,9 +341,9 @@ describe('swap requests: accepting one', () => {
 });
 
 describe('swap message mail', () => {
-	test('"each": two messages in quick succession give one mail; what is still unread goes an hour later; read messages are not mailed', async () => {
-		const owner = await memberAt({ lat: -30.2, lng: -5.5 }, 'mail-owner', 'each');
-		const asker = await memberAt({ lat: -30.21, lng: -5.5 }, 'mail-asker', 'hourly');
+	test('"immediately": two messages in quick succession give one mail; what is still unread goes an hour later; read messages are not mailed', async () => {
+		const owner = await memberAt({ lat: -30.2, lng: -5.5 }, 'mail-owner', 'immediately');
+		const asker = await memberAt({ lat: -30.21, lng: -5.5 }, 'mail-asker', 'daily');
 		const id = await createListing(owner, { title: 'Batched stems' });
 		const threadId = await threads.request(viewerOf(asker), id, 'First message');
 		await threads.post(viewerOf(asker), threadId, 'Second message, right after');
@@ -373,14 +373,14 @@ describe('swap message mail', () => {
 		expect(await threads.unreadCount(owner.id)).toBe(0);
 	});
 
-	test('"hourly": one summary for several messages, then nothing more within the hour; "off": never', async () => {
-		const owner = await memberAt({ lat: -30.3, lng: -5.6 }, 'summary-owner', 'hourly');
+	test('"daily": one summary for several messages, then nothing more within the day; "off": never', async () => {
+		const owner = await memberAt({ lat: -30.3, lng: -5.6 }, 'summary-owner', 'daily');
 		const quiet = await memberAt({ lat: -30.31, lng: -5.6 }, 'quiet-owner', 'off');
 		const asker = await memberAt({ lat: -30.32, lng: -5.6 }, 'summary-asker');
-		// As if a summary went half an hour ago: the app's own job (on real time) stays out of the
-		// way, and this test's runs decide when the next one goes.
+		// As if a summary went a day less half an hour ago: the app's own job (on real time) stays
+		// out of the way, and this test's runs decide when the next one goes.
 		const now = new Date();
-		await db.insert(swapMailState).values({ userId: owner.id, summaryMailedAt: new Date(now.getTime() - 30 * 60_000) });
+		await db.insert(swapMailState).values({ userId: owner.id, summaryMailedAt: new Date(now.getTime() - 24 * 60 * 60_000 + 30 * 60_000) });
 		const a = await createListing(owner, { title: 'Summary one' });
 		const b = await createListing(owner, { title: 'Summary two' });
 		const c = await createListing(quiet, { title: 'Never mailed' });

@@ -36,16 +36,7 @@ export const profileSchema = z
 			.optional()
 			.transform((v) => (v ? Number(v) : null)),
 		homeLat: optionalNumber(-90, 90, 'Latitude'),
-		homeLng: optionalNumber(-180, 180, 'Longitude'),
-		notifyMessages: z.enum(['each', 'hourly', 'off']),
-		weeklyDigest: z
-			.string()
-			.optional()
-			.transform((v) => v === 'on'),
-		announcements: z
-			.string()
-			.optional()
-			.transform((v) => v === 'on')
+		homeLng: optionalNumber(-180, 180, 'Longitude')
 	})
 	.superRefine((v, ctx) => {
 		if (v.locationMode === 'area' && !v.homeAreaId) ctx.addIssue({ code: 'custom', path: ['homeAreaId'], message: 'Choose one of the club areas.' });

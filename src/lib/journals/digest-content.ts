@@ -61,6 +61,6 @@ export function digestContent(input: {
 		heading: 'Your tanks this week',
 		paragraphs,
 		action: { label: 'Open your dashboard', url: input.homeUrl },
-		footer: 'You get this weekly digest because you asked for it on your account page.'
+		footer: 'You get this weekly digest because you asked for upkeep reminders in your notification settings.'
 	};
 }

@@ -12,7 +12,7 @@ describe('mail topics in words', () => {
 			['contest:2:nudge', 'Contest reminder to a judge'],
 			['swap-listing:13', 'Swap listing changes'],
 			['swap-thread:4:abc', 'Swap messages'],
-			['swap-summary:abc', 'Swap messages, hourly summaries'],
+			['swap-summary:abc', 'Swap messages, daily summaries'],
 			['tank-follow:9', 'New journal entries for followers'],
 			['journal-digest', 'Weekly journal digests']
 		];

@@ -11,7 +11,7 @@ export interface TopicKind {
 export const TOPIC_KINDS: readonly TopicKind[] = [
 	{ prefix: 'contest:', label: 'Contests' },
 	{ prefix: 'swap-thread:', label: 'Swap messages' },
-	{ prefix: 'swap-summary:', label: 'Swap messages, hourly summaries' },
+	{ prefix: 'swap-summary:', label: 'Swap messages, daily summaries' },
 	{ prefix: 'swap-listing:', label: 'Swap listing changes' },
 	{ prefix: 'tank-follow:', label: 'New journal entries for followers' },
 	{ prefix: 'journal-digest', label: 'Weekly journal digests' }

@@ -25,6 +25,7 @@ const FIELDS: StoredField[] = [
 	{ field: 'listing.description', table: 'listing', source: 'description', render: html('description_html') },
 	{ field: 'contest.rules', table: 'contest', source: 'rules', render: html('rules_html') },
 	{ field: 'away_plan.body', table: 'away_plan', source: 'body', render: html('body_html') },
+	{ field: 'news_post.body', table: 'news_post', source: 'body', render: html('body_html') },
 	{
 		field: 'contest_entry.statement',
 		table: 'contest_entry',

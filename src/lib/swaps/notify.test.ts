@@ -1,8 +1,8 @@
 import { describe, expect, test } from 'vitest';
-import { gapPassed, MAIL_GAP_MS, onMessagePosted, planMails, type NotifySetting, type PendingThread } from './notify';
+import { DIGEST_GAP_MS, gapPassed, MAIL_GAP_MS, onMessagePosted, planMails, type NotifySetting, type PendingThread } from './notify';
 
 // The batching rule is ours (no source): at most one mail per conversation per hour per
-// recipient, and an hourly summary at most once an hour. These tests replay message sequences.
+// recipient, and a daily summary at most once a day. These tests replay message sequences.
 
 const t0 = new Date('2031-06-01T10:00:00Z');
 const at = (minutes: number) => new Date(t0.getTime() + minutes * 60_000);
@@ -46,32 +46,34 @@ describe('message mail batching', () => {
 		expect(gapPassed(at(-60), t0)).toBe(true);
 	});
 
-	test('"each": two messages in quick succession give one mail; the second is mailed an hour later', () => {
-		expect(onMessagePosted('each', null, t0)).toBe('mail-now');
-		expect(onMessagePosted('each', t0, at(1))).toBe('later');
-		expect(replay('each', [0, 1], 5, 50)).toEqual([0]);
-		expect(replay('each', [0, 1], 5, 70)).toEqual([0, 60]);
+	test('"immediately": two messages in quick succession give one mail; the second is mailed an hour later', () => {
+		expect(onMessagePosted('immediately', null, t0)).toBe('mail-now');
+		expect(onMessagePosted('immediately', t0, at(1))).toBe('later');
+		expect(replay('immediately', [0, 1], 5, 50)).toEqual([0]);
+		expect(replay('immediately', [0, 1], 5, 70)).toEqual([0, 60]);
 	});
 
-	test('"each": a busy conversation gets at most one mail an hour', () => {
+	test('"immediately": a busy conversation gets at most one mail an hour', () => {
 		const messages = Array.from({ length: 40 }, (_, i) => i * 7); // every 7 minutes for 4.5 hours
-		const mails = replay('each', messages, 5, 295);
+		const mails = replay('immediately', messages, 5, 295);
 		for (let i = 1; i < mails.length; i++) expect(mails[i]! - mails[i - 1]!).toBeGreaterThanOrEqual(60);
 		expect(mails).toEqual([0, 60, 120, 180, 240]);
 	});
 
-	test('"hourly": no mail at posting time; one summary per hour at most, covering every conversation', () => {
-		expect(onMessagePosted('hourly', null, t0)).toBe('later');
-		expect(replay('hourly', [0, 1, 2], 5, 30)).toEqual([5]);
-		expect(replay('hourly', [0, 1, 30], 5, 70)).toEqual([5, 65]);
+	test('"daily": no mail at posting time; one summary a day at most, covering every conversation', () => {
+		expect(DIGEST_GAP_MS).toBe(86_400_000);
+		expect(onMessagePosted('daily', null, t0)).toBe('later');
+		expect(replay('daily', [0, 1, 2], 5, 30)).toEqual([5]);
+		expect(replay('daily', [0, 1, 30], 5, 70)).toEqual([5]);
+		expect(replay('daily', [0, 1, 30], 5, 24 * 60 + 10)).toEqual([5, 24 * 60 + 5]);
 		const plan = planMails(
-			'hourly',
+			'daily',
 			[
 				{ threadId: 1, messageIds: [10, 11], lastMailAt: null },
 				{ threadId: 2, messageIds: [12], lastMailAt: at(-5) },
 				{ threadId: 3, messageIds: [], lastMailAt: null }
 			],
-			at(-61),
+			at(-24 * 60 - 1),
 			t0
 		);
 		expect(plan).toEqual([
@@ -83,6 +85,7 @@ describe('message mail batching', () => {
 				]
 			}
 		]);
+		expect(planMails('daily', [{ threadId: 1, messageIds: [1], lastMailAt: null }], at(-23 * 60), t0)).toEqual([]);
 	});
 
 	test('"off": never', () => {
@@ -90,9 +93,9 @@ describe('message mail batching', () => {
 		expect(planMails('off', [{ threadId: 1, messageIds: [1], lastMailAt: null }], null, t0)).toEqual([]);
 	});
 
-	test('"each" in the job: only conversations past their gap', () => {
+	test('"immediately" in the job: only conversations past their gap', () => {
 		const plan = planMails(
-			'each',
+			'immediately',
 			[
 				{ threadId: 1, messageIds: [1], lastMailAt: at(-61) },
 				{ threadId: 2, messageIds: [2], lastMailAt: at(-10) },

@@ -22,9 +22,6 @@ export const load = (async (event) => {
 			homeAreaId: row.homeAreaId,
 			homeLat: row.homeLat,
 			homeLng: row.homeLng,
-			notifyMessages: row.notifyMessages,
-			weeklyDigest: row.weeklyDigest,
-			announcements: row.announcements,
 			memberSince: row.createdAt
 		},
 		areas: areaList.map((a) => ({ id: a.id, name: a.name })),

@@ -62,7 +62,7 @@ export async function byName(viewer: Pick<Viewer, 'id'>, prefix: string, context
 	return (await directory.findByName(prefix, 10, context)).filter((m) => m.id !== viewer.id).map((m) => ({ id: m.id, name: m.name, distance: null }));
 }
 
-function requestMail(input: { keeperName: string; tankName: string; startsOn: string; endsOn: string; url: string }) {
+function requestMail(input: { memberId: string; keeperName: string; tankName: string; startsOn: string; endsOn: string; url: string }) {
 	const { html, text } = renderMail({
 		heading: `Could you look in on ${input.tankName}?`,
 		paragraphs: [
@@ -70,12 +70,13 @@ function requestMail(input: { keeperName: string; tankName: string; startsOn: st
 			'The page below has the dates. Say yes or no there; you see the care plan once you say yes.'
 		],
 		action: { label: 'Answer the request', url: input.url },
-		footer: 'You get this because a club member asked you personally. Nothing more is sent unless you say yes.'
+		footer: 'You get this because a club member asked you personally. Nothing more is sent unless you say yes.',
+		to: { memberId: input.memberId, category: 'account' }
 	});
 	return { subject: `Could you look in on ${input.tankName}?`, html, text };
 }
 
-function answerMail(input: { sitterName: string; tankName: string; yes: boolean; url: string }) {
+function answerMail(input: { memberId: string; sitterName: string; tankName: string; yes: boolean; url: string }) {
 	const heading = input.yes ? `${input.sitterName} will look in on ${input.tankName}` : `${input.sitterName} cannot look in on ${input.tankName}`;
 	const { html, text } = renderMail({
 		heading,
@@ -83,7 +84,8 @@ function answerMail(input: { sitterName: string; tankName: string; yes: boolean;
 			? [`${input.sitterName} said yes. They can read the care plan now, until the day you are back.`]
 			: [`${input.sitterName} said no this time. You can ask someone else from the plan's page.`],
 		action: { label: 'Open the care plan', url: input.url },
-		footer: 'You get this because you asked a member to look after your tank.'
+		footer: 'You get this because you asked a member to look after your tank.',
+		to: { memberId: input.memberId, category: 'account' }
 	});
 	return { subject: heading, html, text };
 }
@@ -108,13 +110,24 @@ export async function ask(viewer: Pick<Viewer, 'id'>, planId: number, sitterId: 
 		if (existing) await tx.update(awaySitters).set({ state: 'asked', askedAt: now, answeredAt: null }).where(eq(awaySitters.id, existing.id));
 		else await tx.insert(awaySitters).values({ planId: plan.id, sitterId, state: 'asked', askedAt: now });
 		const mail = requestMail({
+			memberId: sitterId,
 			keeperName: people.get(viewer.id)?.name ?? 'A member',
 			tankName,
 			startsOn: plan.startsOn,
 			endsOn: plan.endsOn,
 			url: absoluteUrl('/away')
 		});
-		await enqueue({ to: sitter.email, ...mail, topic: `away:${plan.id}`, dedupeKey: `away-ask:${plan.id}:${sitterId}:${now.getTime()}` }, { db: tx, now });
+		await enqueue(
+			{
+				to: sitter.email,
+				...mail,
+				category: 'account',
+				memberId: sitterId,
+				topic: `away:${plan.id}`,
+				dedupeKey: `away-ask:${plan.id}:${sitterId}:${now.getTime()}`
+			},
+			{ db: tx, now }
+		);
 	});
 }
 
@@ -147,8 +160,24 @@ export async function answer(viewer: Pick<Viewer, 'id'>, sitterRowId: number, ye
 		const keeper = people.get(plan.keeperId);
 		if (keeper?.email) {
 			const tankName = (await tanks.namesOf([plan.tankId], { db: tx })).get(plan.tankId) ?? 'your tank';
-			const mail = answerMail({ sitterName: people.get(viewer.id)?.name ?? 'A member', tankName, yes, url: absoluteUrl(`/away/${plan.id}`) });
-			await enqueue({ to: keeper.email, ...mail, topic: `away:${plan.id}`, dedupeKey: `away-answer:${row.id}:${now.getTime()}` }, { db: tx, now });
+			const mail = answerMail({
+				memberId: plan.keeperId,
+				sitterName: people.get(viewer.id)?.name ?? 'A member',
+				tankName,
+				yes,
+				url: absoluteUrl(`/away/${plan.id}`)
+			});
+			await enqueue(
+				{
+					to: keeper.email,
+					...mail,
+					category: 'account',
+					memberId: plan.keeperId,
+					topic: `away:${plan.id}`,
+					dedupeKey: `away-answer:${row.id}:${now.getTime()}`
+				},
+				{ db: tx, now }
+			);
 		}
 		return plan.id;
 	});

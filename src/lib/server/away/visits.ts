@@ -33,7 +33,7 @@ export async function tasksOf(viewer: Pick<Viewer, 'id'>, planId: number, contex
 	return (await upkeep.listForTank(plan.tankId, context)).map((t) => ({ id: t.id, label: t.label }));
 }
 
-function visitMail(input: { sitterName: string; tankName: string; day: string; done: string[]; note: string; url: string }) {
+function visitMail(input: { memberId: string; sitterName: string; tankName: string; day: string; done: string[]; note: string; url: string }) {
 	const { html, text } = renderMail({
 		heading: `${input.sitterName} looked in on ${input.tankName}`,
 		paragraphs: [
@@ -42,7 +42,8 @@ function visitMail(input: { sitterName: string; tankName: string; day: string; d
 			...(input.note ? [`Their note: “${input.note}”`] : [])
 		],
 		action: { label: 'See the visit and its photos', url: input.url },
-		footer: 'You get this because you asked a member to look after your tank while you are away.'
+		footer: 'You get this because you asked a member to look after your tank while you are away.',
+		to: { memberId: input.memberId, category: 'account' }
 	});
 	return { subject: `${input.sitterName} looked in on ${input.tankName}`, html, text };
 }
@@ -79,8 +80,19 @@ export async function log(viewer: Pick<Viewer, 'id'>, planId: number, input: Vis
 		const [result] = await tx.insert(awayVisits).values({ planId: plan.id, sitterId: viewer.id, visitedOn: day, entryId, done, note, createdAt: now });
 		const keeper = people.get(plan.keeperId);
 		if (keeper?.email) {
-			const mail = visitMail({ sitterName, tankName, day, done, note, url: absoluteUrl(`/journals/${plan.tankId}/entries/${entryId}`) });
-			await enqueue({ to: keeper.email, ...mail, topic: `away:${plan.id}`, dedupeKey: `away-visit:${result.insertId}` }, inTx);
+			const mail = visitMail({
+				memberId: plan.keeperId,
+				sitterName,
+				tankName,
+				day,
+				done,
+				note,
+				url: absoluteUrl(`/journals/${plan.tankId}/entries/${entryId}`)
+			});
+			await enqueue(
+				{ to: keeper.email, ...mail, category: 'account', memberId: plan.keeperId, topic: `away:${plan.id}`, dedupeKey: `away-visit:${result.insertId}` },
+				inTx
+			);
 		}
 		return result.insertId;
 	});

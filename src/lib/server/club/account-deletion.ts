@@ -15,6 +15,7 @@ import { resolve, within, type Context } from '../context';
 import * as audit from '../audit';
 import * as media from '../media';
 import { enqueue, forgetAddress } from '../mail/outbox';
+import * as preferences from '../mail/preferences';
 import { renderMail } from '../mail/templates';
 import * as journals from '../journals/former-members';
 import * as swaps from '../swaps/former-members';
@@ -76,6 +77,7 @@ async function erase(memberId: string, deletion: Deletion, context: Context): Pr
 
 		const address = member.email ?? '';
 		await forgetAddress(address, inTx);
+		await preferences.forget(memberId, inTx);
 		if (address) await tx.delete(verificationTokens).where(eq(verificationTokens.identifier, address));
 		await tx.delete(sessions).where(eq(sessions.userId, memberId));
 		await tx.delete(accounts).where(eq(accounts.userId, memberId));
@@ -91,9 +93,6 @@ async function erase(memberId: string, deletion: Deletion, context: Context): Pr
 				homeLat: null,
 				homeLng: null,
 				homeAreaId: null,
-				notifyMessages: 'off',
-				weeklyDigest: false,
-				announcements: false,
 				unsubscribeToken: randomUUID().replaceAll('-', ''),
 				lastSeenAt: null,
 				deletedAt: now
@@ -110,7 +109,7 @@ async function erase(memberId: string, deletion: Deletion, context: Context): Pr
 			},
 			inTx
 		);
-		if (address) await enqueue(goodbye(address, deletion), inTx);
+		if (address) await enqueue({ ...goodbye(address, deletion), category: 'account' }, inTx);
 		return keys;
 	});
 	await media.purgeAfterCommit(purge, { what: 'photos of a deleted account' });

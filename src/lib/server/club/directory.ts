@@ -1,8 +1,8 @@
 // What other features may know of members and club areas, read in batches (one query for any
 // number of ids, so a page of cards costs the same as one card): the name others see, where to
-// mail them, their role, whether they take club announcements or the weekly digest, and areas' names. Features never
+// mail them, their role, and areas' names. Features never
 // read the member or area tables themselves.
-import { and, asc, eq, gt, inArray, isNotNull, like, type SQL } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNotNull, like, type SQL } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
 import { nameOf } from '../../club/names';
 import type { Role } from '../../club/roles';
@@ -17,7 +17,6 @@ export interface Member {
 	email: string;
 	role: Role;
 	unsubscribeToken: string;
-	announcements: boolean;
 }
 
 const columns = {
@@ -26,7 +25,6 @@ const columns = {
 	email: users.email,
 	role: users.role,
 	unsubscribeToken: users.unsubscribeToken,
-	announcements: users.announcements,
 	deletedAt: users.deletedAt,
 	state: users.state
 };
@@ -63,9 +61,9 @@ export async function withRole(role: Role, context: Context = {}): Promise<Membe
 	return (await select(and(eq(users.role, role), isNotNull(users.email), active), context)).sort(byName);
 }
 
-/** Everyone with an address who takes club announcements. */
-export async function announcementReaders(context: Context = {}): Promise<Member[]> {
-	return select(and(eq(users.announcements, true), isNotNull(users.email), active), context);
+/** Every active member with an address (a club-wide mailing; the outbox drops those who turned its category off). */
+export async function everyone(context: Context = {}): Promise<Member[]> {
+	return select(and(isNotNull(users.email), active), context);
 }
 
 /** Club areas' names, by id. An id of no area (e.g. one removed since) is not in the map. */
@@ -84,15 +82,15 @@ export interface DigestReader {
 	unsubscribeToken: string;
 }
 
-/** Members who asked for the weekly digest and have an address, in id order after `afterId`, `limit` at a time. */
-export async function weeklyDigestReaders(page: { afterId?: string; limit: number }, context: Context = {}): Promise<DigestReader[]> {
+/** These members, as the weekly digest needs them, in id order; those without an address are left out. */
+export async function digestReaders(ids: string[], context: Context = {}): Promise<DigestReader[]> {
+	if (ids.length === 0) return [];
 	const { db } = resolve(context);
 	const rows = await db
 		.select({ id: users.id, email: users.email, displayName: users.displayName, unsubscribeToken: users.unsubscribeToken })
 		.from(users)
-		.where(and(eq(users.weeklyDigest, true), isNotNull(users.email), active, page.afterId === undefined ? undefined : gt(users.id, page.afterId)))
-		.orderBy(asc(users.id))
-		.limit(page.limit);
+		.where(and(inArray(users.id, ids), isNotNull(users.email), active))
+		.orderBy(asc(users.id));
 	return rows.map((r) => ({ ...r, email: r.email ?? '' }));
 }
 

@@ -79,7 +79,7 @@ export async function invite(admin: Viewer, pasted: string, context: Context = {
 				.insert(invitations)
 				.values({ email, tokenHash: hashOf(token), invitedBy: admin.id, sentAt: now, expiresAt })
 				.$returningId();
-			await enqueue(invitationMail(email, token, club.name, admin.displayName ?? 'An admin', expiresAt), within(context, tx));
+			await enqueue({ ...invitationMail(email, token, club.name, admin.displayName ?? 'An admin', expiresAt), category: 'account' }, within(context, tx));
 			await audit.record(
 				{
 					actorId: admin.id,
@@ -147,7 +147,7 @@ export async function resend(admin: Viewer, id: number, context: Context = {}): 
 			.update(invitations)
 			.set({ tokenHash: hashOf(token), sentAt: now, expiresAt })
 			.where(eq(invitations.id, id));
-		await enqueue(invitationMail(row.email, token, club.name, admin.displayName ?? 'An admin', expiresAt), within(context, tx));
+		await enqueue({ ...invitationMail(row.email, token, club.name, admin.displayName ?? 'An admin', expiresAt), category: 'account' }, within(context, tx));
 		await audit.record(
 			{
 				actorId: admin.id,

@@ -200,6 +200,7 @@ export async function decide(admin: Viewer, requestId: number, decision: 'approv
 			},
 			within(context, tx)
 		);
-		if (person.email) await enqueue(decisionMail(person.email, approved, club.name, message), within(context, tx));
+		if (person.email)
+			await enqueue({ ...decisionMail(person.email, approved, club.name, message), category: 'account', memberId: person.id }, within(context, tx));
 	});
 }

@@ -26,9 +26,7 @@ export const users = mysqlTable(
 		units: mysqlEnum(UNIT_SYSTEMS).notNull().default('metric'),
 		/** IANA name; null until the member chose one or their browser reported its own. */
 		timeZone: varchar({ length: 64 }),
-		notifyMessages: mysqlEnum(['each', 'hourly', 'off']).notNull().default('hourly'),
-		weeklyDigest: boolean().notNull().default(false),
-		announcements: boolean().notNull().default(true),
+		// Which mail the member takes is the mail service's (mail_preference).
 		unsubscribeToken: char({ length: 32 })
 			.notNull()
 			.$defaultFn(() => crypto.randomUUID().replaceAll('-', '')),

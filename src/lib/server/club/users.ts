@@ -61,10 +61,7 @@ export async function saveProfile(viewer: Viewer, input: ProfileInput, context: 
 			...(input.timeZone === undefined ? {} : { timeZone: input.timeZone }),
 			homeAreaId,
 			homeLat: home?.lat ?? null,
-			homeLng: home?.lng ?? null,
-			notifyMessages: input.notifyMessages,
-			weeklyDigest: input.weeklyDigest,
-			announcements: input.announcements
+			homeLng: home?.lng ?? null
 		})
 		.where(eq(users.id, viewer.id));
 }

@@ -1,5 +1,5 @@
-// The results announcement: one mail to every member who takes announcements (with an
-// unsubscribe link and List-Unsubscribe header) and one personal mail to each entrant with their
+// The results announcement: one mail to every member who takes contest results (the "results"
+// mail category; the outbox drops the others) and one personal mail to each entrant with their
 // place and a link to their feedback. Queued through the outbox in one transaction, once per
 // results revision: the dedupe keys make a second click (or a second admin) send nothing twice.
 import { eq } from 'drizzle-orm';
@@ -10,7 +10,7 @@ import * as audit from '../audit';
 import { absoluteUrl } from '../config';
 import { enqueue, type QueuedMail } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
-import { unsubscribeHeaders, unsubscribeUrl } from '../mail/unsubscribe';
+import * as preferences from '../mail/preferences';
 import { deliverySummary, listOutbox } from '../mail/report';
 import { conflict } from '../../errors';
 import { formatPercent, formatPlace } from '../../contests/format';
@@ -41,13 +41,13 @@ export function announcementMail(results: PublicResults, memberId: string) {
 			`Every entry with its photos, scores by criterion and the judges’ comments is on the results page. Judged by ${results.panel.join(', ') || 'the club’s panel'}.`
 		],
 		action: { label: 'See the results', url: resultsUrl(c.id) },
-		footer: 'You get this mail because you take club announcements.',
-		unsubscribeUrl: unsubscribeUrl(memberId, 'announcements')
+		footer: 'You get this mail because you take contest results.',
+		to: { memberId, category: 'results' }
 	});
-	return { subject: `Results: ${c.title}`, html, text, headers: unsubscribeHeaders(memberId, 'announcements') };
+	return { subject: `Results: ${c.title}`, html, text, category: 'results' as const, memberId };
 }
 
-export function entrantMail(results: PublicResults, entry: PublicEntry, name: string) {
+export function entrantMail(results: PublicResults, entry: PublicEntry, name: string, memberId: string) {
 	const c = results.contest;
 	const category = results.categories.find((k) => k.id === entry.categoryId)!;
 	const placed =
@@ -58,9 +58,10 @@ export function entrantMail(results: PublicResults, entry: PublicEntry, name: st
 		heading: `Your result in “${c.title}”`,
 		paragraphs: [`Hello ${name},`, placed, 'Each judge’s scores and comments for your entry are on your feedback page; the results page shows every entry.'],
 		action: { label: 'Read your feedback', url: feedbackUrl(c.id, entry.entryId) },
-		footer: 'You get this mail because you entered this contest.'
+		footer: 'You get this mail because you entered this contest.',
+		to: { memberId, category: 'results' }
 	});
-	return { subject: `Your result in “${c.title}”`, html, text };
+	return { subject: `Your result in “${c.title}”`, html, text, category: 'results' as const, memberId };
 }
 
 export interface AnnouncementPlan {
@@ -74,7 +75,12 @@ export interface AnnouncementPlan {
 async function plan(contestId: number, context: Context): Promise<AnnouncementPlan> {
 	const results = await publicResults(contestId, context);
 	if (!results) throw conflict('not-published', 'The results are not published yet.');
-	const recipients = await directory.announcementReaders(context);
+	const everyone = await directory.everyone(context);
+	const settings = await preferences.ofMembers(
+		everyone.map((m) => m.id),
+		context
+	);
+	const recipients = everyone.filter((m) => settings.get(m.id)!.results === 'on');
 	const entries = results.categories.flatMap((c) => c.entries);
 	const who = await directory.byIds(
 		entries.map((e) => e.entrantId),
@@ -85,7 +91,7 @@ async function plan(contestId: number, context: Context): Promise<AnnouncementPl
 		recipients,
 		entrants: entries.flatMap((entry) => {
 			const person = who.get(entry.entrantId);
-			return person?.email ? [{ entry, person }] : [];
+			return person?.email && settings.get(person.id)?.results === 'on' ? [{ entry, person }] : [];
 		}),
 		revision: results.contest.resultsRevision,
 		announcedRevision: results.contest.announcedRevision
@@ -100,7 +106,7 @@ export async function preview(viewer: Viewer, contestId: number, context: Contex
 	return {
 		// The sample's unsubscribe link is the admin's own: never another member's working link.
 		announcement: announcementMail(p.results, viewer.id),
-		entrantSample: sample ? { name: sample.person.name, ...entrantMail(p.results, sample.entry, sample.person.name) } : null,
+		entrantSample: sample ? { name: sample.person.name, ...entrantMail(p.results, sample.entry, sample.person.name, viewer.id) } : null,
 		recipients: p.recipients.length,
 		entrants: p.entrants.length,
 		revision: p.revision,
@@ -118,7 +124,7 @@ export async function send(viewer: Viewer, contestId: number, context: Context =
 		const mails: QueuedMail[] = [
 			...p.entrants.map(({ entry, person }) => ({
 				to: person.email,
-				...entrantMail(p.results, entry, person.name),
+				...entrantMail(p.results, entry, person.name, person.id),
 				topic: `${topicPrefix(contestId)}entrant`,
 				dedupeKey: `contest:${contestId}:${rev}:entrant:${entry.entryId}`
 			})),

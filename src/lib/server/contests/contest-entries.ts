@@ -249,6 +249,13 @@ export async function photoAudience(viewer: Viewer | null, entryId: number, cont
 	return viewer.id === found.entrantId || isAdminViewer(viewer) ? 'restricted' : null;
 }
 
+/** The members with an entry in a contest (each once), for mail to its entrants. */
+export async function entrantIds(contestId: number, context: Context = {}): Promise<string[]> {
+	const { db } = resolve(context);
+	const rows = await db.selectDistinct({ id: contestEntries.entrantId }).from(contestEntries).where(eq(contestEntries.contestId, contestId));
+	return rows.map((r) => r.id);
+}
+
 /** How many contests each of these members has entered, by member id (for the member directory). */
 export async function contestsEnteredBy(memberIds: readonly string[], context: Context = {}): Promise<Map<string, number>> {
 	if (memberIds.length === 0) return new Map();

@@ -46,7 +46,7 @@ async function openDuties(contestId: number, context: Context = {}): Promise<Map
 	return open;
 }
 
-function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgingClosesOn'>, judgeName: string, open: number, lead: string) {
+function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgingClosesOn'>, judgeId: string, judgeName: string, open: number, lead: string) {
 	const cards = `${open} ${open === 1 ? 'card' : 'cards'}`;
 	const { html, text } = renderMail({
 		heading: `${cards} to finish for “${contest.title}”`,
@@ -56,9 +56,10 @@ function judgeReminderMail(contest: Pick<ContestDetail, 'id' | 'title' | 'judgin
 			'Your drafts are saved as you type; a card counts once you submit it.'
 		],
 		action: { label: 'Go to your cards', url: absoluteUrl(`/judging/${contest.id}`) },
-		footer: 'You get this mail because you are on this contest’s judging panel.'
+		footer: 'You get this mail because you are on this contest’s judging panel.',
+		to: { memberId: judgeId, category: 'judging' }
 	});
-	return { subject: `Judging: ${cards} to finish for “${contest.title}”`, html, text };
+	return { subject: `Judging: ${cards} to finish for “${contest.title}”`, html, text, category: 'judging' as const, memberId: judgeId };
 }
 
 /** The judges of a contest who owe cards, with how many and their address (`only` narrows them). */
@@ -86,15 +87,18 @@ export async function sendDueReminders(context: Context = {}): Promise<number> {
 		const windows = windowsOf(contest);
 		const overdue = overdueAdminReminder(contest.title, contest.state, windows, now);
 		if (overdue) {
-			const { html, text } = renderMail({
-				heading: overdue.subject,
-				paragraphs: [overdue.text, 'Nothing changes by itself: each step is yours to take on the contest’s admin page.'],
-				action: { label: 'Open the contest', url: absoluteUrl(`/admin/contests/${contest.id}`) },
-				footer: 'You get this mail because you are an admin of the club.'
-			});
 			for (const admin of admins) {
+				const { html, text } = renderMail({
+					heading: overdue.subject,
+					paragraphs: [overdue.text, 'Nothing changes by itself: each step is yours to take on the contest’s admin page.'],
+					action: { label: 'Open the contest', url: absoluteUrl(`/admin/contests/${contest.id}`) },
+					footer: 'You get this mail because you are an admin of the club.',
+					to: { memberId: admin.id, category: 'judging' }
+				});
 				mails.push({
 					to: admin.email,
+					category: 'judging',
+					memberId: admin.id,
 					subject: overdue.subject,
 					html,
 					text,
@@ -110,15 +114,14 @@ export async function sendDueReminders(context: Context = {}): Promise<number> {
 				if (!judge?.email || judge.role !== 'judge') continue;
 				mails.push({
 					to: judge.email,
-					...judgeReminderMail(contest, judge.name, open, lead),
+					...judgeReminderMail(contest, judge.id, judge.name, open, lead),
 					topic: `contest:${contest.id}:reminder`,
 					dedupeKey: `contest:${contest.id}:judge-${kind}:${contest.judgingClosesOn}:${judge.id}`
 				});
 			}
 		}
 	}
-	await enqueue(mails, { db, now });
-	return mails.length;
+	return enqueue(mails, { db, now });
 }
 
 /**
@@ -137,15 +140,16 @@ export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: 
 				? [
 						{
 							to: judge.email,
-							...judgeReminderMail(contest, judge.name, open, 'A reminder from the contest admins.'),
+							...judgeReminderMail(contest, judge.id, judge.name, open, 'A reminder from the contest admins.'),
 							topic: `contest:${contestId}:nudge`,
 							dedupeKey: `contest:${contestId}:nudge:${judge.id}:${hour}`
 						}
 					]
 				: []
 		);
-		await enqueue(mails, { db: tx, now });
-		if (mails.length) {
+		// A judge who turned judging reminders off gets none, even from an admin.
+		const queued = await enqueue(mails, { db: tx, now });
+		if (queued) {
 			await audit.record(
 				{
 					actorId: viewer.id,
@@ -156,6 +160,6 @@ export async function remindJudges(viewer: Viewer, contestId: number, judgeIds: 
 				inTx
 			);
 		}
-		return mails.length;
+		return queued;
 	});
 }

@@ -10,3 +10,4 @@ export * from '../journals/schema';
 export * from '../swaps/schema';
 export * from '../contests/schema';
 export * from '../away/schema';
+export * from '../news/schema';

@@ -1,4 +1,6 @@
-// The opt-in weekly digest (users.weekly_digest), queued through the outbox by a periodic job.
+// The opt-in weekly upkeep reminder (the "upkeep" mail category set to weekly), queued through
+// the outbox by a periodic job. It lists the upkeep due on the member's tanks and, unless they
+// turned mail about followed tanks off, the week's entries in tanks they follow.
 // One per member per week: a journal_digest row for (member, Monday) is written in the same
 // transaction as the mail, and the mail's dedupe key says the same, so a second run adds nothing.
 import { and, desc, eq, gte, inArray } from 'drizzle-orm';
@@ -7,7 +9,7 @@ import * as directory from '../club/directory';
 import type { DigestReader } from '../club/directory';
 import { enqueue } from '../mail/outbox';
 import { renderMail } from '../mail/templates';
-import { unsubscribeHeaders, unsubscribeUrl } from '../mail/unsubscribe';
+import * as preferences from '../mail/preferences';
 import { absoluteUrl } from '../config';
 import { digestContent, weekOf, type DigestEntry, type DigestTask } from '../../journals/digest-content';
 import { journalDigests, journalEntries, tankFollows, tanks as tankTable } from './schema';
@@ -22,6 +24,7 @@ export const DIGESTS_PER_RUN = 500;
 /** What one member's digest says this week, or null when there is nothing to tell. */
 export async function contentFor(member: Pick<DigestReader, 'id' | 'displayName'>, context: Context = {}) {
 	const { db, now } = resolve(context);
+	const withFollowed = (await preferences.of(member.id, context)).follows !== 'off';
 	const scheduled = upkeep.dueWithin(await upkeep.scheduleOf(member, context), DIGEST_DAYS_AHEAD);
 	const tasks: DigestTask[] = scheduled.map((s) => ({
 		tankName: s.task.tankName,
@@ -30,14 +33,16 @@ export async function contentFor(member: Pick<DigestReader, 'id' | 'displayName'
 		overdue: s.status.kind === 'overdue'
 	}));
 	const since = new Date(now.getTime() - 7 * 86_400_000);
-	const rows = await db
-		.select({ entry: journalEntries, tank: tankTable })
-		.from(tankFollows)
-		.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
-		.innerJoin(journalEntries, eq(journalEntries.tankId, tankTable.id))
-		.where(and(eq(tankFollows.userId, member.id), gte(journalEntries.createdAt, since)))
-		.orderBy(desc(journalEntries.createdAt))
-		.limit(20);
+	const rows = !withFollowed
+		? []
+		: await db
+				.select({ entry: journalEntries, tank: tankTable })
+				.from(tankFollows)
+				.innerJoin(tankTable, eq(tankTable.id, tankFollows.tankId))
+				.innerJoin(journalEntries, eq(journalEntries.tankId, tankTable.id))
+				.where(and(eq(tankFollows.userId, member.id), gte(journalEntries.createdAt, since)))
+				.orderBy(desc(journalEntries.createdAt))
+				.limit(20);
 	const followed: DigestEntry[] = rows
 		.filter((r) => r.tank.ownerId !== member.id && tanks.canView(member, r.tank))
 		.map((r) => ({ tankName: r.tank.name, title: r.entry.title, entryOn: r.entry.entryOn, url: absoluteUrl(`/journals/${r.tank.id}/entries/${r.entry.id}`) }));
@@ -55,8 +60,11 @@ async function readersDue(week: string, limit: number, context: Context): Promis
 	const due: DigestReader[] = [];
 	let afterId: string | undefined;
 	while (due.length < limit) {
-		const page = await directory.weeklyDigestReaders({ afterId, limit }, context);
-		if (page.length === 0) break;
+		const ids = await preferences.choosing('upkeep', 'weekly', { afterId, limit }, context);
+		if (ids.length === 0) break;
+		afterId = ids.at(-1)!;
+		const page = await directory.digestReaders(ids, context);
+		if (page.length === 0) continue;
 		const considered = new Set(
 			(
 				await db
@@ -74,7 +82,6 @@ async function readersDue(week: string, limit: number, context: Context): Promis
 			).map((r) => r.userId)
 		);
 		due.push(...page.filter((r) => !considered.has(r.id)));
-		afterId = page.at(-1)!.id;
 	}
 	return due.slice(0, limit);
 }
@@ -95,13 +102,12 @@ export async function sendWeeklyDigests(context: Context = {}): Promise<number> 
 				throw error;
 			}
 			if (!content) return false;
-			const unsubscribe = unsubscribeUrl(member.id, 'digest');
 			const { html, text } = renderMail({
 				heading: content.heading,
 				paragraphs: content.paragraphs,
 				action: content.action,
 				footer: content.footer,
-				unsubscribeUrl: unsubscribe
+				to: { memberId: member.id, category: 'upkeep' }
 			});
 			await enqueue(
 				{
@@ -109,7 +115,8 @@ export async function sendWeeklyDigests(context: Context = {}): Promise<number> 
 					subject: content.subject,
 					html,
 					text,
-					headers: unsubscribeHeaders(member.id, 'digest'),
+					category: 'upkeep',
+					memberId: member.id,
 					topic: 'journal-digest',
 					bulk: true,
 					dedupeKey: `journal-digest:${member.id}:${week}`

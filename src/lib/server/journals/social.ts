@@ -94,7 +94,15 @@ export async function standingOf(viewer: Pick<Viewer, 'id'> | null, tankId: numb
 /** The least time between two "new entry" mails to one follower about one tank. */
 export const FOLLOW_MAIL_GAP_MS = 24 * 60 * 60_000;
 
-export function followMail(input: { tankName: string; ownerName: string; entryTitle: string; entryOn: string; entryUrl: string; tankUrl: string }) {
+export function followMail(input: {
+	memberId: string;
+	tankName: string;
+	ownerName: string;
+	entryTitle: string;
+	entryOn: string;
+	entryUrl: string;
+	tankUrl: string;
+}) {
 	const title = input.entryTitle || `Entry of ${formatDate(input.entryOn)}`;
 	const { html, text } = renderMail({
 		heading: `New in ${input.tankName}`,
@@ -103,7 +111,8 @@ export function followMail(input: { tankName: string; ownerName: string; entryTi
 			'You hear from us at most once a day about this tank, however often it is written in.'
 		],
 		action: { label: 'Read the entry', url: input.entryUrl },
-		footer: `You get this because you follow ${input.tankName}. To stop, open ${input.tankUrl} and choose “Stop following”.`
+		footer: `You get this because you follow ${input.tankName}. To stop, open ${input.tankUrl} and choose “Stop following”.`,
+		to: { memberId: input.memberId, category: 'follows' }
 	});
 	return { subject: `New in ${input.tankName}: ${title}`.slice(0, 200), html, text };
 }
@@ -139,6 +148,7 @@ export async function notifyFollowers(tank: TankRow, entry: { id: number; title:
 			);
 		if (claimed.affectedRows !== 1) continue;
 		const mail = followMail({
+			memberId: userId,
 			tankName: tank.name,
 			ownerName: people.get(tank.ownerId)?.name ?? UNNAMED_MEMBER,
 			entryTitle: entry.title,
@@ -150,6 +160,8 @@ export async function notifyFollowers(tank: TankRow, entry: { id: number; title:
 			{
 				to: email,
 				...mail,
+				category: 'follows',
+				memberId: userId,
 				topic: `tank-follow:${tank.id}`,
 				dedupeKey: `tank-follow:${tank.id}:${userId}:${today('UTC', now)}`
 			},

@@ -7,12 +7,21 @@ import { recordHeartbeat } from '../jobs/runner';
 import { component, reason as reasonOf } from '../ops/log';
 import { outboxDeliveries } from '../ops/metrics';
 import { maskAddress, maskAddresses } from '../../ops/mask';
+import { takes, type MailCategory, type OptionalCategory } from '../../mail/categories';
 import { OUTBOX_STATES, outbox, outboxAttempts, type OutboxState } from './schema';
 import { defaultTransport, type MailTransport } from './transport';
+import * as preferences from './preferences';
+import { unsubscribeHeaders, unsubscribeUrl } from './unsubscribe';
 
 const log = component('outbox');
 
-export interface QueuedMail {
+/**
+ * Every mail names its category. Mail about the member's own account may go to an address alone;
+ * mail of any other category names the member, whose settings decide at enqueue whether it goes.
+ */
+type Recipient = { category: 'account'; memberId?: string } | { category: OptionalCategory; memberId: string };
+
+export type QueuedMail = Recipient & {
 	to: string;
 	subject: string;
 	text: string;
@@ -25,7 +34,7 @@ export interface QueuedMail {
 	notBefore?: Date;
 	/** Mail to many members at once (announcements, digests): it waits behind one person's mail. */
 	bulk?: boolean;
-}
+};
 
 const PRIORITY_PERSONAL = 5;
 const PRIORITY_BULK = 9;
@@ -45,33 +54,54 @@ function messageIdFor(domainFrom: string) {
 	return `<${crypto.randomUUID()}@${domain}>`;
 }
 
+/** Rows per INSERT statement: a club-wide mailing is a few multi-row statements, each well under max_allowed_packet. */
+const INSERT_CHUNK = 500;
+
 /**
  * Queues mail inside the caller's transaction (`{ db: tx }`), so the mail exists exactly when the
- * change that caused it commits.
+ * change that caused it commits. A mail in a category its member turned off is dropped here; one
+ * the member may turn off must carry its unsubscribe link (renderMail's `to`), and gets the
+ * List-Unsubscribe headers. Answers how many were queued (before dedupe keys drop repeats).
  */
-export async function enqueue(mails: QueuedMail | QueuedMail[], context: Context = {}): Promise<void> {
+export async function enqueue(mails: QueuedMail | QueuedMail[], context: Context = {}): Promise<number> {
 	const list = Array.isArray(mails) ? mails : [mails];
-	if (list.length === 0) return;
+	if (list.length === 0) return 0;
 	const { db, now } = resolve(context);
 	const from = config().MAIL_FROM;
-	await db
-		.insert(outbox)
-		.values(
-			list.map((m) => ({
-				toAddress: m.to,
-				subject: m.subject,
-				textBody: m.text,
-				htmlBody: m.html,
-				headers: m.headers ?? null,
-				topic: m.topic ?? null,
-				dedupeKey: m.dedupeKey ?? null,
-				priority: m.bulk ? PRIORITY_BULK : PRIORITY_PERSONAL,
-				messageId: messageIdFor(from),
-				nextAttemptAt: m.notBefore ?? now
-			}))
-		)
-		// A repeated dedupe key keeps the first message untouched.
-		.onDuplicateKeyUpdate({ set: { id: sql`id` } });
+	const optional = list.flatMap((m) => (m.category === 'account' ? [] : [m.memberId]));
+	const settings = await preferences.ofMembers(optional, context);
+	const kept = list.filter((m) => m.category === 'account' || takes(settings.get(m.memberId)!, m.category));
+	if (kept.length === 0) return 0;
+	const rows = kept.map((m) => {
+		let headers = m.headers ?? null;
+		if (m.category !== 'account') {
+			// A programming error, not a member's: every mail a member can turn off says how, in its footer.
+			if (!m.text.includes(unsubscribeUrl(m.memberId, m.category)))
+				throw new Error(`A "${m.category}" mail must be rendered with its recipient (renderMail's "to").`);
+			headers = { ...headers, ...unsubscribeHeaders(m.memberId, m.category) };
+		}
+		return {
+			toAddress: m.to,
+			subject: m.subject,
+			textBody: m.text,
+			htmlBody: m.html,
+			headers,
+			category: m.category as MailCategory,
+			topic: m.topic ?? null,
+			dedupeKey: m.dedupeKey ?? null,
+			priority: m.bulk ? PRIORITY_BULK : PRIORITY_PERSONAL,
+			messageId: messageIdFor(from),
+			nextAttemptAt: m.notBefore ?? now
+		};
+	});
+	for (let i = 0; i < rows.length; i += INSERT_CHUNK) {
+		await db
+			.insert(outbox)
+			.values(rows.slice(i, i + INSERT_CHUNK))
+			// A repeated dedupe key keeps the first message untouched.
+			.onDuplicateKeyUpdate({ set: { id: sql`id` } });
+	}
+	return rows.length;
 }
 
 /**

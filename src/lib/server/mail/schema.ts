@@ -1,5 +1,7 @@
 import { index, int, json, mediumtext, mysqlEnum, tinyint, mysqlTable, boolean, text, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
+import { users } from '../club/schema';
+import { CHOICES, DEFAULT_PREFERENCES, type MailCategory } from '../../mail/categories';
 
 export const OUTBOX_STATES = ['queued', 'sending', 'sent', 'failed'] as const;
 export type OutboxState = (typeof OUTBOX_STATES)[number];
@@ -17,6 +19,8 @@ export const outbox = mysqlTable(
 		textBody: mediumtext().notNull(),
 		htmlBody: mediumtext().notNull(),
 		headers: json().$type<Record<string, string>>(),
+		/** Which of the member's settings it falls under ($lib/mail/categories); "account" is always sent. */
+		category: varchar({ length: 16 }).$type<MailCategory>().notNull().default('account'),
 		/** What the message is about, e.g. "swap-thread:42"; lets features batch and report delivery. */
 		topic: varchar({ length: 120 }),
 		/** Set when one logical message must be queued at most once (e.g. a results mail per entrant). */
@@ -50,3 +54,21 @@ export const outboxAttempts = mysqlTable(
 	},
 	(t) => [index('outbox_attempt_outbox_idx').on(t.outboxId)]
 );
+
+/**
+ * Which mail a member takes, one column per category of $lib/mail/categories. A member without a
+ * row has the defaults; the row is written on the first change.
+ */
+export const mailPreferences = mysqlTable('mail_preference', {
+	userId: varchar({ length: 255 })
+		.primaryKey()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	swaps: mysqlEnum(CHOICES.swaps).notNull().default(DEFAULT_PREFERENCES.swaps),
+	comments: mysqlEnum(CHOICES.comments).notNull().default(DEFAULT_PREFERENCES.comments),
+	follows: mysqlEnum(CHOICES.follows).notNull().default(DEFAULT_PREFERENCES.follows),
+	upkeep: mysqlEnum(CHOICES.upkeep).notNull().default(DEFAULT_PREFERENCES.upkeep),
+	news: mysqlEnum(CHOICES.news).notNull().default(DEFAULT_PREFERENCES.news),
+	results: mysqlEnum(CHOICES.results).notNull().default(DEFAULT_PREFERENCES.results),
+	judging: mysqlEnum(CHOICES.judging).notNull().default(DEFAULT_PREFERENCES.judging),
+	updatedAt: at()
+});

@@ -1,5 +1,5 @@
 // What members are told when a listing changes: a note from the site in their conversation, and a
-// mail at once (unless they turned swap mail off). Both are written in the caller's transaction.
+// mail at once (unless they turned swap mail off; the outbox drops it then). Both are written in the caller's transaction.
 import { asc, eq } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
 import { conversationStatus } from '../../swaps/conversation';
@@ -24,7 +24,8 @@ export async function tell(
 ): Promise<void> {
 	await queueNotice(
 		userId,
-		(email) => noticeMail(email, { kind, threadId: o.threadId, listingId: o.listing.id, title: o.listing.title, actorName: o.actorName, reason: o.reason }),
+		(email) =>
+			noticeMail(email, userId, { kind, threadId: o.threadId, listingId: o.listing.id, title: o.listing.title, actorName: o.actorName, reason: o.reason }),
 		context
 	);
 }

@@ -1,14 +1,11 @@
-// The words of the swap board's mail. Notification mail ends with where to change how often it
-// comes (these are not announcements, so they carry no unsubscribe link of their own).
+// The words of the swap board's mail, all in the "swaps" mail category: the footer links the
+// member's notification settings and the one-click "no more swap mail".
 import { absoluteUrl } from '../config';
 import { renderMail } from '../mail/templates';
 import type { QueuedMail } from '../mail/outbox';
 
-const SETTINGS_FOOTER = 'You get this because of your swap message settings. Change how often Riparia mails you on your account page: ';
-
-function footer() {
-	return SETTINGS_FOOTER + absoluteUrl('/account');
-}
+const FOOTER = 'You get this because of your swap message settings.';
+const swapsFor = (memberId: string) => ({ memberId, category: 'swaps' as const });
 
 const clip = (text: string, max = 300) => (text.length > max ? text.slice(0, max - 1).trimEnd() + '…' : text);
 const quoted = (title: string) => `“${title}”`;
@@ -30,10 +27,12 @@ export function threadMail(to: string, o: { threadId: number; recipientId: strin
 			'Reply on Riparia, not to this mail. Keep your home address to yourself until you are comfortable; a public place is best for a pickup.'
 		],
 		action: { label: 'Open the conversation', url: absoluteUrl(`/swaps/threads/${o.threadId}`) },
-		footer: footer()
+		footer: FOOTER,
+		to: swapsFor(o.recipientId)
 	});
 	return {
 		to,
+		...swapsFor(o.recipientId),
 		subject: count === 1 ? `New message about ${quoted(o.title)}` : `${count} new messages about ${quoted(o.title)}`,
 		html,
 		text,
@@ -41,7 +40,7 @@ export function threadMail(to: string, o: { threadId: number; recipientId: strin
 	};
 }
 
-/** The hourly summary of every conversation with news. */
+/** The daily summary of every conversation with news. */
 export function summaryMail(
 	to: string,
 	o: { recipientId: string; threads: { threadId: number; title: string; otherName: string; count: number }[] }
@@ -54,9 +53,17 @@ export function summaryMail(
 			'Reply on Riparia, not to this mail.'
 		],
 		action: { label: 'Open My swaps', url: absoluteUrl('/swaps/mine') },
-		footer: footer()
+		footer: FOOTER,
+		to: swapsFor(o.recipientId)
 	});
-	return { to, subject: `${total} new swap message${total === 1 ? '' : 's'} on Riparia`, html, text, topic: `swap-summary:${o.recipientId}` };
+	return {
+		to,
+		...swapsFor(o.recipientId),
+		subject: `${total} new swap message${total === 1 ? '' : 's'} on Riparia`,
+		html,
+		text,
+		topic: `swap-summary:${o.recipientId}`
+	};
 }
 
 /** Changes of a listing that the other member should hear about at once. */
@@ -64,6 +71,7 @@ export type NoticeKind = 'accepted' | 'not-chosen' | 'released' | 'withdrawn' | 
 
 export function noticeMail(
 	to: string,
+	memberId: string,
 	o: { kind: NoticeKind; threadId: number | null; listingId: number; title: string; actorName: string; reason?: string }
 ): QueuedMail {
 	const t = quoted(o.title);
@@ -116,7 +124,8 @@ export function noticeMail(
 		heading: w.heading,
 		paragraphs: w.paragraphs,
 		action: { label: o.threadId ? 'Open the conversation' : 'Open the listing', url },
-		footer: footer()
+		footer: FOOTER,
+		to: swapsFor(memberId)
 	});
-	return { to, subject: w.subject, html, text, topic: `swap-listing:${o.listingId}` };
+	return { to, ...swapsFor(memberId), subject: w.subject, html, text, topic: `swap-listing:${o.listingId}` };
 }

@@ -1,5 +1,6 @@
 // Mail about swap conversations, batched as $lib/swaps/notify decides: at most one mail per
-// conversation an hour for "each", one summary an hour for "hourly", none for "off". A message
+// conversation an hour for "immediately", one summary a day for "daily", none for "off" (the
+// member's "swaps" mail setting, mail/preferences.ts). A message
 // is mailed at once when its conversation's hour is free; otherwise the periodic job below sends
 // what is still unread once the hour has passed. Everything is queued through the outbox inside
 // the transaction that causes it, for delivery straight away (`now` only decides the batching).
@@ -8,6 +9,7 @@ import { resolve, type Context } from '../context';
 import * as users from '../club/users';
 import * as directory from '../club/directory';
 import { enqueue, type QueuedMail } from '../mail/outbox';
+import * as preferences from '../mail/preferences';
 import { nameOf } from '../../club/names';
 import { SITE_SENDER } from '../../swaps/conversation';
 import { onMessagePosted, planMails, type NotifySetting, type PendingThread } from '../../swaps/notify';
@@ -29,7 +31,7 @@ export async function afterPost(
 	const recipient = await users.getById(message.recipientId, { db: tx });
 	if (!recipient?.email) return;
 	const side = sideOf(thread, message.recipientId);
-	const decision = onMessagePosted(recipient.notifyMessages as NotifySetting, thread[side], now);
+	const decision = onMessagePosted((await preferences.of(message.recipientId, { db: tx })).swaps, thread[side], now);
 	if (decision === 'later') return;
 	if (decision === 'mail-now') {
 		const [listing] = await tx.select({ title: listings.title }).from(listings).where(eq(listings.id, thread.listingId));
@@ -52,11 +54,11 @@ export async function afterPost(
 	await tx.update(swapMessages).set({ notifiedAt: now }).where(eq(swapMessages.id, message.id));
 }
 
-/** A change the member hears about at once (accepted, withdrawn…), unless they turned swap mail off. */
+/** A change the member hears about at once (accepted, withdrawn…), unless they turned swap mail off (the outbox drops it then). */
 export async function queueNotice(userId: string, build: (email: string) => QueuedMail, context: Context = {}): Promise<void> {
 	const { db } = resolve(context);
 	const recipient = await users.getById(userId, { db });
-	if (!recipient?.email || recipient.notifyMessages === 'off') return;
+	if (!recipient?.email) return;
 	await enqueue(build(recipient.email), { db });
 }
 
@@ -87,7 +89,7 @@ export async function sendDue(context: Context = {}): Promise<number> {
 			// Locked, so a message posted meanwhile sees this run's mail times.
 			const threads = await tx.select().from(swapThreads).where(inArray(swapThreads.id, threadIds)).for('update');
 			const byId = new Map(threads.map((t) => [t.id, t]));
-			const setting = recipient.notifyMessages as NotifySetting;
+			const setting: NotifySetting = (await preferences.of(recipientId, { db: tx })).swaps;
 			const allIds = [...threadMessages.values()].flat();
 			if (setting === 'off' || !recipient.email) {
 				await tx.update(swapMessages).set({ notifiedAt: now }).where(inArray(swapMessages.id, allIds));

@@ -215,7 +215,7 @@ export const swapSettings = mysqlTable('swap_setting', {
 	value: json().$type<unknown>().notNull()
 });
 
-/** When a member on hourly summaries last got one. */
+/** When a member on daily summaries last got one. */
 export const swapMailState = mysqlTable('swap_mail_state', {
 	userId: varchar({ length: 255 })
 		.primaryKey()

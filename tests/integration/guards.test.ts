@@ -10,6 +10,8 @@ import { tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
+import * as water from '../../src/lib/server/journals/water';
+import { emptyTest } from '../helpers/tanks';
 import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 import * as plans from '../../src/lib/server/away/plans';
@@ -49,6 +51,8 @@ let targetTank: number;
 let targetEntry: number;
 let targetTask: number;
 let targetComment: number;
+/** A water test of that tank. */
+let targetWaterTest: number;
 const apiSignedIn = (status: number) => ({ anonymous: 401, member: status, judge: status, admin: status });
 const notOwner = { anonymous: 303, member: 404, judge: 404, admin: 404 };
 const hidden = { anonymous: 404, member: 404, judge: 404, admin: 404 };
@@ -149,11 +153,26 @@ const rows: Row[] = [
 		form: () => ({ commentId: String(targetComment) }),
 		expect: { anonymous: 303, member: 404, judge: 404, admin: 200 }
 	},
+	// Anyone who may see the entry may answer a comment; only its author may change it (admins too get "not found").
+	{
+		method: 'POST',
+		path: '/journals/:tank/entries/:entry?/reply',
+		form: () => ({ commentId: String(targetComment), reply: 'Agreed.' }),
+		expect: signedIn(200)
+	},
+	{
+		method: 'POST',
+		path: '/journals/:tank/entries/:entry?/editComment',
+		form: () => ({ commentId: String(targetComment), body: 'Taken over' }),
+		expect: notOwner
+	},
 	{ method: 'POST', path: '/journals/:tank/entries/:entry?/delete', form: () => ({}), expect: notOwner },
 	{ path: '/journals/:tank/entries/:entry/edit', expect: notOwner },
 	{ method: 'POST', path: '/journals/:tank/entries/:entry/edit', form: () => ({ entryOn: '2026-02-01', body: 'Taken over' }), expect: notOwner },
 	{ path: '/journals/:tank/water-tests/new', expect: notOwner },
 	{ method: 'POST', path: '/journals/:tank/water-tests/new', form: () => ({ testedOn: '2026-02-01', ph: '7' }), expect: notOwner },
+	{ path: '/journals/:tank/water-tests/:waterTest/edit', expect: notOwner },
+	{ method: 'POST', path: '/journals/:tank/water-tests/:waterTest/edit', form: () => ({ testedOn: '2026-02-01', ph: '9' }), expect: notOwner },
 	{ path: '/journals/:tank/schedule', expect: notOwner },
 	{
 		method: 'POST',
@@ -283,6 +302,7 @@ beforeAll(async () => {
 	await upkeep.saveSchedule(keeper, targetTank, [{ kind: 'water-change', filterPart: null, label: 'Water change', intervalDays: 7 }]);
 	targetTask = (await upkeep.listForTank(targetTank))[0]!.id;
 	targetComment = await entries.addComment(keeper, targetTank, targetEntry, 'Keeper’s own note.');
+	targetWaterTest = await water.create(keeper, targetTank, { ...emptyTest, testedOn: '2026-02-01', ph: 7 });
 	await placePerson(target, { lat: -50.5, lng: -30.5 });
 	targetListing = await createListing(target, { title: 'Guard listing' });
 	const asker = await makePerson({ label: 'guard-asker' });
@@ -310,6 +330,7 @@ beforeAll(async () => {
 const pathOf = (row: Row) =>
 	row.path
 		.replaceAll(':tank', String(targetTank))
+		.replaceAll(':waterTest', String(targetWaterTest))
 		.replaceAll(':contestEntry', String(contest.entries[0]!.entryId))
 		.replaceAll(':entry', String(targetEntry))
 		.replaceAll(':listing', String(targetListing))

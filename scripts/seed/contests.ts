@@ -212,6 +212,8 @@ function tankInput(name: string, shape: Shape, setUpOn: string, visibility: Tank
 		co2Method: shape.l >= 60 ? 'pressurised' : 'none',
 		co2BubblesPerSecond: shape.l >= 60 ? 1.5 : null,
 		waterLitres: null,
+		parAtSubstrate: null,
+		parDepthCm: null,
 		description,
 		visibility,
 		lights: [{ label: 'LED bar', watts: Math.round(shape.l * 0.5), hoursPerDay: 7 }],

@@ -154,7 +154,7 @@ const LISTINGS: Demo[] = [
 		category: 'plants',
 		title: 'Sagittaria runners for a foreground',
 		speciesName: 'Sagittaria subulata',
-		quantity: { amount: 2, unit: 'portions' },
+		quantity: { amount: 6, unit: 'plants' },
 		daysAgo: 5,
 		daysLeft: 9
 	},
@@ -193,7 +193,7 @@ const LISTINGS: Demo[] = [
 		category: 'plants',
 		title: 'Hornwort, as much as you like',
 		speciesName: 'Ceratophyllum demersum',
-		quantity: { amount: 5, unit: 'portions' },
+		quantity: { amount: 20, unit: 'stems' },
 		daysAgo: 0,
 		daysLeft: 7
 	}

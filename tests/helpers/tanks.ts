@@ -1,4 +1,5 @@
 import type { TankInput } from '../../src/lib/journals/tank-input';
+import type { WaterTestInput } from '../../src/lib/journals/water-tests';
 
 /** A small, valid tank profile in metric, for tests that need a tank to exist. */
 export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
@@ -21,6 +22,8 @@ export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
 		co2Method: 'none',
 		co2BubblesPerSecond: null,
 		waterLitres: null,
+		parAtSubstrate: null,
+		parDepthCm: null,
 		description: '',
 		visibility: 'club',
 		lights: [{ label: 'LED bar', watts: 30, hoursPerDay: 7 }],
@@ -31,3 +34,21 @@ export function tankInput(overrides: Partial<TankInput> = {}): TankInput {
 		...overrides
 	};
 }
+
+/** A water test with no readings yet; spread it and set the ones a test needs. */
+export const emptyTest: WaterTestInput = {
+	testedOn: '2026-02-01',
+	ph: null,
+	kh: null,
+	gh: null,
+	no3: null,
+	po4: null,
+	k: null,
+	fe: null,
+	ammonia: null,
+	ammoniaBasis: 'NH3',
+	no2: null,
+	temperatureC: null,
+	tds: null,
+	note: ''
+};

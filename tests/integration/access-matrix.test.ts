@@ -17,10 +17,11 @@ import { request } from '../helpers/http';
 import { describeOperation, discoverOperations, operationFor, operationKey, type Operation } from '../helpers/routes';
 import type { Role } from '../../src/lib/club/roles';
 import * as restricted from '../../src/lib/server/swaps/restricted';
-import { tankInput } from '../helpers/tanks';
+import { emptyTest, tankInput } from '../helpers/tanks';
 import * as tanks from '../../src/lib/server/journals/tanks';
 import * as entries from '../../src/lib/server/journals/journal-entries';
 import * as upkeep from '../../src/lib/server/journals/upkeep';
+import * as water from '../../src/lib/server/journals/water';
 import * as threads from '../../src/lib/server/swaps/threads';
 import { createListing, placePerson, viewerOf } from '../helpers/swaps';
 import * as judging from '../../src/lib/server/contests/judging';
@@ -114,6 +115,8 @@ let targetEntry: number;
 let targetTask: number;
 let targetComment: number;
 let ownerComment: number;
+/** A water test of the owner's tank. */
+let targetWaterTest: number;
 /** A private tank of the owner's, an entry of it and a photo on that entry. */
 let privateTank: number;
 let privateEntry: number;
@@ -255,6 +258,19 @@ const rows: Row[] = [
 	{ path: '/journals/:privateTank/entries/:privateEntry', expect: hidden(200) },
 	{ method: 'POST', path: '/journals/:tank/entries/:entry?/comment', form: () => ({ comment: 'Looks good.' }), expect: signedIn(200) },
 	{ method: 'POST', path: '/journals/:privateTank/entries/:privateEntry?/comment', form: () => ({ comment: 'Looks good.' }), expect: ownerOnly(200) },
+	// Anyone who may see the entry answers a comment; only its author (the owner here) changes it, admins included get "not found".
+	{
+		method: 'POST',
+		path: '/journals/:tank/entries/:entry?/reply',
+		form: () => ({ commentId: String(targetComment), reply: 'Agreed.' }),
+		expect: signedIn(200)
+	},
+	{
+		method: 'POST',
+		path: '/journals/:tank/entries/:entry?/editComment',
+		form: () => ({ commentId: String(targetComment), body: 'Changed' }),
+		expect: ownerOnly(200)
+	},
 	// Admins remove anyone's comment, the keeper any on their entries (the owner takes another one).
 	{
 		method: 'POST',
@@ -271,6 +287,14 @@ const rows: Row[] = [
 		redirect: { owner: /^\/journals\/\d+\/entries\/\d+/ }
 	},
 	{ path: '/journals/:tank/water-tests/new', expect: ownerOnly(200) },
+	{ path: '/journals/:tank/water-tests/:waterTest/edit', expect: ownerOnly(200) },
+	{
+		method: 'POST',
+		path: '/journals/:tank/water-tests/:waterTest/edit',
+		form: () => ({ testedOn: '2026-02-01', ph: '7.2' }),
+		expect: ownerOnly(303),
+		redirect: { owner: /^\/journals\/\d+\?testEdited=1/ }
+	},
 	{
 		method: 'POST',
 		path: '/journals/:tank/water-tests/new',
@@ -492,6 +516,7 @@ beforeAll(async () => {
 	targetTask = (await upkeep.listForTank(targetTank))[0]!.id;
 	targetComment = await entries.addComment(keeper, targetTank, targetEntry, 'Keeper’s own note.');
 	ownerComment = await entries.addComment(keeper, targetTank, targetEntry, 'Keeper’s second note.');
+	targetWaterTest = await water.create(keeper, targetTank, { ...emptyTest, testedOn: '2026-02-01', ph: 7 });
 	privateTank = await tanks.create(keeper, tankInput({ name: 'Private guard tank', visibility: 'private' }));
 	const entryPhoto = await photoOf(owner);
 	privateEntry = await entries.create(keeper, privateTank, { entryOn: '2026-02-01', title: 'Private entry', body: 'Quiet.', events: [] }, [
@@ -535,6 +560,7 @@ const pathOf = (row: Row) =>
 		.replaceAll(':privateEntry', String(privateEntry))
 		.replaceAll(':privatePhoto', String(privatePhoto))
 		.replaceAll(':tank', String(targetTank))
+		.replaceAll(':waterTest', String(targetWaterTest))
 		.replaceAll(':contestEntry', String(contest.entries[0]!.entryId))
 		.replaceAll(':entry', String(targetEntry))
 		.replaceAll(':listing', String(targetListing))

@@ -93,6 +93,48 @@ describe('who may see a tank and its photos', () => {
 });
 
 describe('the tank form', () => {
+	test('a measured PAR at the substrate with its depth: stored metric, shown beside watts per litre; refused without a depth', async () => {
+		const us = await makePerson({ label: 'tank-par' });
+		await db.update(users).set({ units: 'us' }).where(eq(users.id, us.id));
+		const form = {
+			name: 'Lit tank',
+			visibility: 'club',
+			length: '24',
+			width: '12',
+			height: '16',
+			co2Method: 'none',
+			'lights[0][id]': '',
+			'lights[0][label]': 'Bar',
+			'lights[0][watts]': '24',
+			'lights[0][hours]': '7',
+			par: '85',
+			parDepth: ''
+		};
+		const refused = await request('/journals/new', { cookie: us.cookie, form });
+		expect(refused.status).toBe(400);
+		const html = await refused.text();
+		expect(html).toContain('Give the depth under the water surface the reading was taken at.');
+		expect(html).toMatch(/id="par"[^>]*value="85"/);
+		const tooDeep = await request('/journals/new', { cookie: us.cookie, form: { ...form, parDepth: '20' } });
+		expect(tooDeep.status).toBe(400);
+		const created = await request('/journals/new', { cookie: us.cookie, form: { ...form, parDepth: '15' } });
+		expect(created.status).toBe(303);
+		const id = Number(created.headers.get('location')!.split('/').pop());
+		const [row] = await db.select().from(tankTable).where(eq(tankTable.id, id));
+		// 15 in × 2.54 = 38.1 cm exactly (international inch).
+		expect(row).toMatchObject({ parAtSubstrate: 85, parDepthCm: 38.1 });
+		const page = await (await request(`/journals/${id}`, { cookie: us.cookie })).text();
+		const light = /data-testid="tank-light"[\s\S]*?<\/dd>/.exec(page)![0];
+		expect(light).toMatch(/W per US gal/);
+		expect(light).toContain('PAR at the substrate: 85 µmol·m⁻²·s⁻¹ at 15 in deep · high light');
+		const metricPage = await (await request(`/journals/${id}`, { cookie: (await makePerson({ label: 'par-reader' })).cookie })).text();
+		expect(metricPage).toContain('85 µmol·m⁻²·s⁻¹ at 38.1 cm deep');
+		// Clearing both removes the reading.
+		expect((await request(`/journals/${id}/edit`, { cookie: us.cookie, form: { ...form, par: '', parDepth: '' } })).status).toBe(303);
+		const [cleared] = await db.select().from(tankTable).where(eq(tankTable.id, id));
+		expect(cleared).toMatchObject({ parAtSubstrate: null, parDepthCm: null });
+	});
+
 	test('a US member’s inches, gallons and rows are stored metric; errors keep what was typed', async () => {
 		const us = await makePerson({ label: 'tank-us' });
 		await db.update(users).set({ units: 'us' }).where(eq(users.id, us.id));

@@ -78,6 +78,36 @@ describe('parseTankDraft', () => {
 		});
 	});
 
+	test('a measured PAR: a whole-number reading with the depth it was taken at, in the member’s length unit (15 in = 38.1 cm, NIST Handbook 44)', () => {
+		expect(parseTankDraft(draft({ par: '95', parDepth: '32' }), 'metric', today)).toMatchObject({ ok: true, input: { parAtSubstrate: 95, parDepthCm: 32 } });
+		expect(parseTankDraft(draft({ height: '16', par: '60', parDepth: '15' }), 'us', today)).toMatchObject({
+			ok: true,
+			input: { parAtSubstrate: 60, parDepthCm: 38.1 }
+		});
+		expect(parseTankDraft(draft(), 'metric', today)).toMatchObject({ ok: true, input: { parAtSubstrate: null, parDepthCm: null } });
+		const refused = (overrides: Partial<TankDraft>) => {
+			const result = parseTankDraft(draft(overrides), 'metric', today);
+			return result.ok ? {} : result.errors;
+		};
+		expect(refused({ par: '95.5', parDepth: '30' }).par).toMatch(/whole number from 1 to 2,500/);
+		expect(refused({ par: '0', parDepth: '30' }).par).toMatch(/whole number/);
+		expect(refused({ par: '3000', parDepth: '30' }).par).toMatch(/whole number/);
+		expect(refused({ par: '95' }).parDepth).toBe('Give the depth under the water surface the reading was taken at.');
+		expect(refused({ parDepth: '30' }).par).toBe('Enter the reading, or leave the depth empty too.');
+		// The tank is 36 cm tall.
+		expect(refused({ par: '95', parDepth: '40' }).parDepth).toMatch(/deeper than the tank is tall/);
+		expect(refused({ par: '95', parDepth: '0' }).parDepth).toBe('Enter a depth greater than zero.');
+	});
+
+	test('the edit form shows a stored PAR and its depth in the member’s unit', () => {
+		const stored = parseTankDraft(draft({ par: '95', parDepth: '30.5' }), 'metric', today);
+		if (!stored.ok) throw new Error('expected a valid draft');
+		const profile = { ...stored.input, description: null, lights: [], filters: [], fertilisers: [], plants: [], livestock: [] };
+		expect(draftFromTank(profile, 'metric')).toMatchObject({ par: '95', parDepth: '30.5' });
+		// 30.5 cm ÷ 2.54 = 12.0079 in.
+		expect(draftFromTank(profile, 'us')).toMatchObject({ par: '95', parDepth: '12.01' });
+	});
+
 	test('CO2 bubbles only count for pressurised CO2', () => {
 		const off = parseTankDraft(draft({ co2Method: 'liquid', co2Bps: '2' }), 'metric', today);
 		expect(off.ok && off.input.co2BubblesPerSecond).toBeNull();

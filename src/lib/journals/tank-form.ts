@@ -8,6 +8,7 @@ import {
 	formatGlass,
 	formatTemperature,
 	fromMetric,
+	PAR_RANGE,
 	parseLength,
 	parseTemperature,
 	parseVolume,
@@ -73,6 +74,8 @@ export interface TankDraft {
 	hardscapeVolume: string;
 	heaterWatts: string;
 	heaterSet: string;
+	par: string;
+	parDepth: string;
 	heaterNote: string;
 	co2Method: string;
 	co2Bps: string;
@@ -123,6 +126,8 @@ export function emptyDraft(units: UnitSystem): TankDraft {
 		hardscapeVolume: '',
 		heaterWatts: '',
 		heaterSet: '',
+		par: '',
+		parDepth: '',
 		heaterNote: '',
 		co2Method: 'none',
 		co2Bps: '',
@@ -169,6 +174,8 @@ export function draftFromForm(form: FormData): TankDraft {
 		hardscapeVolume: text(form, 'hardscapeVolume'),
 		heaterWatts: text(form, 'heaterWatts'),
 		heaterSet: text(form, 'heaterSet'),
+		par: text(form, 'par'),
+		parDepth: text(form, 'parDepth'),
 		heaterNote: text(form, 'heaterNote'),
 		co2Method: text(form, 'co2Method') || 'none',
 		co2Bps: text(form, 'co2Bps'),
@@ -207,6 +214,8 @@ export function draftFromTank(tank: StoredTankProfile, units: UnitSystem): TankD
 		hardscapeVolume: showVolume(tank.hardscapeLitres, units),
 		heaterWatts: tank.heaterWatts === null ? '' : show(tank.heaterWatts, 1),
 		heaterSet: tank.heaterSetC === null ? '' : show(fromMetric('temperature', tank.heaterSetC, units), 1),
+		par: tank.parAtSubstrate === null ? '' : String(tank.parAtSubstrate),
+		parDepth: showLength(tank.parDepthCm, units),
 		heaterNote: tank.heaterNote,
 		co2Method: tank.co2Method,
 		co2Bps: tank.co2BubblesPerSecond === null ? '' : show(tank.co2BubblesPerSecond, 1),
@@ -311,6 +320,24 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 		return roundTo(parsed.value, 1);
 	};
 
+	/** A meter's whole-number reading and the depth it was taken at, within the tank's height; both or neither. */
+	const parReading = (): { parAtSubstrate: number | null; parDepthCm: number | null } => {
+		const par = draft.par.trim();
+		let parAtSubstrate: number | null = null;
+		if (par) {
+			if (!/^\d+$/.test(par) || Number(par) < PAR_RANGE.min || Number(par) > PAR_RANGE.max)
+				fail('par', `Enter the meter's reading as a whole number from ${PAR_RANGE.min} to ${PAR_RANGE.max.toLocaleString('en-GB')}.`);
+			else parAtSubstrate = Number(par);
+		}
+		const parDepthCm = measure('parDepth', draft.parDepth, parseLength, 1000, false, 1);
+		if (parDepthCm !== null && parDepthCm <= 0) fail('parDepth', 'Enter a depth greater than zero.');
+		else if (parDepthCm !== null && heightCm !== null && parDepthCm > heightCm)
+			fail('parDepth', 'That is deeper than the tank is tall; check the number and its unit.');
+		if (par && parDepthCm === null && !draft.parDepth.trim()) fail('parDepth', 'Give the depth under the water surface the reading was taken at.');
+		if (!par && draft.parDepth.trim()) fail('par', 'Enter the reading, or leave the depth empty too.');
+		return { parAtSubstrate, parDepthCm };
+	};
+
 	const substrateKind = draft.substrateKind ? oneOf('substrateKind', draft.substrateKind, SUBSTRATE_CHOICES, 'Choose a kind of substrate.') : '';
 	const co2Method = oneOf<Co2Method>('co2Method', draft.co2Method, CO2_METHODS, 'Choose how CO2 is added.');
 	const visibility = oneOf<TankVisibility>('visibility', draft.visibility, TANK_VISIBILITIES, 'Choose who may see this tank.');
@@ -334,6 +361,7 @@ export function parseTankDraft(draft: TankDraft, units: UnitSystem, today: Date 
 		co2Method: co2Method ?? 'none',
 		co2BubblesPerSecond: co2Method === 'pressurised' ? number('co2Bps', draft.co2Bps, 0.1, 99) : null,
 		waterLitres: measure('waterVolume', draft.waterVolume, parseVolume, 20000),
+		...parReading(),
 		description: words('description', draft.description, 5000),
 		visibility: visibility ?? 'club',
 		lights: [],

@@ -64,6 +64,9 @@ export interface TankInput {
 	co2Method: Co2Method;
 	co2BubblesPerSecond: number | null;
 	waterLitres: number | null;
+	/** PAR measured at the substrate, µmol·m⁻²·s⁻¹ (whole numbers), and how deep under the water surface, cm; both or neither. */
+	parAtSubstrate: number | null;
+	parDepthCm: number | null;
 	description: string;
 	visibility: TankVisibility;
 	lights: LightInput[];

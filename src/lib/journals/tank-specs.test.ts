@@ -7,6 +7,7 @@ import {
 	hardscapeText,
 	heaterText,
 	lightingText,
+	parText,
 	lightText,
 	nowAndBefore,
 	photoperiodAdvice,
@@ -48,6 +49,13 @@ describe('light and flow', () => {
 	test('the lighting line: total watts, watts per volume unit, hours a day', () => {
 		expect(lightingText({ totalWatts: 92, wattsPerLitre: 92 / 160, photoperiodHours: 7 }, 'metric')).toBe('92 W · 0.58 W per L · 7 h a day');
 		expect(lightingText({ totalWatts: 36, wattsPerLitre: 36 / 50, photoperiodHours: 6 }, 'us')).toBe('36 W · 2.73 W per US gal · 6 h a day');
+	});
+	test('a measured PAR with its depth in the member’s unit: 38 cm is 14.96 in (1 in = 2.54 cm exactly, NIST Handbook 44, Appendix C); the band word is common practice, no source', () => {
+		expect(parText({ parAtSubstrate: 95, parDepthCm: 38 }, 'metric')).toBe('95 µmol·m⁻²·s⁻¹ at 38 cm deep · high light');
+		// 38 / 2.54 = 14.96 in, shown at the page's precision for lengths.
+		expect(parText({ parAtSubstrate: 45, parDepthCm: 38 }, 'us')).toBe('45 µmol·m⁻²·s⁻¹ at 15 in deep · medium light');
+		expect(parText({ parAtSubstrate: 12, parDepthCm: null }, 'metric')).toBe('12 µmol·m⁻²·s⁻¹ · low light');
+		expect(parText({ parAtSubstrate: null, parDepthCm: 30 }, 'metric')).toBeNull();
 		expect(lightText({ label: '', watts: 8, hoursPerDay: 6.5 })).toBe('Light: 8 W, 6.5 h');
 	});
 	test('a filter rated in US gal/h also says its L/h to metric members: 100 US gal/h = 379 L/h', () => {

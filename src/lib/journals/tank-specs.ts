@@ -10,6 +10,8 @@ import {
 	formatTemperature,
 	formatVolume,
 	fromMetric,
+	PAR_BAND_LABELS,
+	parBand,
 	suggestedPhotoperiod,
 	SUBSTRATE_LABELS,
 	unitSymbol,
@@ -39,6 +41,16 @@ export function wattsPerVolumeUnit(wattsPerLitre: number, units: UnitSystem): nu
 /** "92 W · 0.52 W per L · 7 h a day". */
 export function lightingText(lighting: { totalWatts: number; wattsPerLitre: number; photoperiodHours: number }, units: UnitSystem): string {
 	return `${n(lighting.totalWatts)} W · ${n(wattsPerVolumeUnit(lighting.wattsPerLitre, units), 2)} W per ${unitSymbol('volume', units)} · ${n(lighting.photoperiodHours, 1)} h a day`;
+}
+
+/**
+ * A measured PAR at the substrate with the depth it was taken at and a word for the level:
+ * "95 µmol·m⁻²·s⁻¹ at 38 cm deep · high light". Null without a reading.
+ */
+export function parText(tank: { parAtSubstrate: number | null; parDepthCm: number | null }, units: UnitSystem): string | null {
+	if (tank.parAtSubstrate === null) return null;
+	const depth = tank.parDepthCm === null ? '' : ` at ${formatLength(tank.parDepthCm, units)} deep`;
+	return `${n(tank.parAtSubstrate, 0)} µmol·m⁻²·s⁻¹${depth} · ${PAR_BAND_LABELS[parBand(tank.parAtSubstrate)]}`;
 }
 
 /** One light of the list: "LED bar, front: 46 W, 7 h". */

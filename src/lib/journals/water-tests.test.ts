@@ -8,6 +8,7 @@ import {
 	latestWarnings,
 	parseWaterTest,
 	readingsOf,
+	waterTestDraftOf,
 	type WaterTestValues
 } from './water-tests';
 
@@ -26,6 +27,32 @@ const blank: WaterTestValues = {
 	tds: null
 };
 const today = '2026-03-20';
+
+describe('waterTestDraftOf (the edit form)', () => {
+	const stored = { ...blank, ph: 6.85, kh: 4, ammonia: 0.25, ammoniaBasis: 'NH4' as const, temperatureC: 25.3, testedOn: '2026-03-18', note: 'after the trim' };
+	test('starts from the stored readings, temperature in °F for a US member: 25.3 °C = 77.54 °F, shown to a tenth (NIST SP 811, B.8)', () => {
+		const draft = waterTestDraftOf(stored, 'us');
+		expect(draft).toMatchObject({
+			testedOn: '2026-03-18',
+			ph: '6.85',
+			kh: '4',
+			ammonia: '0.25',
+			ammoniaBasis: 'NH4',
+			temperatureC: '77.5',
+			no3: '',
+			note: 'after the trim'
+		});
+		expect(waterTestDraftOf(stored, 'metric').temperatureC).toBe('25.3');
+	});
+	test('saving the form unchanged keeps every value, in either unit system', () => {
+		for (const units of ['metric', 'us', 'imperial'] as const) {
+			for (const temperatureC of [0, 4.4, 18.1, 25.3, 26.7, 31.9, 45]) {
+				const test = { ...stored, temperatureC };
+				expect(parseWaterTest(waterTestDraftOf(test, units), units, { today })).toEqual({ ok: true, input: test });
+			}
+		}
+	});
+});
 
 describe('parseWaterTest', () => {
 	test('any subset of readings; blanks stay empty', () => {

@@ -96,6 +96,19 @@ export function waterTestDraftFrom(form: FormData): WaterTestDraft {
 	return draft;
 }
 
+/** A stored test as its edit form starts: every reading as typed, temperature in the member's unit. */
+export function waterTestDraftOf(test: WaterTestInput, units: UnitSystem): WaterTestDraft {
+	const draft = emptyWaterTestDraft(test.testedOn);
+	for (const parameter of WATER_PARAMETERS) {
+		const { column } = WATER_FIELDS[parameter];
+		const value = test[column];
+		if (value === null) continue;
+		// One decimal of °F is finer than the tenth of a °C kept, so saving the form unchanged keeps the value.
+		draft[column] = String(parameter === 'temperature' ? roundTo(fromMetric('temperature', value, units), 1) : value);
+	}
+	return { ...draft, ammoniaBasis: test.ammoniaBasis, note: test.note };
+}
+
 export type WaterTestParse = { ok: true; input: WaterTestInput } | { ok: false; errors: Record<string, string> };
 
 /** Reads the form; at least one reading is needed. Temperature is typed in °C or °F by the member's units. */

@@ -33,6 +33,17 @@ export const GROWTH_HABIT_LABELS: Record<GrowthHabit, string> = {
 	bulb: 'Bulb or tuber'
 };
 
+/** The way of growing as a noun for a sentence: "does not fit a stem plant". */
+export const GROWTH_HABIT_NOUNS: Record<GrowthHabit, string> = {
+	stem: 'a stem plant',
+	rosette: 'a rosette plant',
+	rhizome: 'a rhizome plant',
+	moss: 'a moss',
+	carpeting: 'a carpeting plant',
+	floating: 'a floating plant',
+	bulb: 'a bulb or tuber plant'
+};
+
 export const GROWTH_SPEEDS = ['slow', 'moderate', 'fast'] as const;
 export type GrowthSpeed = (typeof GROWTH_SPEEDS)[number];
 

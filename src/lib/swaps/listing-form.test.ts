@@ -13,7 +13,7 @@ const draft = (over: Partial<ListingDraft> = {}): ListingDraft => ({
 // The form's rules are ours (no source); the day arithmetic follows the Gregorian calendar.
 describe('the listing form', () => {
 	test('a new plant listing defaults to 7 days, the first plant unit and the member’s area', () => {
-		expect(emptyDraft('plants', now, 4)).toMatchObject({ kind: 'offer', unit: 'stems', availableUntil: '2031-03-08', pickupAreaId: '4', terms: 'free' });
+		expect(emptyDraft('plants', now, 4)).toMatchObject({ kind: 'offer', unit: 'plants', availableUntil: '2031-03-08', pickupAreaId: '4', terms: 'free' });
 		expect(emptyDraft('equipment', now, null)).toMatchObject({ unit: 'pieces', availableUntil: '2031-03-31', pickupAreaId: '' });
 	});
 
@@ -62,7 +62,7 @@ describe('the listing form', () => {
 		});
 		expect(parseListingDraft(draft({ unit: 'individuals' }), now)).toMatchObject({
 			ok: false,
-			errors: { unit: '"animals" does not fit plants; choose stems, portions, pots, cm² of mat or pieces.' }
+			errors: { unit: '"animals" does not fit plants; choose plants, stems, rhizome pieces, bulbs or tubers, portions, cups, pots, cm² of mat or pieces.' }
 		});
 		expect(parseListingDraft(draft({ kind: 'sale', category: 'boats' }), now)).toMatchObject({
 			ok: false,

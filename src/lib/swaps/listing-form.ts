@@ -12,7 +12,7 @@ import {
 	type ListingKind
 } from './listing';
 import { dayOf } from '$lib/dates';
-import { checkQuantity, unitsFor, type Quantity } from './quantity';
+import { checkQuantity, quantityFieldOf, unitsFor, type Quantity } from './quantity';
 import { checkTerms, type ListingTerms } from './terms';
 
 export const TITLE_MAX = 120;
@@ -40,6 +40,8 @@ export interface ListingDraft {
 	pickupAreaId: string;
 	availableUntil: string;
 	tankId: string;
+	/** How the picked plant grows, so the form offers its units; the server looks it up again itself. */
+	speciesHabit: string;
 }
 
 export interface ListingInput {
@@ -72,7 +74,8 @@ const FIELDS: (keyof ListingDraft)[] = [
 	'termsNote',
 	'pickupAreaId',
 	'availableUntil',
-	'tankId'
+	'tankId',
+	'speciesHabit'
 ];
 
 export function draftFromForm(form: FormData): ListingDraft {
@@ -94,7 +97,8 @@ export function emptyDraft(category: ListingCategory, now: Date, pickupAreaId: n
 		termsNote: '',
 		pickupAreaId: pickupAreaId === null ? '' : String(pickupAreaId),
 		availableUntil: dayOf(defaultAvailableUntil(category, now)),
-		tankId: ''
+		tankId: '',
+		speciesHabit: ''
 	};
 }
 
@@ -139,7 +143,7 @@ export function parseListingDraft(d: ListingDraft, now: Date): ParsedListing {
 	const amount = /^\d+$/.test(amountText) ? Number(amountText) : Number.NaN;
 	if (category) {
 		const problem = checkQuantity(category, { amount, unit: d.unit });
-		if (problem) errors[problem.startsWith('"') || problem === 'Choose a unit.' ? 'unit' : 'amount'] = problem;
+		if (problem) errors[quantityFieldOf(problem)] = problem;
 	}
 
 	const condition = d.condition.trim();

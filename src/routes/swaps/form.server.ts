@@ -74,6 +74,7 @@ export function draftOf(listing: ListingDetail): ListingDraft {
 		termsNote: listing.termsNote,
 		pickupAreaId: listing.pickupAreaId === null ? '' : String(listing.pickupAreaId),
 		availableUntil: dayOf(listing.availableUntil),
-		tankId: listing.tank ? String(listing.tank.id) : ''
+		tankId: listing.tank ? String(listing.tank.id) : '',
+		speciesHabit: listing.growthHabit ?? ''
 	};
 }

@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { ELECTRICAL_SAFETY_CAUTION, compareLighting, suggestedPhotoperiod, summariseLighting } from './lighting';
+import { ELECTRICAL_SAFETY_CAUTION, PAR_BAND_EDGES, compareLighting, parBand, suggestedPhotoperiod, summariseLighting } from './lighting';
 
 describe('summariseLighting', () => {
 	test('worked example: 40 W for 8 h and 15 W for 6 h over 100 L', () => {
@@ -74,5 +74,21 @@ describe('compareLighting', () => {
 		expect(ELECTRICAL_SAFETY_CAUTION).toMatch(/residual-current device/);
 		expect(ELECTRICAL_SAFETY_CAUTION).toMatch(/drip loop/);
 		expect(ELECTRICAL_SAFETY_CAUTION).toMatch(/unplug/);
+	});
+});
+
+describe('parBand (common practice, no source: the edges are from memory of hobby write-ups)', () => {
+	test('each reading gets one word, the edges belonging to the band above', () => {
+		expect(parBand(1)).toBe('low');
+		expect(parBand(PAR_BAND_EDGES.medium - 1)).toBe('low');
+		expect(parBand(PAR_BAND_EDGES.medium)).toBe('medium');
+		expect(parBand(PAR_BAND_EDGES.high - 1)).toBe('medium');
+		expect(parBand(PAR_BAND_EDGES.high)).toBe('high');
+		expect(parBand(1800)).toBe('high');
+	});
+	test('a reading outside what a meter can show under a tank light is refused', () => {
+		expect(() => parBand(0)).toThrow(/PAR/);
+		expect(() => parBand(2501)).toThrow(/PAR/);
+		expect(() => parBand(Number.NaN)).toThrow(/PAR/);
 	});
 });

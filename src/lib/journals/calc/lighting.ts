@@ -133,6 +133,30 @@ export function compareLighting(a: LightingLoad, b: LightingLoad): LightingCompa
 	return { ratio, stronger, description: describeFactor(factor) };
 }
 
+/**
+ * A PAR meter's reading: photosynthetic photon flux density, µmol of photons (400–700 nm) per
+ * square metre and second (the quantity and unit of ASABE S640, "Quantities and Units of
+ * Electromagnetic Radiation for Plants"). Meters show whole numbers. Full midday sun is roughly
+ * 2,000 (from memory), so a tank reading above 2,500 is a typing slip.
+ */
+export const PAR_RANGE = { min: 1, max: 2500 } as const;
+
+export type ParBand = 'low' | 'medium' | 'high';
+
+/**
+ * Words keepers use for light at the substrate of a planted tank, by PAR: under 30 low, 30 to
+ * under 80 medium, 80 and more high (common practice, no source; the edges are from memory of
+ * hobby write-ups and differ between them). For members this is only a word beside the reading.
+ */
+export const PAR_BAND_EDGES = { medium: 30, high: 80 } as const;
+
+export const PAR_BAND_LABELS: Record<ParBand, string> = { low: 'low light', medium: 'medium light', high: 'high light' };
+
+export function parBand(par: number): ParBand {
+	requireInRange('PAR (µmol·m⁻²·s⁻¹)', par, PAR_RANGE.min, PAR_RANGE.max);
+	return par >= PAR_BAND_EDGES.high ? 'high' : par >= PAR_BAND_EDGES.medium ? 'medium' : 'low';
+}
+
 /** Shown wherever lights or other mains equipment are entered. */
 export const ELECTRICAL_SAFETY_CAUTION =
 	'Mains electricity and water: put aquarium equipment on a circuit protected by a residual-current device (RCD/GFCI), ' +

@@ -18,6 +18,7 @@ import { UNNAMED_MEMBER } from '../../club/names';
 import type { EntryInput, EventInput } from '../../journals/journal-entry-form';
 import { COMMENT_MAX, ENTRY_PHOTOS_MAX, isListEvent } from '../../journals/journal-vocabulary';
 import { doneEventKind } from '../../journals/schedule';
+import { threadComments, type Threaded } from '../../journals/comment-thread';
 import {
 	entryComments,
 	journalEntries,
@@ -47,12 +48,20 @@ export interface Entry extends Omit<EntryRow, 'bodyHtml'> {
 export interface Comment {
 	id: number;
 	entryId: number;
+	/** The comment it answers; null for a comment on the entry itself. */
+	parentId: number | null;
 	authorId: string;
 	authorName: string;
 	html: string;
 	createdAt: Date;
+	/** When its author last changed it. */
+	editedAt: Date | null;
 	/** Whether the viewer may remove it: its author, the tank's keeper, or an admin. */
 	removable: boolean;
+	/** Whether the viewer may change its text: its author only. */
+	editable: boolean;
+	/** The markdown source, for its author's edit form only (empty for everyone else). */
+	source: string;
 }
 
 const entryNotFound = () => notFound('We could not find that entry.');
@@ -391,13 +400,13 @@ export async function latestOf(tankId: number, limit: number, context: Context =
 
 // ——— Comments ———
 
-/** The comments on an entry of `tank`, oldest first (the caller has checked that the viewer may see the tank). */
+/** The comments on an entry of `tank`, each with its replies, oldest first (the caller has checked that the viewer may see the tank). */
 export async function comments(
 	viewer: Pick<Viewer, 'id' | 'role'> | null,
 	tank: Pick<TankRow, 'ownerId'>,
 	entryId: number,
 	context: Context = {}
-): Promise<Comment[]> {
+): Promise<Threaded<Comment>[]> {
 	const rows = await resolve(context)
 		.db.select()
 		.from(entryComments)
@@ -407,22 +416,39 @@ export async function comments(
 		rows.map((c) => c.authorId),
 		context
 	);
-	return rows.map((comment) => ({
-		id: comment.id,
-		entryId: comment.entryId,
-		authorId: comment.authorId,
-		authorName: names.get(comment.authorId) ?? UNNAMED_MEMBER,
-		html: storedHtml(comment.bodyHtml, comment.body),
-		createdAt: comment.createdAt,
-		removable: !!viewer && (viewer.id === comment.authorId || viewer.id === tank.ownerId || viewer.role === 'admin')
-	}));
+	return threadComments(
+		rows.map((comment) => {
+			const isAuthor = !!viewer && viewer.id === comment.authorId;
+			return {
+				id: comment.id,
+				entryId: comment.entryId,
+				parentId: comment.parentId,
+				authorId: comment.authorId,
+				authorName: names.get(comment.authorId) ?? UNNAMED_MEMBER,
+				html: storedHtml(comment.bodyHtml, comment.body),
+				createdAt: comment.createdAt,
+				editedAt: comment.editedAt,
+				removable: !!viewer && (isAuthor || viewer.id === tank.ownerId || viewer.role === 'admin'),
+				editable: isAuthor,
+				source: isAuthor ? comment.body : ''
+			};
+		})
+	);
 }
+
+/** A comment's text as it is kept: line ends made plain, trimmed, not empty, not too long. */
+function commentText(body: string, field: string): string {
+	const text = body.replace(/\r\n/g, '\n').trim();
+	if (!text) throw invalid({ [field]: 'Write a comment first.' });
+	if (text.length > COMMENT_MAX) throw invalid({ [field]: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
+	return text;
+}
+
+const commentNotFound = () => notFound('We could not find that comment.');
 
 /** A member's comment on an entry of a tank they may see. */
 export async function addComment(viewer: Pick<Viewer, 'id'>, tankId: number, entryId: number, body: string, context: Context = {}): Promise<number> {
-	const text = body.replace(/\r\n/g, '\n').trim();
-	if (!text) throw invalid({ comment: 'Write a comment first.' });
-	if (text.length > COMMENT_MAX) throw invalid({ comment: `Keep the comment to ${COMMENT_MAX.toLocaleString('en-GB')} characters.` });
+	const text = commentText(body, 'comment');
 	return resolve(context).db.transaction(async (tx) => {
 		const found = await get(viewer, tankId, entryId, within(context, tx));
 		if (!found) throw entryNotFound();
@@ -431,9 +457,63 @@ export async function addComment(viewer: Pick<Viewer, 'id'>, tankId: number, ent
 	});
 }
 
-/** Removes a comment: its author, the keeper of the tank, or an admin (audited when it is not the author); anyone else gets "not found". */
+/**
+ * A reply to a comment on an entry of a tank the viewer may see (whoever may comment there may
+ * reply). Replies go one level deep: answering a reply joins the thread of the comment it answers.
+ * Returns the reply's id and the comment it went under, with that comment's author.
+ */
+export async function reply(
+	viewer: Pick<Viewer, 'id'>,
+	tankId: number,
+	entryId: number,
+	parentId: number,
+	body: string,
+	context: Context = {}
+): Promise<{ id: number; parentId: number; parentAuthorId: string }> {
+	const text = commentText(body, 'reply');
+	return resolve(context).db.transaction(async (tx) => {
+		const found = await get(viewer, tankId, entryId, within(context, tx));
+		if (!found) throw entryNotFound();
+		const [answered] = await tx
+			.select({ id: entryComments.id, parentId: entryComments.parentId })
+			.from(entryComments)
+			.where(and(eq(entryComments.id, parentId), eq(entryComments.entryId, entryId)));
+		if (!answered) throw commentNotFound();
+		const threadId = answered.parentId ?? answered.id;
+		// The thread's first comment, locked so a reply cannot land under a comment being removed (MariaDB has no FOR SHARE).
+		const [thread] = await tx
+			.select({ id: entryComments.id, authorId: entryComments.authorId })
+			.from(entryComments)
+			.where(eq(entryComments.id, threadId))
+			.for('update');
+		if (!thread) throw commentNotFound();
+		const [result] = await tx.insert(entryComments).values({ entryId, parentId: thread.id, authorId: viewer.id, body: text, bodyHtml: renderMarkdown(text) });
+		return { id: result.insertId, parentId: thread.id, parentAuthorId: thread.authorId };
+	});
+}
+
+/** Changes the text of the viewer's own comment or reply, on a tank they may still see, and marks it edited; "not found" for anyone else. */
+export async function editComment(viewer: Pick<Viewer, 'id'>, tankId: number, commentId: number, body: string, context: Context = {}): Promise<void> {
+	const text = commentText(body, 'body');
+	const { db, now } = resolve(context);
+	await db.transaction(async (tx) => {
+		const [row] = await tx
+			.select({ authorId: entryComments.authorId, tankId: journalEntries.tankId })
+			.from(entryComments)
+			.innerJoin(journalEntries, eq(journalEntries.id, entryComments.entryId))
+			.where(and(eq(entryComments.id, commentId), eq(journalEntries.tankId, tankId)))
+			.for('update');
+		if (!row || row.authorId !== viewer.id) throw commentNotFound();
+		if (!(await tanks.findVisible(viewer, row.tankId, within(context, tx)))) throw commentNotFound();
+		await tx
+			.update(entryComments)
+			.set({ body: text, bodyHtml: renderMarkdown(text), editedAt: now })
+			.where(eq(entryComments.id, commentId));
+	});
+}
+
+/** Removes a comment (its replies with it): its author, the keeper of the tank, or an admin (audited when it is not the author); anyone else gets "not found". */
 export async function removeComment(viewer: Pick<Viewer, 'id' | 'role'>, tankId: number, commentId: number, context: Context = {}): Promise<void> {
-	const commentNotFound = () => notFound('We could not find that comment.');
 	await resolve(context).db.transaction(async (tx) => {
 		const [row] = await tx
 			.select({ comment: entryComments, tankId: journalEntries.tankId })

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { date, datetime, decimal, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
+import { type AnyMySqlColumn, date, datetime, decimal, index, int, mediumtext, mysqlEnum, mysqlTable, primaryKey, text, varchar } from 'drizzle-orm/mysql-core';
 import { at, createdAt, id, ref } from '../db/columns';
 import { users } from '../club/schema';
 import { species } from '../species/schema';
@@ -39,6 +39,10 @@ export const tanks = mysqlTable(
 		co2BubblesPerSecond: decimal({ precision: 4, scale: 1, mode: 'number' }),
 		/** A measured water volume, when the keeper has one; it wins over the estimate. */
 		waterLitres: decimal({ precision: 8, scale: 2, mode: 'number' }),
+		/** PAR measured at the substrate with all the tank's lights on, µmol·m⁻²·s⁻¹, when the keeper has a meter reading. */
+		parAtSubstrate: int(),
+		/** How deep under the water surface that reading was taken, cm. */
+		parDepthCm: decimal({ precision: 5, scale: 1, mode: 'number' }),
 		description: text(),
 		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
 		descriptionHtml: mediumtext(),
@@ -248,7 +252,9 @@ export const waterTests = mysqlTable(
 		temperatureC: decimal({ precision: 4, scale: 1, mode: 'number' }),
 		tds: int(),
 		note: varchar({ length: 500 }).notNull().default(''),
-		createdAt: createdAt()
+		createdAt: createdAt(),
+		/** When the keeper last changed the test after logging it; null for a test as first logged. */
+		editedAt: at()
 	},
 	(t) => [index('water_test_timeline_idx').on(t.tankId, t.testedOn, t.createdAt)]
 );
@@ -263,12 +269,16 @@ export const entryComments = mysqlTable(
 		authorId: varchar({ length: 255 })
 			.notNull()
 			.references(() => users.id),
+		/** The comment this one answers (replies go one level deep); its replies go with it. */
+		parentId: ref().references((): AnyMySqlColumn => entryComments.id, { onDelete: 'cascade' }),
 		body: text().notNull(),
 		/** The source rendered by $lib/server/markdown (sanitised), kept so reads do not render; rebuilt by the migration runner when the rules change. */
 		bodyHtml: mediumtext(),
-		createdAt: createdAt()
+		createdAt: createdAt(),
+		/** When its author last changed it; null for a comment as first posted. */
+		editedAt: at()
 	},
-	(t) => [index('entry_comment_entry_idx').on(t.entryId, t.createdAt)]
+	(t) => [index('entry_comment_entry_idx').on(t.entryId, t.createdAt), index('entry_comment_parent_idx').on(t.parentId)]
 );
 
 export const tankAdmires = mysqlTable(

@@ -256,6 +256,8 @@ function columns(input: TankInput) {
 		co2Method: input.co2Method,
 		co2BubblesPerSecond: input.co2Method === 'pressurised' ? input.co2BubblesPerSecond : null,
 		waterLitres: input.waterLitres,
+		parAtSubstrate: input.parAtSubstrate,
+		parDepthCm: input.parAtSubstrate === null ? null : input.parDepthCm,
 		description: input.description || null,
 		descriptionHtml: input.description ? renderMarkdown(input.description) : null,
 		visibility: input.visibility

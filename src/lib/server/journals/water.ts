@@ -14,6 +14,8 @@ export type { WaterTestRow };
 /** Tests a chart draws at most (the newest ones). */
 export const SERIES_LIMIT = 120;
 
+const testNotFound = () => notFound('We could not find that test.');
+
 /** Logs a test on the viewer's own tank. */
 export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: WaterTestInput, context: Context = {}): Promise<number> {
 	const { db, now } = resolve(context);
@@ -27,13 +29,38 @@ export async function create(viewer: Pick<Viewer, 'id'>, tankId: number, input: 
 	});
 }
 
+/** A test of the viewer's own tank, for its edit form; "not found" for anyone else's or none. */
+export async function getOwn(viewer: Pick<Viewer, 'id'>, tankId: number, testId: number, context: Context = {}): Promise<WaterTestRow> {
+	const tank = await tanks.findOwn(viewer, tankId, context);
+	const [row] = tank ? await many(tank.id, [testId], context) : [];
+	if (!row) throw testNotFound();
+	return row;
+}
+
+/** Changes a test of the viewer's own tank (the whole test, as the form sends it) and marks it edited. */
+export async function update(viewer: Pick<Viewer, 'id'>, tankId: number, testId: number, input: WaterTestInput, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	await db.transaction(async (tx) => {
+		const inTx = within({ ...context, now }, tx);
+		await tanks.lockOwn(viewer, tankId, inTx);
+		const [result] = await tx
+			.update(waterTests)
+			.set({ ...input, editedAt: now })
+			.where(and(eq(waterTests.id, testId), eq(waterTests.tankId, tankId)));
+		if (result.affectedRows === 0) throw testNotFound();
+		// The day may have moved, so a schedule task's last test may have too.
+		await upkeep.recompute(tankId, inTx);
+		await tanks.touch(tankId, inTx);
+	});
+}
+
 /** Deletes a test of the viewer's own tank. */
 export async function remove(viewer: Pick<Viewer, 'id'>, tankId: number, testId: number, context: Context = {}): Promise<void> {
 	await resolve(context).db.transaction(async (tx) => {
 		const inTx = within(context, tx);
 		await tanks.lockOwn(viewer, tankId, inTx);
 		const [result] = await tx.delete(waterTests).where(and(eq(waterTests.id, testId), eq(waterTests.tankId, tankId)));
-		if (result.affectedRows === 0) throw notFound('We could not find that test.');
+		if (result.affectedRows === 0) throw testNotFound();
 		await upkeep.recompute(tankId, inTx);
 	});
 }

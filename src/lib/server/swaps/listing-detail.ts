@@ -20,6 +20,7 @@ import { listingEvents } from './schema';
 import { canView, rowOf, toPure, type ListingRow } from './listings';
 import * as restricted from './restricted';
 import { storedHtml } from '../markdown';
+import type { GrowthHabit } from '../../species/kinds';
 
 export interface ListingDetail {
 	id: number;
@@ -31,6 +32,8 @@ export interface ListingDetail {
 	speciesId: number | null;
 	speciesName: string;
 	commonName: string | null;
+	/** How the catalogue's plant grows (which units fit it); null for an animal or a name the catalogue does not have. */
+	growthHabit: GrowthHabit | null;
 	quantity: Quantity;
 	quantityText: string;
 	conditionNote: string;
@@ -82,6 +85,7 @@ async function detail(viewer: Viewer | null, row: ListingRow, context: Context):
 		speciesId: row.speciesId,
 		speciesName: row.speciesName,
 		commonName: speciesRow?.commonName || null,
+		growthHabit: speciesRow?.kind === 'plant' ? speciesRow.growthHabit : null,
 		quantity: { amount: row.quantityAmount, unit: row.quantityUnit },
 		quantityText: formatQuantity({ amount: row.quantityAmount, unit: row.quantityUnit }),
 		conditionNote: row.conditionNote,

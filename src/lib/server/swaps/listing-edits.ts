@@ -9,12 +9,14 @@ import * as media from '../media';
 import type { Purge } from '../media';
 import * as tanks from '../journals/tanks';
 import * as matching from '../species/matching';
+import * as catalogue from '../species/catalogue';
 import type { PhotoField } from '../../media/form';
 import { conflict, DomainError, invalid, isDomainError, notFound } from '../../errors';
 import { renderMarkdown } from '../markdown';
 import { effectiveState, transition } from '../../swaps/listing-state';
 import { hasSpecies, LISTING_PHOTOS_MAX, speciesKindFor, type ListingInput } from '../../swaps/listing-form';
 import { nearestArea } from '../../swaps/places';
+import { checkQuantity, quantityFieldOf } from '../../swaps/quantity';
 import { refusalMessage } from '../../swaps/restrictions';
 import { listingEvents, listings } from './schema';
 import { lockedRowOf, saveTransition, toPure } from './listings';
@@ -37,12 +39,25 @@ async function placeFor(ownerId: string, pickupAreaId: number | null, context: C
 	return { point, pickupAreaId: area?.id ?? null, pickupNear: !!area && owner?.homeAreaId !== area.id };
 }
 
-/** The species a listing names, checked against the club's restricted list: banned ones are refused. */
+/**
+ * The species a listing names, checked against the club's restricted list (banned ones are
+ * refused), and its quantity: a unit of its category and, for a plant the catalogue knows, one that
+ * fits the way it grows.
+ */
 async function checkedSpecies(input: ListingInput, context: Context): Promise<{ speciesId: number | null; speciesName: string }> {
-	if (!hasSpecies(input.category)) return { speciesId: null, speciesName: '' };
-	const resolved = await matching.resolveName(input, speciesKindFor(input.category), context);
-	const assessment = await restricted.assessOne(resolved.speciesId, context);
-	if (assessment.banned.length) throw invalid({ speciesName: assessment.banned.map(refusalMessage).join(' ') }, undefined, 'banned');
+	const resolved = hasSpecies(input.category)
+		? await matching.resolveName(input, speciesKindFor(input.category), context)
+		: { speciesId: null, speciesName: '' };
+	if (resolved.speciesId !== null) {
+		const assessment = await restricted.assessOne(resolved.speciesId, context);
+		if (assessment.banned.length) throw invalid({ speciesName: assessment.banned.map(refusalMessage).join(' ') }, undefined, 'banned');
+	}
+	const known = resolved.speciesId !== null ? await catalogue.get(resolved.speciesId, context) : undefined;
+	const unitProblem = checkQuantity(input.category, input.quantity, known?.kind === 'plant' ? known.growthHabit : null);
+	if (unitProblem) {
+		const field = quantityFieldOf(unitProblem);
+		throw invalid({ [field]: unitProblem }, undefined, field === 'unit' ? 'unit-does-not-fit' : 'bad-amount');
+	}
 	return resolved;
 }
 

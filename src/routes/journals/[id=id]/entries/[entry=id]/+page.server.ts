@@ -6,6 +6,13 @@ import * as journalEntries from '$lib/server/journals/journal-entries';
 import { notFound } from '$lib/errors';
 import type { Actions, PageServerLoad } from './$types';
 
+/** The comment named by the form's `commentId`; a value that is no id is a comment that does not exist. */
+function commentIdOf(data: FormData): number {
+	const id = String(data.get('commentId') ?? '');
+	if (!/^[1-9]\d{0,14}$/.test(id)) throw notFound('We could not find that comment.');
+	return Number(id);
+}
+
 export const load = (async (event) => {
 	const viewer = event.locals.user;
 	const found = await journalEntries.get(viewer, Number(event.params.id), Number(event.params.entry));
@@ -28,11 +35,27 @@ export const actions = {
 		},
 		{ id: 'comment' }
 	),
+	reply: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const parentId = commentIdOf(data);
+			await journalEntries.reply(viewer, Number(event.params.id), Number(event.params.entry), parentId, String(data.get('reply') ?? ''));
+			return { replied: parentId };
+		},
+		{ id: 'reply' }
+	),
+	editComment: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			const id = commentIdOf(data);
+			await journalEntries.editComment(viewer, Number(event.params.id), id, String(data.get('body') ?? ''));
+			return { edited: id };
+		},
+		{ id: 'editComment' }
+	),
 	removeComment: formAction(async (event, data) => {
 		const viewer = requireUser(event);
-		const id = String(data.get('commentId') ?? '');
-		if (!/^[1-9]\d{0,14}$/.test(id)) throw notFound('We could not find that comment.');
-		await journalEntries.removeComment(viewer, Number(event.params.id), Number(id));
+		await journalEntries.removeComment(viewer, Number(event.params.id), commentIdOf(data));
 		return { commentRemoved: true };
 	}),
 	delete: formAction(async (event) => {

@@ -14,7 +14,7 @@ const contest = await contestFixture({ judges: 2, state: 'judging' });
 await scoreAll(contest, (j, e) => [5 + e, 2 + j]);
 await transition(viewerOf(contest.admin), contest.contestId, 'publish');
 
-const owner = await memberAt({ lat: 47.61, lng: -31.24 }, 'outage-owner', 'each');
+const owner = await memberAt({ lat: 47.61, lng: -31.24 }, 'outage-owner', 'immediately');
 const listing = await createListing(owner, { title: 'Spare stem plants after a trim' });
 const askers = await Promise.all(['Rush', 'Sorrel', 'Tansy'].map((name) => makePerson({ label: 'outage-asker', displayName: `${name} Asker` })));
 

@@ -266,6 +266,7 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/away/:plan?/withdraw', form: () => ({ request: '1' }), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/share', form: () => ({}), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/unshare', form: () => ({}), expect: notOwner },
+	{ method: 'POST', path: '/away/:plan?/visitMail', form: () => ({ visitMail: 'daily' }), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/visit', form: () => ({ done: 'Looked', note: 'x' }), expect: notOwner },
 	{ path: '/away/shared/not-a-real-token-of-any-plan-00000', expect: everyone(404) }
 ];

@@ -17,6 +17,8 @@ export interface Member {
 	role: Role;
 	unsubscribeToken: string;
 	announcements: boolean;
+	/** The member's IANA zone, or null while none is known (their days are then UTC days). */
+	timeZone: string | null;
 }
 
 const columns = {
@@ -26,6 +28,7 @@ const columns = {
 	role: users.role,
 	unsubscribeToken: users.unsubscribeToken,
 	announcements: users.announcements,
+	timeZone: users.timeZone,
 	deletedAt: users.deletedAt
 };
 

@@ -9,6 +9,8 @@ import { users } from '../../src/lib/server/club/schema';
 import { outbox } from '../../src/lib/server/mail/schema';
 import { awayReminders, awaySitters } from '../../src/lib/server/away/schema';
 import * as notices from '../../src/lib/server/away/notices';
+import * as summary from '../../src/lib/server/away/summary';
+import * as water from '../../src/lib/server/journals/water';
 import { config } from '../../src/lib/server/config';
 import * as plans from '../../src/lib/server/away/plans';
 import * as sitters from '../../src/lib/server/away/sitters';
@@ -195,6 +197,34 @@ describe('away care: a visit', () => {
 	});
 });
 
+const noReadings = {
+	ph: null,
+	kh: null,
+	gh: null,
+	no3: null,
+	po4: null,
+	k: null,
+	fe: null,
+	ammonia: null,
+	ammoniaBasis: 'NH3' as const,
+	no2: null,
+	temperatureC: null,
+	tds: null,
+	note: ''
+};
+
+/** A photo uploaded by `person`, pending until saved with something. */
+async function photoBy(person: TestPerson, colour: string): Promise<number> {
+	const upload = await uploadFile(
+		person,
+		await sharp({ create: { width: 400, height: 300, channels: 3, background: colour } })
+			.jpeg()
+			.toBuffer()
+	);
+	expect(upload.status).toBe(201);
+	return ((await upload.json()) as { id: number }).id;
+}
+
 /** Mail queued for an address whose subject matches (what the outbox holds, delivered or not). */
 const queued = async (address: string, subject: string) =>
 	db
@@ -212,6 +242,7 @@ describe('away care: mail while away, on each person’s own clock', () => {
 	let farSitter: TestPerson;
 	let farTank: number;
 	let farPlan: number;
+	let farBefore: number;
 
 	beforeAll(async () => {
 		far = await makePerson({ label: 'away-far-keeper' });
@@ -219,6 +250,12 @@ describe('away care: mail while away, on each person’s own clock', () => {
 		await db.update(users).set({ timeZone: 'Asia/Kolkata' }).where(eq(users.id, far.id));
 		await db.update(users).set({ timeZone: 'America/Phoenix' }).where(eq(users.id, farSitter.id));
 		farTank = await tanks.create(viewerOf(far), tankInput({ name: 'Far tank', visibility: 'private', setUpOn: day(-200) }));
+		// The last photo and water test before leaving, two days ahead of the period.
+		farBefore = await photoBy(far, '#2f5d46');
+		await entries.create(viewerOf(far), farTank, { entryOn: D(-1), title: 'Before the trip', body: '', events: [] }, [
+			{ id: farBefore, alt: 'Trimmed before leaving', caption: '' }
+		]);
+		await water.create(viewerOf(far), farTank, { ...noReadings, testedOn: D(-2), ph: 6.8, no3: 10 });
 		farPlan = await plans.start(viewerOf(far), farTank, { ...planInput(D(0), D(7)), visitMail: 'daily' });
 		await sitters.ask(viewerOf(far), farPlan, farSitter.id);
 		const [row] = await db.select().from(awaySitters).where(eq(awaySitters.planId, farPlan));
@@ -264,5 +301,46 @@ describe('away care: mail while away, on each person’s own clock', () => {
 		expect(mails).toHaveLength(1);
 		expect(mails[0]!.text).toContain('Water level fine.');
 		expect(mails[0]!.text).toContain(`${config().ORIGIN}/away/${farPlan}`);
+	});
+	test('coming back: the keeper is mailed the summary once, when their own day reaches the day back', async () => {
+		// A visit with a photo on day 4, and the keeper's first test once back.
+		const during = await photoBy(farSitter, '#7fb38f');
+		await visits.log(sitterViewer(), farPlan, { done: [], taskIds: [], note: 'Plants pearling.' }, [{ id: during, alt: 'Day four', caption: '' }], {
+			now: at(4, '16:00:00')
+		});
+		await water.create(viewerOf(far), farTank, { ...noReadings, testedOn: D(7), ph: 7.1, no3: 25 });
+		// 18:00 UTC on day 6 is 23:30 in Kolkata; 18:45 is a quarter past midnight on the day back.
+		await notices.sendSummaries({ now: at(6, '18:00:00') });
+		expect(await queued(far.email, 'Welcome back')).toHaveLength(0);
+		await notices.sendSummaries({ now: at(6, '18:45:00') });
+		await notices.sendSummaries({ now: at(8, '09:00:00') });
+		const mails = await queued(far.email, 'Welcome back');
+		expect(mails).toHaveLength(1);
+		expect(mails[0]!.text).toContain(`${config().ORIGIN}/away/${farPlan}/summary`);
+		expect(mails[0]!.text).toContain('2 of the 7 days');
+		expect(await queued(farSitter.email, 'Welcome back')).toHaveLength(0);
+
+		const shown = await summary.get({ ...viewerOf(far), timeZone: 'Asia/Kolkata' }, farPlan, { now: at(8, '09:00:00') });
+		expect(shown.over).toBe(true);
+		expect(shown.days.map((d) => d.day)).toEqual([0, 1, 2, 3, 4, 5, 6].map(D));
+		expect(shown.days.map((d) => d.visits.length)).toEqual([0, 0, 1, 0, 1, 0, 0]);
+		expect(shown.days[2]!.visits[0]).toMatchObject({ sitterName: expect.any(String), done: ['Look at the heater'], note: 'Water level fine.' });
+		expect(shown.days[4]!.visits[0]!.photos.map((p) => p.id)).toEqual([during]);
+		expect(shown.readings.before).toMatchObject({ testedOn: D(-2), ph: 6.8, no3: 10 });
+		expect(shown.readings.since).toMatchObject({ testedOn: D(7), ph: 7.1, no3: 25 });
+		expect(shown.photos.then).toMatchObject({ id: farBefore, on: D(-1) });
+		expect(shown.photos.now).toMatchObject({ id: during, on: D(4) });
+	});
+
+	test('coming back: only the keeper sees the summary, the sitter neither during nor after the period', async () => {
+		const response = await request(`/away/${farPlan}/summary`, { cookie: far.cookie });
+		expect(response.status).toBe(200);
+		const html = await response.text();
+		expect(html).toContain('Water level fine.');
+		expect(html).toContain('Plants pearling.');
+		for (const person of [farSitter, other, admin]) expect((await request(`/away/${farPlan}/summary`, { cookie: person.cookie })).status).toBe(404);
+		expect((await request(`/away/${farPlan}/summary`)).status).toBe(303);
+		for (const now of [at(3, '12:00:00'), at(9, '12:00:00')])
+			await expect(summary.get(viewerOf(farSitter), farPlan, { now })).rejects.toMatchObject({ status: 404 });
 	});
 });

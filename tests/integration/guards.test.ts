@@ -261,6 +261,7 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/away?/helper', form: () => ({ helper: 'off' }), expect: signedIn(200) },
 	{ path: '/away/:plan', expect: notOwner },
 	{ path: '/away/:plan/print', expect: notOwner },
+	{ path: '/away/:plan/summary', expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/save', form: () => ({ body: 'Taken over' }), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/ask', form: () => ({ sitterId: 'nobody' }), expect: notOwner },
 	{ method: 'POST', path: '/away/:plan?/withdraw', form: () => ({ request: '1' }), expect: notOwner },

@@ -10,6 +10,7 @@ import { seedJournalTanks, seedJournals } from './seed/journals';
 import { seedRestrictedSpecies } from './seed/restricted';
 import { seedSwaps } from './seed/swaps';
 import { seedContests } from './seed/contests';
+import { seedMembership } from './seed/membership';
 import { component, reason } from '../src/lib/server/ops/log';
 import { registerMediaScopes } from '../src/lib/server/media-scopes';
 
@@ -30,7 +31,8 @@ const steps: SeedStep[] = [
 	{ name: 'journals', demo: true, run: seedJournals },
 	{ name: 'swap-restricted-species', demo: false, run: seedRestrictedSpecies },
 	{ name: 'swap-demo', demo: true, run: seedSwaps },
-	{ name: 'contests', demo: true, run: seedContests }
+	{ name: 'contests', demo: true, run: seedContests },
+	{ name: 'membership', demo: true, run: seedMembership }
 ];
 
 // Reference data always; the demo club only when asked for (`npm start` and `npm test` ask on their

@@ -5,6 +5,7 @@
 //   npm test                      everything
 //   npm test -- --only unit       one runner: unit | integration | e2e | install (repeatable)
 //   npm test -- --grep outbox     passed on to vitest and Playwright as a name filter
+//   npm test -- --file access-matrix   only test files whose path contains this (repeatable)
 //   npm test -- --serve           bring the test stack up (seeded, empty otherwise) and keep it
 //                                 running until Ctrl-C, e.g. for scripts/shoot.ts
 //
@@ -24,6 +25,7 @@ const RUNNERS: Runner[] = ['unit', 'integration', 'e2e', 'install'];
 function parseArgs(argv: string[]) {
 	const only = new Set<Runner>();
 	let grep: string | undefined;
+	const files: string[] = [];
 	let serve = false;
 	for (let i = 0; i < argv.length; i++) {
 		const arg = argv[i];
@@ -35,12 +37,15 @@ function parseArgs(argv: string[]) {
 			serve = true;
 		} else if (arg === '--grep') {
 			grep = argv[++i];
+		} else if (arg === '--file') {
+			// Only test files whose path contains this (repeatable), e.g. --file access-matrix.
+			files.push(argv[++i] ?? '');
 		} else {
 			throw new SetupError(`Unknown argument ${arg}.`, 'See the top of scripts/test.ts for the options.');
 		}
 	}
 	const runners: Runner[] = only.size ? [...only] : RUNNERS;
-	return { runners, grep, serve };
+	return { runners, grep, files, serve };
 }
 
 function run(command: string, args: string[], env: NodeJS.ProcessEnv): Promise<number> {
@@ -64,7 +69,7 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) {
 const started = Date.now();
 const results: { runner: string; code: number }[] = [];
 try {
-	const { runners, grep, serve } = parseArgs(process.argv.slice(2));
+	const { runners, grep, files, serve } = parseArgs(process.argv.slice(2));
 	const needsStack = serve || runners.some((r) => r !== 'unit');
 	if (runners.includes('e2e') && !existsSync(CHROMIUM)) aptInstall(['chromium'], 'The browser tests');
 
@@ -86,12 +91,12 @@ try {
 	const vitestProjects = runners.filter((r) => r === 'unit' || r === 'integration');
 	if (vitestProjects.length) {
 		step(`Running vitest (${vitestProjects.join(' + ')})…`);
-		const args = ['vitest', 'run', ...vitestProjects.flatMap((p) => ['--project', p]), ...(grep ? ['-t', grep] : [])];
+		const args = ['vitest', 'run', ...vitestProjects.flatMap((p) => ['--project', p]), ...(grep ? ['-t', grep] : []), ...files];
 		results.push({ runner: `vitest (${vitestProjects.join(' + ')})`, code: await run('npx', args, env) });
 	}
 	if (runners.includes('e2e')) {
 		step('Running Playwright end-to-end tests in Chromium…');
-		const args = ['playwright', 'test', ...(grep ? ['--grep', grep] : [])];
+		const args = ['playwright', 'test', ...(grep ? ['--grep', grep] : []), ...files];
 		results.push({ runner: 'playwright (e2e)', code: await run('npx', args, env) });
 	}
 	if (runners.includes('install')) {

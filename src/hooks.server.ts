@@ -4,7 +4,7 @@ import { building } from '$app/environment';
 import { authHandle } from '$lib/server/auth';
 import { guardSections } from '$lib/server/club/guards';
 import * as sessions from '$lib/server/club/sessions';
-import * as users from '$lib/server/club/users';
+import * as membership from '$lib/server/club/membership';
 import { config } from '$lib/server/config';
 import { startWorker } from '$lib/server/mail/outbox';
 import { jobs } from '$lib/server/jobs';
@@ -85,14 +85,19 @@ const SESSION_COOKIES = ['__Secure-authjs.session-token', 'authjs.session-token'
  */
 const resolveViewer: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
+	event.locals.account = null;
 	event.locals.sessionToken = null;
 	if (event.url.pathname.startsWith('/auth/')) return resolve(event);
 	const cookieName = SESSION_COOKIES.find((name) => event.cookies.get(name));
 	const token = cookieName ? event.cookies.get(cookieName)! : null;
 	const session = token ? await sessions.find(token) : undefined;
 	if (!token || !cookieName || !session) return resolve(event);
+	// Members are `user`; applicants only `account`; a suspended member is signed out here.
+	const standing = membership.standingOf(session.user);
+	if (!standing.account) return resolve(event);
 
-	event.locals.user = users.toViewer(session.user);
+	event.locals.user = standing.user;
+	event.locals.account = standing.account;
 	event.locals.sessionToken = token;
 	const response = await resolve(event);
 	const renew = sessions.renewalDue(session) && !isPublic(response);

@@ -8,6 +8,8 @@ export const load = (async ({ locals, depends }) => {
 	depends('swaps:unread');
 	return {
 		viewer: user ? { id: user.id, displayName: user.displayName, role: user.role, units: user.units } : null,
+		// Signed in but not (yet) a member: the header links to their membership page instead.
+		applicant: !user && locals.account ? { state: locals.account.state } : null,
 		// Times are shown in the member's zone, on the server and after hydration alike. Visitors see
 		// UTC with the zone named: the server cannot know their zone, and switching after hydration
 		// would change every time on the page as it is read.

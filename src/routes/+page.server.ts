@@ -1,3 +1,4 @@
+import { redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireUser } from '$lib/server/club/guards';
 import { formAction, parseForm } from '$lib/server/http/forms';
@@ -15,6 +16,8 @@ const SOON_DAYS = 3;
 // The home page: a dashboard for a signed-in member, the showcase's newest tanks for everyone else.
 export const load = (async ({ locals }) => {
 	const viewer = locals.user;
+	// Someone signed in but not yet admitted lands on where their membership stands.
+	if (!viewer && locals.account) redirect(303, '/membership');
 	if (!viewer) {
 		const { cards } = await showcase.list({ sort: 'updated', page: 1 });
 		return { dashboard: null, showcase: cards.slice(0, 3) };

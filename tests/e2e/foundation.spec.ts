@@ -3,7 +3,7 @@ import { linksIn, waitForMail } from '../helpers/mail';
 import { makePerson, roleOf, uniqueEmail } from '../helpers/people';
 import { contextFor } from './fixtures';
 
-test('a new member signs in with the link from the mail, picks a display name and signs out', async ({ page }) => {
+test('a newcomer signs in with the link from the mail, asks to join the club (it admits by approval) and signs out', async ({ page }) => {
 	const email = uniqueEmail('e2e-new');
 	await page.goto('/signin');
 	await page.getByLabel('E-mail address').fill(email);
@@ -15,13 +15,17 @@ test('a new member signs in with the link from the mail, picks a display name an
 	expect(link).toBeTruthy();
 	await page.goto(link!);
 
-	await expect(page).toHaveURL(/\/welcome/);
-	await page.getByLabel('Display name').fill('x');
-	await page.getByRole('button', { name: 'Save and continue' }).click();
+	await expect(page).toHaveURL(/\/membership/);
+	await page.getByLabel('Your name as members will see it').fill('x');
+	await page.getByRole('button', { name: 'Send my request' }).click();
 	await expect(page.getByRole('alert')).toContainText('at least 2 characters');
-	await page.getByLabel('Display name').fill('Quill Tester');
-	await page.getByRole('button', { name: 'Save and continue' }).click();
-	await expect(page.getByRole('heading', { name: 'Hello, Quill Tester' })).toBeVisible();
+	await page.getByLabel('Your name as members will see it').fill('Quill Tester');
+	await page.getByLabel('A short note for the admins').fill('I keep a small rimless tank.');
+	await page.getByRole('button', { name: 'Send my request' }).click();
+	await expect(page.getByTestId('request-waiting')).toBeVisible();
+	// Members' pages stay closed until an admin says yes.
+	await page.goto('/journals');
+	await expect(page).toHaveURL(/\/membership$/);
 
 	await page.getByRole('banner').getByRole('button', { name: 'Sign out' }).click();
 	await expect(page.getByText('You are signed out')).toBeVisible();

@@ -65,6 +65,8 @@ test('a member keeps a journal that shows in the showcase; another admires it an
 	await expect(page.getByTestId('co2-estimate')).toContainText('mg/L');
 	await expect(page.getByTestId('water-warnings')).toContainText('Nitrate (NO₃) read 30 mg/L, above the usual 5–25 mg/L.');
 	// The chart of the reading off target is shown first; the others are a click away.
+	// The charts load as their section comes near the screen.
+	await page.getByTestId('water-section').scrollIntoViewIfNeeded();
 	const chart = page.locator('[data-testid=water-chart][data-parameter=NO3]');
 	await expect(chart).toBeVisible();
 	await page.getByRole('group', { name: 'Choose what to chart' }).getByRole('button', { name: 'pH' }).click();

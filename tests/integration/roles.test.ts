@@ -40,7 +40,8 @@ describe('role changes', () => {
 		expect(admins).toHaveLength(1);
 		const audits = await scratch.db.select().from(auditLog).where(eq(auditLog.action, 'role.change'));
 		expect(audits).toHaveLength(1);
-		expect(audits[0]!.detail).toEqual({ from: 'admin', to: 'member' });
+		expect(audits[0]!.before).toEqual({ role: 'admin' });
+		expect(audits[0]!.after).toEqual({ role: 'member' });
 	});
 });
 

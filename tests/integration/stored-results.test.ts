@@ -75,4 +75,30 @@ describe('stored published results', () => {
 		expect(await served(f.contestId)).toEqual(await computedNow(f.contestId));
 		expect(await kept(f.contestId)).toEqual([{ revision: 0 }]);
 	});
+
+	test('a large category is served a page at a time, and an entrant is told which page holds theirs', async () => {
+		const names = Array.from({ length: 22 }, (_, i) => `Paged Entrant ${String.fromCharCode(65 + i)}`);
+		const f = await contestFixture({ judges: 2, entrantNames: names });
+		await scoreAll(f, (j, e) => [1 + (e % 10), 1 + ((e + j) % 5)]);
+		await transition(viewerOf(f.admin), f.contestId, 'publish');
+		const results = (await publicResults(f.contestId))!;
+		const open = results.categories.find((c) => c.entries.length === 22)!;
+		const count = (html: string) => html.split('data-testid="result-entry"').length - 1;
+
+		const first = await (await request(`/contests/${f.contestId}/results/${open.id}`)).text();
+		expect(count(first)).toBe(20);
+		expect(first).toContain('Places 1–20 of 22 entries.');
+		for (const e of open.entries.slice(0, 20)) expect(first).toContain(e.entrantName);
+		expect(first).not.toContain(open.entries[21]!.entrantName);
+
+		const second = await (await request(`/contests/${f.contestId}/results/${open.id}?page=2`)).text();
+		expect(count(second)).toBe(2);
+		expect(second).toContain('Places 21–22 of 22 entries.');
+		// A page past the end shows the last one.
+		expect(count(await (await request(`/contests/${f.contestId}/results/${open.id}?page=99`)).text())).toBe(2);
+
+		const lastEntrant = f.entries.find((e) => e.entryId === open.entries[21]!.entryId)!.entrant;
+		const asEntrant = await (await request(`/contests/${f.contestId}/results/${open.id}`, { cookie: lastEntrant.cookie })).text();
+		expect(asEntrant).toContain('Your entry is on page 2');
+	});
 });

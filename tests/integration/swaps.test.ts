@@ -521,3 +521,24 @@ test('the dashboard counts conversations on my listings with messages I have not
 	await threads.markRead({ id: owner.id }, first);
 	expect(await threads.unreadOnOwnListings(owner.id)).toBe(1);
 });
+
+describe('a long conversation', () => {
+	test('opens at its newest fifty messages, with the earlier ones a link away', async () => {
+		const owner = await memberAt({ lat: 51.5, lng: -0.1 }, 'long-owner', 'off');
+		const asker = await memberAt({ lat: 51.51, lng: -0.1 }, 'long-asker', 'off');
+		const listingId = await createListing(owner, { title: 'Long talk listing' });
+		const threadId = await threads.request(viewerOf(asker), listingId, 'Message 1');
+		for (let i = 2; i <= 55; i++) await threads.post(viewerOf(i % 2 ? asker : owner), threadId, `Message ${i}`);
+		const count = (html: string) => html.split('data-testid="message"').length - 1;
+
+		const page = await (await request(`/swaps/threads/${threadId}`, { cookie: owner.cookie })).text();
+		expect(count(page)).toBe(50);
+		expect(page).toContain('Show the 5 earlier messages');
+		expect(page).toContain('Message 55');
+		expect(page).not.toContain('>Message 5<');
+
+		const all = await (await request(`/swaps/threads/${threadId}?all=1`, { cookie: owner.cookie })).text();
+		expect(count(all)).toBe(55);
+		expect(all).not.toContain('earlier messages');
+	});
+});

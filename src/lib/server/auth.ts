@@ -3,6 +3,7 @@ import { SvelteKitAuth } from '@auth/sveltekit';
 import type { RequestEvent } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
 import Nodemailer from '@auth/sveltekit/providers/nodemailer';
+import * as membership from './club/membership';
 import { promoteConfiguredAdmin } from './club/users';
 import { SESSION_MAX_AGE_MS, SESSION_UPDATE_AGE_MS } from './club/sessions';
 import { accounts, sessions, users, verificationTokens } from './club/schema';
@@ -67,6 +68,10 @@ export const {
 		trustHost: true,
 		adapter: {
 			...adapter,
+			// A newcomer starts as the club's join policy says: a member, or waiting to be admitted.
+			async createUser(user) {
+				return adapter.createUser!({ ...user, state: await membership.stateForNewcomer() } as typeof user);
+			},
 			// A new link retires the address's earlier unused ones, so only the newest works.
 			async createVerificationToken(token) {
 				await db.delete(verificationTokens).where(eq(verificationTokens.identifier, token.identifier));
@@ -100,6 +105,12 @@ export const {
 			error: '/signin/problem'
 		},
 		callbacks: {
+			// A suspended member's link is refused when it is used (AccessDenied), not when it is asked
+			// for, so the sign-in form tells nobody which addresses are suspended.
+			async signIn({ user, email }) {
+				if (email?.verificationRequest) return true;
+				return !user.email || membership.maySignIn(user.email);
+			},
 			// Only our own paths, on ORIGIN: anything else becomes the home page.
 			redirect({ url }) {
 				let target: URL;

@@ -9,6 +9,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load = (({ locals, url }) => {
 	const redirectTo = safeRedirectPath(url.searchParams.get('redirectTo'));
 	if (locals.user) redirect(303, redirectTo);
+	if (locals.account) redirect(303, '/membership');
 	return { redirectTo };
 }) satisfies PageServerLoad;
 

@@ -34,9 +34,8 @@ export async function deleteOwn(viewer: Viewer, typed: string, context: Context 
 }
 
 /**
- * An admin removes a member's account, with a reason, as if the member had deleted it. The admin
- * members page does not offer it yet; only its tests call it so far.
- * @public
+ * An admin removes a member's account, with a reason, as if the member had deleted it (the admin
+ * members page, behind a reason and a confirmation).
  */
 export async function removeMember(admin: Viewer, memberId: string, reason: string, context: Context = {}): Promise<void> {
 	assertRole(admin, 'admin');

@@ -12,7 +12,8 @@ export interface Member {
 	id: string;
 	/** As others see it (nameOf). */
 	name: string;
-	/** Empty when the member has no address (nothing may be sent). */
+	/** Empty when nothing may be sent: the member has no address, or is not an active member
+	 * (suspended, or an applicant not admitted), so no feature mails them by accident. */
 	email: string;
 	role: Role;
 	unsubscribeToken: string;
@@ -29,13 +30,21 @@ const columns = {
 	unsubscribeToken: users.unsubscribeToken,
 	announcements: users.announcements,
 	timeZone: users.timeZone,
-	deletedAt: users.deletedAt
+	deletedAt: users.deletedAt,
+	state: users.state
 };
+
+/** Only members in good standing are listed, found by name or mailed. */
+const active = eq(users.state, 'active');
 
 async function select(where: SQL | undefined, context: Context): Promise<Member[]> {
 	const { db } = resolve(context);
 	const rows = await db.select(columns).from(users).where(where);
-	return rows.map(({ displayName, email, deletedAt, ...r }) => ({ ...r, name: nameOf(displayName, deletedAt !== null), email: email ?? '' }));
+	return rows.map(({ displayName, email, deletedAt, state, ...r }) => ({
+		...r,
+		name: nameOf(displayName, deletedAt !== null),
+		email: state === 'active' ? (email ?? '') : ''
+	}));
 }
 
 const byName = (a: Member, b: Member) => a.name.localeCompare(b.name);
@@ -54,12 +63,12 @@ export async function names(ids: Iterable<string>, context: Context = {}): Promi
 
 /** Members with a role and an address, by name. */
 export async function withRole(role: Role, context: Context = {}): Promise<Member[]> {
-	return (await select(and(eq(users.role, role), isNotNull(users.email)), context)).sort(byName);
+	return (await select(and(eq(users.role, role), isNotNull(users.email), active), context)).sort(byName);
 }
 
 /** Everyone with an address who takes club announcements. */
 export async function announcementReaders(context: Context = {}): Promise<Member[]> {
-	return select(and(eq(users.announcements, true), isNotNull(users.email)), context);
+	return select(and(eq(users.announcements, true), isNotNull(users.email), active), context);
 }
 
 /** Club areas' names, by id. An id of no area (e.g. one removed since) is not in the map. */
@@ -84,7 +93,7 @@ export async function weeklyDigestReaders(page: { afterId?: string; limit: numbe
 	const rows = await db
 		.select({ id: users.id, email: users.email, displayName: users.displayName, unsubscribeToken: users.unsubscribeToken })
 		.from(users)
-		.where(and(eq(users.weeklyDigest, true), isNotNull(users.email), page.afterId === undefined ? undefined : gt(users.id, page.afterId)))
+		.where(and(eq(users.weeklyDigest, true), isNotNull(users.email), active, page.afterId === undefined ? undefined : gt(users.id, page.afterId)))
 		.orderBy(asc(users.id))
 		.limit(page.limit);
 	return rows.map((r) => ({ ...r, email: r.email ?? '' }));
@@ -104,6 +113,6 @@ export async function findByName(prefix: string, limit = 10, context: Context = 
 	const typed = prefix.trim();
 	if (typed.length < 2) return [];
 	const escaped = typed.replace(/[\\%_]/g, (c) => `\\${c}`);
-	const found = await select(and(like(users.displayName, `${escaped}%`), isNotNull(users.email)), context);
+	const found = await select(and(like(users.displayName, `${escaped}%`), isNotNull(users.email), active), context);
 	return found.sort(byName).slice(0, limit);
 }

@@ -3,6 +3,7 @@
 // requireUser or requireRole itself. Domain commands check roles a third time (assertRole in
 // $lib/club/roles), so a command is safe whoever calls it.
 import { error, json, redirect, type Handle, type RequestEvent } from '@sveltejs/kit';
+import type { Account } from '../../club/membership';
 import { hasRole, onlyFor, type Role } from '../../club/roles';
 import type { Viewer } from '../../club/viewer';
 
@@ -14,17 +15,35 @@ const SIGN_IN_FIRST = 'Sign in to use this.';
 
 const signInPath = (url: URL) => `/signin?redirectTo=${encodeURIComponent(url.pathname + url.search)}`;
 
+const MEMBERS_ONLY = 'This part of Riparia is for members of the club.';
+
+/** Where a signed-in person who is not (yet) a member is told where they stand. */
+export const MEMBERSHIP_PATH = '/membership';
+
 /**
- * The signed-in person, or: a redirect to sign-in for pages, 401 for API routes. Call it in every
- * protected load, action and endpoint; a layout check alone does not protect actions.
+ * The signed-in member (active), or: a redirect to sign-in for pages, 401 for API routes. Someone
+ * signed in who is not a member (waiting to be admitted, turned down) is sent to their membership
+ * page (403 for API routes). Call it in every protected load, action and endpoint; a layout check
+ * alone does not protect actions.
  */
 export function requireUser(event: Guarded): Viewer {
 	const user = event.locals.user;
 	if (!user) {
+		const applicant = event.locals.account;
+		if (isApi(event)) error(applicant ? 403 : 401, applicant ? MEMBERS_ONLY : SIGN_IN_FIRST);
+		redirect(303, applicant ? MEMBERSHIP_PATH : signInPath(event.url));
+	}
+	return user;
+}
+
+/** Whoever is signed in, member or not (a suspended member is signed out): for their own membership pages. */
+export function requireSignedIn(event: Guarded): Account {
+	const account = event.locals.account;
+	if (!account) {
 		if (isApi(event)) error(401, SIGN_IN_FIRST);
 		redirect(303, signInPath(event.url));
 	}
-	return user;
+	return account;
 }
 
 /**
@@ -77,7 +96,8 @@ const isEnhancedAction = (event: RequestEvent) => event.request.method === 'POST
 
 /**
  * Refuses a section to anyone without its role before any route code runs: a signed-out visitor
- * goes to sign-in (401 JSON for API-style requests), a signed-in one gets 403 (JSON, an
+ * goes to sign-in (401 JSON for API-style requests), an applicant to their membership page (403
+ * JSON), a member without the role gets 403 (JSON, an
  * ActionResult for use:enhance, or plain text). Only a signed-in visitor's page view reaches the
  * route, because only a route can render the site's error page: its own guard (or the
  * section's layout) refuses it there, and anything other than that refusal is replaced by a
@@ -88,6 +108,12 @@ export const guardSections: Handle = async ({ event, resolve }) => {
 	const section = sectionOf(event.url.pathname);
 	if (!section || hasRole(event.locals.user, ...section.roles)) return resolve(event);
 	const user = event.locals.user;
+	// Signed in but not a member (waiting to be admitted): told where they stand, as requireUser does.
+	if (!user && event.locals.account) {
+		if (isEnhancedAction(event)) return json({ type: 'redirect', status: 303, location: MEMBERSHIP_PATH });
+		if (wantsJson(event) || event.isDataRequest) return json({ code: 'forbidden', message: MEMBERS_ONLY, fields: {} }, { status: 403 });
+		return new Response(null, { status: 303, headers: { location: MEMBERSHIP_PATH } });
+	}
 	const status = user ? 403 : 401;
 	const message = user ? onlyFor(section.roles) : SIGN_IN_FIRST;
 

@@ -107,3 +107,15 @@ export function recordUse(
 		.then(() => undefined);
 	return { expires, written };
 }
+
+/** The session cookie's name as Auth.js sets it: the `__Secure-` form when the club is served over HTTPS. */
+export const sessionCookieName = (origin: string) => (origin.startsWith('https:') ? '__Secure-authjs.session-token' : 'authjs.session-token');
+
+/** Starts a database session for a member, as Auth.js does after a sign-in link (an accepted invitation is one). */
+export async function start(userId: string, context: Context = {}): Promise<{ token: string; expires: Date }> {
+	const { db, now } = resolve(context);
+	const token = crypto.randomUUID();
+	const expires = new Date(now.getTime() + SESSION_MAX_AGE_MS);
+	await db.insert(sessions).values({ sessionToken: token, userId, expires });
+	return { token, expires };
+}

@@ -1,6 +1,7 @@
 // Members: who they are, their profile and settings, and their role in the club.
 import { and, asc, count, eq, isNull, like, ne, or, sql, type SQL } from 'drizzle-orm';
 import { assertRole, type Role } from '../../club/roles';
+import type { MemberState } from '../../club/membership';
 import { timeZoneSchema, type ProfileInput } from '../../club/profile';
 import { roundToKilometre, type LatLng } from '../../club/location';
 import type { Viewer } from '../../club/viewer';
@@ -85,8 +86,8 @@ export async function adoptTimeZone(viewer: Pick<Viewer, 'id'>, timeZone: string
 
 export const MEMBERS_PAGE_SIZE = 20;
 
-/** The member list as admins see it (addresses included), searched by name or address, one page at a time. */
-export async function listMembers(admin: Viewer, filter: { search?: string; role?: Role; page: number }, context: Context = {}) {
+/** The member list as admins see it (addresses included), searched by name or address, by role and state, one page at a time. */
+export async function listMembers(admin: Viewer, filter: { search?: string; role?: Role; state?: MemberState; page: number }, context: Context = {}) {
 	assertRole(admin, 'admin');
 	const { db } = resolve(context);
 	const conditions: (SQL | undefined)[] = [isNull(users.deletedAt)];
@@ -95,6 +96,7 @@ export async function listMembers(admin: Viewer, filter: { search?: string; role
 		conditions.push(or(like(users.displayName, pattern), like(users.email, pattern)));
 	}
 	if (filter.role) conditions.push(eq(users.role, filter.role));
+	if (filter.state) conditions.push(eq(users.state, filter.state));
 	const where = and(...conditions);
 	const [{ total }] = (await db.select({ total: count() }).from(users).where(where)) as [{ total: number }];
 	const rows = await db
@@ -103,6 +105,8 @@ export async function listMembers(admin: Viewer, filter: { search?: string; role
 			email: users.email,
 			displayName: users.displayName,
 			role: users.role,
+			state: users.state,
+			stateReason: users.stateReason,
 			createdAt: users.createdAt,
 			lastSeenAt: users.lastSeenAt
 		})
@@ -135,7 +139,7 @@ export async function changeRole(actor: Viewer, targetId: string, role: Role, co
 		}
 		await tx.update(users).set({ role }).where(eq(users.id, targetId));
 		await audit.record(
-			{ actorId: actor.id, action: 'role.change', subject: { type: 'user', id: targetId }, detail: { from: target.role, to: role } },
+			{ actorId: actor.id, action: 'role.change', subject: { type: 'user', id: targetId }, before: { role: target.role }, after: { role } },
 			within(context, tx)
 		);
 	});

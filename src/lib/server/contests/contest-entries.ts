@@ -1,7 +1,7 @@
 // Members' entries: which tank in which category, its photos and statement, the tank's figures
 // as checked for eligibility. Entries are made, changed and withdrawn only while the contest takes
 // entries; judges never reach them through here (see ./judging.ts for the blind view).
-import { and, asc, count, eq, ne } from 'drizzle-orm';
+import { and, asc, count, countDistinct, eq, inArray, ne } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
 import { resolve, within, type Context } from '../context';
 import type { Viewer } from '../club/users';
@@ -247,4 +247,15 @@ export async function photoAudience(viewer: Viewer | null, entryId: number, cont
 	if (found.state === 'published' || found.state === 'archived') return 'public';
 	if (!viewer) return null;
 	return viewer.id === found.entrantId || isAdminViewer(viewer) ? 'restricted' : null;
+}
+
+/** How many contests each of these members has entered, by member id (for the member directory). */
+export async function contestsEnteredBy(memberIds: readonly string[], context: Context = {}): Promise<Map<string, number>> {
+	if (memberIds.length === 0) return new Map();
+	const rows = await resolve(context)
+		.db.select({ id: contestEntries.entrantId, n: countDistinct(contestEntries.contestId) })
+		.from(contestEntries)
+		.where(inArray(contestEntries.entrantId, [...memberIds]))
+		.groupBy(contestEntries.entrantId);
+	return new Map(rows.map((r) => [r.id, r.n]));
 }

@@ -1,7 +1,7 @@
 // Tank profiles. Every read takes the viewer and goes through canView, so who may see a tank
 // (and its photos, see ./photo-access.ts) is decided here and nowhere else. Deleting a tank,
 // which takes its journal with it, is ./tank-deletion.ts.
-import { and, asc, desc, eq, inArray, isNull, isNotNull, notInArray, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNull, isNotNull, ne, notInArray, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../db';
 import { resolve, within, type Context } from '../context';
 import * as media from '../media';
@@ -381,3 +381,14 @@ export async function reopen(viewer: Pick<Viewer, 'id'>, id: number, context: Co
 
 /** The computed figures of a tank (volume, weight, light, turnover, age, cautions) on the day of `context.now`; see $lib/journals/figures. */
 export const tankFigures = (tank: Tank, context: Context = {}) => figuresOf(tank, context.now ?? new Date());
+
+/** How many running tanks each of these members shows other members (not private ones), by member id. */
+export async function sharedCounts(ownerIds: readonly string[], context: Context = {}): Promise<Map<string, number>> {
+	if (ownerIds.length === 0) return new Map();
+	const rows = await resolve(context)
+		.db.select({ ownerId: tanks.ownerId, n: count() })
+		.from(tanks)
+		.where(and(inArray(tanks.ownerId, [...ownerIds]), isNull(tanks.retiredOn), ne(tanks.visibility, 'private')))
+		.groupBy(tanks.ownerId);
+	return new Map(rows.map((r) => [r.ownerId, r.n]));
+}

@@ -3,6 +3,8 @@ import { desc, eq } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as directory from '../club/directory';
+import * as suspension from '../club/suspension';
+import { hasRole } from '../../club/roles';
 import * as catalogue from '../species/catalogue';
 import * as tanks from '../journals/tanks';
 import * as media from '../media';
@@ -110,6 +112,8 @@ async function detail(viewer: Viewer | null, row: ListingRow, context: Context):
 export async function get(viewer: Viewer | null, id: number, context: Context = {}): Promise<ListingDetail | null> {
 	const row = await rowOf(id, context);
 	if (!row || !canView(viewer, row)) return null;
+	// A suspended member's listing is hidden from everyone but admins (and stays for reinstatement).
+	if (!hasRole(viewer, 'admin') && (await suspension.suspendedAmong([row.ownerId], context)).size) return null;
 	return detail(viewer, row, context);
 }
 

@@ -1,6 +1,6 @@
 // A member's small profile as other members see it: name, roughly where (an area name, or "near"
 // the nearest area for a point of their own, never the point), completed swaps.
-import { and, count, eq, or } from 'drizzle-orm';
+import { and, count, eq, inArray, or } from 'drizzle-orm';
 import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as users from '../club/users';
@@ -38,6 +38,28 @@ export async function completedSwaps(userId: string, context: Context = {}): Pro
 		.from(listings)
 		.where(and(eq(listings.state, 'handed-over'), or(eq(listings.ownerId, userId), eq(listings.reservedRequesterId, userId))));
 	return row?.n ?? 0;
+}
+
+/** Swaps each of these members has completed, as giver or receiver, by member id. */
+export async function completedSwapsOf(userIds: readonly string[], context: Context = {}): Promise<Map<string, number>> {
+	if (userIds.length === 0) return new Map();
+	const { db } = resolve(context);
+	const ids = [...userIds];
+	const [given, received] = await Promise.all([
+		db
+			.select({ id: listings.ownerId, n: count() })
+			.from(listings)
+			.where(and(eq(listings.state, 'handed-over'), inArray(listings.ownerId, ids)))
+			.groupBy(listings.ownerId),
+		db
+			.select({ id: listings.reservedRequesterId, n: count() })
+			.from(listings)
+			.where(and(eq(listings.state, 'handed-over'), inArray(listings.reservedRequesterId, ids)))
+			.groupBy(listings.reservedRequesterId)
+	]);
+	const counts = new Map<string, number>();
+	for (const row of [...given, ...received]) if (row.id) counts.set(row.id, (counts.get(row.id) ?? 0) + row.n);
+	return counts;
 }
 
 /** A member as other members see them; null for no such member, or one who has not named themselves yet. */

@@ -7,11 +7,12 @@
 // their own point is the shown figures and nothing finer. Without a location the board is newest
 // first. The query reads the listing table alone; the names on the cards come afterwards, a batch
 // per page (listing-cards.ts).
-import { and, count, desc, eq, gt, inArray, like, notExists, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, gt, inArray, like, notExists, notInArray, or, sql, type AnyColumn, type SQL } from 'drizzle-orm';
 import { db as appDb } from '../db';
 import { resolve, type Context } from '../context';
 import type { Viewer } from '../club/users';
 import * as users from '../club/users';
+import * as suspension from '../club/suspension';
 import * as matching from '../species/matching';
 import type { LatLng } from '../../club/location';
 import { boundingBox, MEAN_EARTH_RADIUS_M } from '../../swaps/distance';
@@ -90,6 +91,9 @@ export async function boardWhere(viewer: Pick<Viewer, 'id' | 'units'>, filter: B
 			or(like(listings.title, pattern), like(listings.speciesName, pattern), commonNamed.length ? inArray(listings.speciesId, commonNamed) : undefined)
 		);
 	}
+	// A suspended member's listings leave the board until they are reinstated.
+	const suspended = await suspension.suspendedIds(context);
+	if (suspended.length) conditions.push(notInArray(listings.ownerId, suspended));
 	// Listings of members the viewer has blocked are hidden from them.
 	conditions.push(
 		notExists(

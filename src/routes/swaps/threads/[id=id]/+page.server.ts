@@ -14,6 +14,8 @@ import type { Actions, PageServerLoad } from './$types';
 // A conversation does not exist for anyone but its two members (and an admin handling a report):
 // signed out included, so a link to it reveals nothing. The error page offers to sign in.
 const NOT_FOUND = 'We could not find that conversation.';
+/** A long conversation opens at its newest messages; the earlier ones are a link away. */
+const SHOWN_MESSAGES = 50;
 
 export const load = (async (event) => {
 	if (!event.locals.user) error(404, NOT_FOUND);
@@ -23,11 +25,15 @@ export const load = (async (event) => {
 	const thread = await threads.get(viewer, id, { now });
 	if (!thread) error(404, NOT_FOUND);
 	if (thread.role !== 'admin' && threads.hasUnread(thread.messages, viewer.id)) await threads.markRead(viewer, id, { now });
-	const { pure, ...shown } = thread;
+	const { pure, messages, ...shown } = thread;
+	// The pickup states above were worked out from every message; only the page shows fewer.
+	const everything = event.url.searchParams.get('all') === '1';
+	const latest = everything ? messages : messages.slice(-SHOWN_MESSAGES);
 	const actions = thread.role === 'admin' ? [] : availableActions(pure, { kind: 'member', userId: viewer.id }, now);
 	const relation = thread.otherId ? await blocks.between(viewer.id, thread.otherId) : { aBlockedB: false, bBlockedA: false };
 	return {
-		thread: shown,
+		thread: { ...shown, messages: latest },
+		earlier: messages.length - latest.length,
 		canAccept: thread.role === 'owner' && thread.status === 'waiting' && actions.includes('accept') && thread.canWrite,
 		canConfirmHandover: thread.status === 'accepted' && actions.includes('confirm-handover'),
 		canRelease: thread.role === 'owner' && thread.status === 'accepted' && actions.includes('release'),

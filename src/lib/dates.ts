@@ -30,3 +30,15 @@ export function isTimeZone(name: string): boolean {
 		return false;
 	}
 }
+
+const hourFormatters = new Map<string, Intl.DateTimeFormat>();
+
+/** The hour of the day (0–23) `at` falls on in `timeZone`. */
+export function hourOf(at: Date, timeZone = 'UTC'): number {
+	let f = hourFormatters.get(timeZone);
+	if (!f) {
+		f = new Intl.DateTimeFormat('en-GB', { timeZone, hour: 'numeric', hourCycle: 'h23' });
+		hourFormatters.set(timeZone, f);
+	}
+	return Number(f.format(at));
+}

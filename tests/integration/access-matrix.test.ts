@@ -437,12 +437,14 @@ const rows: Row[] = [
 	{ method: 'POST', path: '/away?/helper', form: () => ({ helper: 'off' }), expect: signedIn(200) },
 	{ path: '/away/:plan', expect: ownerOnly(200) },
 	{ path: '/away/:plan/print', expect: ownerOnly(200) },
+	{ path: '/away/:plan/summary', expect: ownerOnly(200) },
 	{ method: 'POST', path: '/away/:plan?/save', form: () => ({ body: 'Look in every other day.' }), expect: ownerOnly(200) },
 	// Not a member's id: refused at the field.
 	{ method: 'POST', path: '/away/:plan?/ask', form: () => ({ sitterId: 'nobody' }), expect: ownerOnly(400) },
 	{ method: 'POST', path: '/away/:plan?/withdraw', form: () => ({ request: '1' }), expect: ownerOnly(404) },
 	{ method: 'POST', path: '/away/:plan?/share', form: () => ({}), expect: ownerOnly(200) },
 	{ method: 'POST', path: '/away/:plan?/unshare', form: () => ({}), expect: ownerOnly(200) },
+	{ method: 'POST', path: '/away/:plan?/visitMail', form: () => ({ visitMail: 'daily' }), expect: ownerOnly(200) },
 	// The keeper is not their own sitter (and the period has not begun).
 	{ method: 'POST', path: '/away/:plan?/visit', form: () => ({ done: 'Looked', note: 'x' }), expect: ownerOnly(409) },
 	{ path: '/away/shared/not-a-real-token-of-any-plan-00000', expect: everyone(404) },

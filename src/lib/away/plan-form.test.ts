@@ -11,15 +11,16 @@ describe('the away form', () => {
 		evaporationLitresPerDay: '0,4'
 	};
 	test('reads a filled form, with a decimal comma', () => {
-		expect(awayPlanForm.parse(good)).toEqual({ ...good, keeperPhone: '+44 (0)7700 900123', evaporationLitresPerDay: 0.4 });
+		expect(awayPlanForm.parse(good)).toEqual({ ...good, keeperPhone: '+44 (0)7700 900123', evaporationLitresPerDay: 0.4, visitMail: 'each' });
+		expect(awayPlanForm.parse({ ...good, visitMail: 'daily' }).visitMail).toBe('daily');
 	});
 	test('an empty evaporation stays unknown', () => {
 		expect(awayPlanForm.parse({ ...good, evaporationLitresPerDay: '' }).evaporationLitresPerDay).toBeNull();
 	});
 	test('refuses impossible days, unknown choices and letters in the number', () => {
-		const result = awayPlanForm.safeParse({ ...good, startsOn: '2026-02-30', feeding: 'lots', keeperPhone: 'call me' });
+		const result = awayPlanForm.safeParse({ ...good, startsOn: '2026-02-30', feeding: 'lots', keeperPhone: 'call me', visitMail: 'weekly' });
 		expect(result.success).toBe(false);
 		const fields = result.success ? [] : result.error.issues.map((i) => i.path[0]);
-		expect(fields).toEqual(expect.arrayContaining(['startsOn', 'feeding', 'keeperPhone']));
+		expect(fields).toEqual(expect.arrayContaining(['startsOn', 'feeding', 'keeperPhone', 'visitMail']));
 	});
 });

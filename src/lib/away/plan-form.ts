@@ -1,7 +1,8 @@
-// The form that starts an away period: the days, feeding and light, how to reach the keeper, and
+// The form that starts an away period: the days, feeding and light, how the keeper hears of visits,
+// how to reach the keeper, and
 // the evaporation when the keeper knows it better than the logged top-ups do.
 import { z } from 'zod';
-import { FEEDING_CHOICES, LIGHTING_CHOICES } from './vocabulary';
+import { FEEDING_CHOICES, LIGHTING_CHOICES, VISIT_MAIL_CHOICES } from './vocabulary';
 
 const day = (message: string) =>
 	z
@@ -15,6 +16,7 @@ export const awayPlanForm = z.object({
 	endsOn: day('Give the day you are back.'),
 	feeding: z.enum(FEEDING_CHOICES, { message: 'Choose how the animals are fed.' }),
 	lighting: z.enum(LIGHTING_CHOICES, { message: 'Choose what happens to the light.' }),
+	visitMail: z.enum(VISIT_MAIL_CHOICES, { message: 'Choose how you hear of visits.' }).default('each'),
 	keeperPhone: z
 		.string()
 		.trim()

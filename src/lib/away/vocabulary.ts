@@ -24,3 +24,10 @@ export const SITTER_STATE_LABELS: Record<SitterState, string> = {
 	declined: 'Said no',
 	withdrawn: 'Request taken back'
 };
+
+export const VISIT_MAIL_CHOICES = ['each', 'daily'] as const;
+export type VisitMailChoice = (typeof VISIT_MAIL_CHOICES)[number];
+export const VISIT_MAIL_LABELS: Record<VisitMailChoice, string> = {
+	each: 'A mail after each visit',
+	daily: 'One mail a day with the day’s visits'
+};

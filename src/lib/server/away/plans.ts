@@ -15,6 +15,7 @@ import { today } from '../../dates';
 import { carePlanMarkdown, daysAway, MAX_AWAY_DAYS, type CarePlanInput } from '../../away/care-plan';
 import { evaporationPerDay } from '../../away/evaporation';
 import type { AwayPlanInput } from '../../away/plan-form';
+import type { VisitMailChoice } from '../../away/vocabulary';
 import { awayHelpers, awayPlans, awaySitters, awayVisits, type AwayPlanRow, type AwaySitterRow, type AwayVisitRow } from './schema';
 
 export type { AwayPlanRow };
@@ -58,7 +59,7 @@ export async function ownPlan(viewer: Pick<Viewer, 'id'>, planId: number, contex
 }
 
 /** What the draft is made from: the tank's lists and schedule, and the evaporation of its logged top-ups. */
-async function draftInput(tank: tanks.Tank, input: AwayPlanInput, context: Context): Promise<CarePlanInput> {
+async function draftInput(tank: tanks.Tank, input: Omit<AwayPlanInput, 'visitMail'>, context: Context): Promise<CarePlanInput> {
 	const { now } = resolve(context);
 	const [tasks, topUps] = await Promise.all([upkeep.listForTank(tank.id, context), upkeep.topUpsOf(tank.id, context)]);
 	const logged = evaporationPerDay(topUps, today('UTC', now));
@@ -93,7 +94,12 @@ export async function loggedEvaporation(viewer: Pick<Viewer, 'id'>, tankId: numb
  * back that is not after the day of leaving, a period over two months, and a period that overlaps
  * another of the same tank.
  */
-export async function start(viewer: Pick<Viewer, 'id'>, tankId: number, input: AwayPlanInput, context: Context = {}): Promise<number> {
+export async function start(
+	viewer: Pick<Viewer, 'id'>,
+	tankId: number,
+	input: Omit<AwayPlanInput, 'visitMail'> & { visitMail?: VisitMailChoice },
+	context: Context = {}
+): Promise<number> {
 	const { db, now } = resolve(context);
 	const tank = await tanks.getOwn(viewer, tankId, context);
 	if (!tank) throw tanks.tankNotFound();
@@ -129,6 +135,7 @@ export async function start(viewer: Pick<Viewer, 'id'>, tankId: number, input: A
 			endsOn: input.endsOn,
 			feeding: input.feeding,
 			lighting: input.lighting,
+			visitMail: input.visitMail ?? 'each',
 			keeperPhone: input.keeperPhone,
 			body,
 			bodyHtml: renderMarkdown(body),
@@ -152,6 +159,13 @@ export async function saveBody(viewer: Pick<Viewer, 'id'>, planId: number, body:
 		.update(awayPlans)
 		.set({ body: text, bodyHtml: renderMarkdown(text), updatedAt: now })
 		.where(eq(awayPlans.id, plan.id));
+}
+
+/** The keeper's choice between a mail after each visit and one a day. */
+export async function setVisitMail(viewer: Pick<Viewer, 'id'>, planId: number, choice: VisitMailChoice, context: Context = {}): Promise<void> {
+	const { db, now } = resolve(context);
+	const plan = await ownPlan(viewer, planId, context);
+	await db.update(awayPlans).set({ visitMail: choice, updatedAt: now }).where(eq(awayPlans.id, plan.id));
 }
 
 const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');

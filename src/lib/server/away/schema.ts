@@ -2,7 +2,7 @@ import { date, index, json, mediumtext, mysqlEnum, mysqlTable, primaryKey, uniqu
 import { at, createdAt, id, ref } from '../db/columns';
 import { users } from '../club/schema';
 import { journalEntries, tanks } from '../journals/schema';
-import { FEEDING_CHOICES, LIGHTING_CHOICES, SITTER_STATES } from '../../away/vocabulary';
+import { FEEDING_CHOICES, LIGHTING_CHOICES, SITTER_STATES, VISIT_MAIL_CHOICES } from '../../away/vocabulary';
 
 // Away care: a keeper's care plan for one tank over the days they are away, the members asked to
 // look in, and the visits those who said yes logged. A visit's text and photos are a journal
@@ -25,6 +25,10 @@ export const awayPlans = mysqlTable(
 		feeding: mysqlEnum(FEEDING_CHOICES).notNull(),
 		lighting: mysqlEnum(LIGHTING_CHOICES).notNull(),
 		keeperPhone: varchar({ length: 40 }).notNull().default(''),
+		/** How the keeper hears of visits: a mail after each, or one a day. */
+		visitMail: mysqlEnum(VISIT_MAIL_CHOICES).notNull().default('each'),
+		/** The keeper's day (in their zone) the last daily digest of visits went out. */
+		digestSentOn: date({ mode: 'string' }),
 		/** The plan as the keeper edited it (markdown). */
 		body: mediumtext().notNull(),
 		/** The plan rendered once when written (see ../markdown-fields.ts). */
@@ -76,9 +80,28 @@ export const awayVisits = mysqlTable(
 		/** What was ticked, as the plan's lines read. */
 		done: json().$type<string[]>().notNull(),
 		note: varchar({ length: 1000 }).notNull().default(''),
+		/** When the keeper was mailed about it (at once, or in a daily digest); null while it waits. */
+		keeperMailedAt: at(),
 		createdAt: createdAt()
 	},
 	(t) => [index('away_visit_plan_idx').on(t.planId, t.visitedOn)]
+);
+
+/** A missed visit day a sitter was reminded of: one row per plan, sitter and day, so each is sent once. */
+export const awayReminders = mysqlTable(
+	'away_reminder',
+	{
+		planId: ref()
+			.notNull()
+			.references(() => awayPlans.id, { onDelete: 'cascade' }),
+		sitterId: varchar({ length: 255 })
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		/** The visit day, in the sitter's zone. */
+		day: date({ mode: 'string' }).notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [primaryKey({ columns: [t.planId, t.sitterId, t.day] })]
 );
 
 /** Members who said they can look after tanks near them. */

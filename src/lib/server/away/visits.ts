@@ -7,11 +7,12 @@ import * as tanks from '../journals/tanks';
 import * as journalEntries from '../journals/journal-entries';
 import * as upkeep from '../journals/upkeep';
 import { enqueue } from '../mail/outbox';
-import { renderMail } from '../mail/templates';
 import { absoluteUrl } from '../config';
 import { conflict, invalid } from '../../errors';
 import { today } from '../../dates';
+import { zoneOf } from '../../club/viewer';
 import { formatDate } from '../../format';
+import { visitsMail } from './notices';
 import type { PhotoField } from '../../media/form';
 import { awayVisits } from './schema';
 import { readable } from './plans';
@@ -33,30 +34,22 @@ export async function tasksOf(viewer: Pick<Viewer, 'id'>, planId: number, contex
 	return (await upkeep.listForTank(plan.tankId, context)).map((t) => ({ id: t.id, label: t.label }));
 }
 
-function visitMail(input: { memberId: string; sitterName: string; tankName: string; day: string; done: string[]; note: string; url: string }) {
-	const { html, text } = renderMail({
-		heading: `${input.sitterName} looked in on ${input.tankName}`,
-		paragraphs: [
-			`On ${formatDate(input.day)}, ${input.sitterName} looked in on ${input.tankName}.`,
-			input.done.length ? `Done: ${input.done.join('; ')}.` : 'Nothing was ticked on the plan.',
-			...(input.note ? [`Their note: “${input.note}”`] : [])
-		],
-		action: { label: 'See the visit and its photos', url: input.url },
-		footer: 'You get this because you asked a member to look after your tank while you are away.',
-		to: { memberId: input.memberId, category: 'account' }
-	});
-	return { subject: `${input.sitterName} looked in on ${input.tankName}`, html, text };
-}
-
 /**
- * Logs today's visit by a member who agreed to look in, while the period runs. The entry on the
- * tank is the sitter's; the keeper is mailed once per visit.
+ * Logs today's visit (the sitter's today, in their zone) by a member who agreed to look in, while
+ * the period runs. The entry on the tank is the sitter's; the keeper is mailed at once when they
+ * chose a mail per visit, else the visit waits for the day's digest (./notices.ts).
  */
-export async function log(viewer: Pick<Viewer, 'id'>, planId: number, input: VisitInput, photos: PhotoField[], context: Context = {}): Promise<number> {
+export async function log(
+	viewer: Pick<Viewer, 'id' | 'timeZone'>,
+	planId: number,
+	input: VisitInput,
+	photos: PhotoField[],
+	context: Context = {}
+): Promise<number> {
 	const { db, now } = resolve(context);
 	const { plan, role } = await readable(viewer, planId, context);
 	if (role !== 'sitter') throw conflict('not-sitter', 'Visits are logged by the member looking in.');
-	const day = today('UTC', now);
+	const day = today(zoneOf(viewer), now);
 	if (day < plan.startsOn) throw conflict('not-yet', `The away period starts on ${formatDate(plan.startsOn)}.`);
 	const note = input.note.replace(/\r\n/g, '\n').trim();
 	if (note.length > VISIT_NOTE_MAX) throw invalid({ note: `Keep the note to ${VISIT_NOTE_MAX} characters.` });
@@ -77,17 +70,16 @@ export async function log(viewer: Pick<Viewer, 'id'>, planId: number, input: Vis
 			photos,
 			inTx
 		);
-		const [result] = await tx.insert(awayVisits).values({ planId: plan.id, sitterId: viewer.id, visitedOn: day, entryId, done, note, createdAt: now });
+		const atOnce = plan.visitMail === 'each';
+		const [result] = await tx
+			.insert(awayVisits)
+			.values({ planId: plan.id, sitterId: viewer.id, visitedOn: day, entryId, done, note, keeperMailedAt: atOnce ? now : null, createdAt: now });
 		const keeper = people.get(plan.keeperId);
-		if (keeper?.email) {
-			const mail = visitMail({
-				memberId: plan.keeperId,
-				sitterName,
+		if (atOnce && keeper?.email) {
+			const mail = visitsMail({
 				tankName,
-				day,
-				done,
-				note,
-				url: absoluteUrl(`/journals/${plan.tankId}/entries/${entryId}`)
+				url: absoluteUrl(`/journals/${plan.tankId}/entries/${entryId}`),
+				visits: [{ sitterName, day, done, note }]
 			});
 			await enqueue(
 				{ to: keeper.email, ...mail, category: 'account', memberId: plan.keeperId, topic: `away:${plan.id}`, dedupeKey: `away-visit:${result.insertId}` },

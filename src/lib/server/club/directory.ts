@@ -17,6 +17,8 @@ export interface Member {
 	email: string;
 	role: Role;
 	unsubscribeToken: string;
+	/** The member's IANA zone, or null while none is known (their days are then UTC days). */
+	timeZone: string | null;
 }
 
 const columns = {
@@ -25,6 +27,7 @@ const columns = {
 	email: users.email,
 	role: users.role,
 	unsubscribeToken: users.unsubscribeToken,
+	timeZone: users.timeZone,
 	deletedAt: users.deletedAt,
 	state: users.state
 };

@@ -7,6 +7,7 @@ import { sendWeeklyDigests } from '../journals/digest';
 import { expireDue } from '../swaps/expiry';
 import { sendDue } from '../swaps/notifications';
 import { sendDueReminders } from '../contests/reminders';
+import * as awayNotices from '../away/notices';
 import type { Job } from './runner';
 
 const pruneSignInRequests: Job = {
@@ -50,4 +51,11 @@ const contestReminders: Job = {
 	run: ({ now }) => sendDueReminders({ now })
 };
 
-export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest, expireSwapListings, mailSwapMessages, contestReminders];
+/** Away care: keepers' daily digests of visits, sitters' reminders of a missed visit day, and keepers' summaries once back. */
+const awayCare: Job = {
+	name: 'away-care',
+	everyMs: 10 * 60_000,
+	run: ({ now }) => awayNotices.runDue({ now })
+};
+
+export const jobs: Job[] = [pruneSignInRequests, sweepPendingMedia, weeklyJournalDigest, expireSwapListings, mailSwapMessages, contestReminders, awayCare];

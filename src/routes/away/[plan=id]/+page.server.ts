@@ -8,6 +8,7 @@ import * as sitters from '$lib/server/away/sitters';
 import * as visits from '$lib/server/away/visits';
 import { invalid, parseOrThrow } from '$lib/errors';
 import { checklistOf } from '$lib/away/care-plan';
+import { VISIT_MAIL_CHOICES } from '$lib/away/vocabulary';
 import { distanceUnitOf } from '$lib/journals/calc/units';
 import { readPhotoFields } from '$lib/media/form';
 import { ENTRY_PHOTOS_MAX } from '$lib/journals/journal-vocabulary';
@@ -45,6 +46,7 @@ export const load = pageLoad(async (event) => {
 	};
 }) satisfies PageServerLoad;
 
+const visitMailForm = z.object({ visitMail: z.enum(VISIT_MAIL_CHOICES, { message: 'Choose how you hear of visits.' }) });
 const bodyForm = z.object({ body: z.string({ message: 'Write the plan.' }) });
 const askForm = z.object({ sitterId: z.string().min(1, 'Choose a member.').max(255) });
 const withdrawForm = z.object({
@@ -75,6 +77,14 @@ export const actions = {
 			return { saved: true };
 		},
 		{ id: 'save' }
+	),
+	visitMail: formAction(
+		async (event, data) => {
+			const viewer = requireUser(event);
+			await plans.setVisitMail(viewer, Number(event.params.plan), parseForm(visitMailForm, data).visitMail);
+			return { visitMailSaved: true };
+		},
+		{ id: 'visitMail' }
 	),
 	ask: formAction(
 		async (event, data) => {

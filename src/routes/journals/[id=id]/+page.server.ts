@@ -6,6 +6,7 @@ import * as tanks from '$lib/server/journals/tanks';
 import * as tankDeletion from '$lib/server/journals/tank-deletion';
 import * as social from '$lib/server/journals/social';
 import * as timeline from '$lib/server/journals/timeline';
+import * as tankPhotos from '$lib/server/journals/tank-photos';
 import * as upkeep from '$lib/server/journals/upkeep';
 import * as water from '$lib/server/journals/water';
 import { storedHtml } from '$lib/server/markdown';
@@ -26,12 +27,22 @@ export const load = (async (event) => {
 	if (!tank) notFoundOrSignIn(event, 'We could not find that tank.');
 	const isOwner = tanks.isOwner(viewer, tank);
 	const now = new Date();
-	const [page, standing, tests, schedule] = await Promise.all([
+	const [page, standing, tests, schedule, photoDays] = await Promise.all([
 		timeline.pageOf(tank.id, Number(event.url.searchParams.get('page') ?? 1)),
 		social.standingOf(viewer, tank.id),
 		water.latestOf(tank.id),
-		isOwner ? upkeep.scheduleOfTank(tank.id, zoneOf(viewer), { now }) : Promise.resolve([])
+		isOwner ? upkeep.scheduleOfTank(tank.id, zoneOf(viewer), { now }) : Promise.resolve([]),
+		tankPhotos.photoDays(viewer, tank.id)
 	]);
+	// Then and now: two of the days with photos the viewer may see (the oldest and newest unless chosen).
+	const days = photoDays ?? [];
+	const chosen = (name: string, fallback: string | undefined) => {
+		const value = event.url.searchParams.get(name);
+		return value && days.includes(value) ? value : fallback;
+	};
+	const thenDay = chosen('then', days.at(-1));
+	const nowDay = chosen('now', days[0]);
+	const compared = days.length >= 2 && thenDay && nowDay ? await tankPhotos.compare(viewer, tank.id, { then: thenDay, now: nowDay }) : null;
 	const units = viewer?.units ?? 'metric';
 	const latest = tests[0] ?? null;
 	return {
@@ -47,7 +58,8 @@ export const load = (async (event) => {
 		testCount: tests.length,
 		latestTest: latest ? { test: latest, derived: derivedFigures(latest) } : null,
 		warnings: latestWarnings(buildSeries(tests, units)),
-		hasFeed: tank.visibility === 'public'
+		hasFeed: tank.visibility === 'public',
+		comparison: compared?.then && compared.now ? { days, thenDay: thenDay!, nowDay: nowDay!, then: compared.then, now: compared.now } : null
 	};
 }) satisfies PageServerLoad;
 

@@ -10,4 +10,5 @@ ALTER TABLE `away_plan` ADD `visit_mail` enum('each','daily') DEFAULT 'each' NOT
 ALTER TABLE `away_plan` ADD `digest_sent_on` date;--> statement-breakpoint
 ALTER TABLE `away_visit` ADD `keeper_mailed_at` datetime(3);--> statement-breakpoint
 ALTER TABLE `away_reminder` ADD CONSTRAINT `away_reminder_plan_id_away_plan_id_fk` FOREIGN KEY (`plan_id`) REFERENCES `away_plan`(`id`) ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
-ALTER TABLE `away_reminder` ADD CONSTRAINT `away_reminder_sitter_id_user_id_fk` FOREIGN KEY (`sitter_id`) REFERENCES `user`(`id`) ON DELETE cascade ON UPDATE no action;--> statement-breakpointUPDATE `away_visit` SET `keeper_mailed_at` = `created_at` WHERE `keeper_mailed_at` IS NULL;
+ALTER TABLE `away_reminder` ADD CONSTRAINT `away_reminder_sitter_id_user_id_fk` FOREIGN KEY (`sitter_id`) REFERENCES `user`(`id`) ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+UPDATE `away_visit` SET `keeper_mailed_at` = `created_at` WHERE `keeper_mailed_at` IS NULL;

@@ -88,7 +88,10 @@ export async function sendVisitDigests(context: Context = {}): Promise<number> {
 					url: absoluteUrl(`/away/${plan.id}`),
 					visits: visits.map((v: AwayVisitRow) => ({ sitterName: names.get(v.sitterId) ?? 'A member', day: v.visitedOn, done: v.done, note: v.note }))
 				});
-				await enqueue({ to: keeper.email, ...mail, category: 'account', memberId: plan.keeperId, topic: `away:${plan.id}`, dedupeKey: `away-digest:${plan.id}:${day}` }, { db: tx, now });
+				await enqueue(
+					{ to: keeper.email, ...mail, category: 'account', memberId: plan.keeperId, topic: `away:${plan.id}`, dedupeKey: `away-digest:${plan.id}:${day}` },
+					{ db: tx, now }
+				);
 			}
 			await tx
 				.update(awayVisits)
@@ -161,7 +164,17 @@ export async function remindMissedVisits(context: Context = {}): Promise<number>
 				day,
 				url: absoluteUrl(`/away/${plan.id}`)
 			});
-			await enqueue({ to: sitter.email, ...mail, category: 'account', memberId: sitterId, topic: `away:${plan.id}`, dedupeKey: `away-missed:${plan.id}:${sitterId}:${day}` }, { db: tx, now });
+			await enqueue(
+				{
+					to: sitter.email,
+					...mail,
+					category: 'account',
+					memberId: sitterId,
+					topic: `away:${plan.id}`,
+					dedupeKey: `away-missed:${plan.id}:${sitterId}:${day}`
+				},
+				{ db: tx, now }
+			);
 			return true;
 		});
 		if (claimed) sent++;
@@ -221,7 +234,10 @@ export async function sendSummaries(context: Context = {}): Promise<number> {
 				days: daysAway(plan.startsOn, plan.endsOn),
 				url: absoluteUrl(`/away/${plan.id}/summary`)
 			});
-			await enqueue({ to: keeper.email, ...mail, category: 'account', memberId: plan.keeperId, topic: `away:${plan.id}`, dedupeKey: `away-summary:${plan.id}` }, { db: tx, now });
+			await enqueue(
+				{ to: keeper.email, ...mail, category: 'account', memberId: plan.keeperId, topic: `away:${plan.id}`, dedupeKey: `away-summary:${plan.id}` },
+				{ db: tx, now }
+			);
 			return true;
 		});
 		if (claimed) sent++;

@@ -183,7 +183,7 @@ describe('failures part-way leave no row and no object', () => {
 				await real.put(key, body, type);
 			}
 		};
-		await expect(media.upload(person.id, await jpeg(), { store: flaky })).rejects.toThrow('simulated storage outage');
+		await expect(media.upload(person.id, await jpeg(), { store: flaky })).rejects.toMatchObject({ status: 503, code: 'storage-unavailable' });
 		expect(puts).toBe(3);
 		await expectNothingStored(person);
 	});

@@ -104,6 +104,11 @@ describe('helpers', () => {
 			'<a href="https://x.test/a">x</a><a href="//evil.test/">y</a><img src="https://riparia.test/media/1/thumb">'
 		);
 	});
+	test('absoluteLinks makes path-relative addresses absolute on the origin too', () => {
+		expect(absoluteLinks('<img src="x"><a href="#part">p</a><a href="?q=1">q</a>', ORIGIN)).toBe(
+			'<img src="https://riparia.test/x"><a href="https://riparia.test/#part">p</a><a href="https://riparia.test/?q=1">q</a>'
+		);
+	});
 	test('plainSummary drops markdown and cuts at a word', () => {
 		expect(plainSummary('# Week one\n\n**Planted** the [stems](https://x.test) ![pic](/media/1/thumb) today.')).toBe('Week one Planted the stems today.');
 		expect(plainSummary('- long-term plan\n- two\n1. three')).toBe('long-term plan two three');

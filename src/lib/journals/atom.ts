@@ -38,10 +38,18 @@ export function escapeXml(text: string): string {
 	return text.replace(NOT_XML, '').replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c]!);
 }
 
-/** Root-relative href and src values in sanitised HTML made absolute against `origin`. */
+/**
+ * Relative href and src values in sanitised HTML made absolute on `origin` (a feed reader or a mail
+ * has no base address to resolve them against): root-relative ones as they are, path-relative ones
+ * ("x", "#part") as if written at the site's root. Absolute and protocol-relative values are left
+ * alone, so nothing here can point a link somewhere new.
+ */
 export function absoluteLinks(html: string, origin: string): string {
 	const base = origin.replace(/\/$/, '');
-	return html.replace(/\b(href|src)="\/(?!\/)/g, `$1="${base}/`);
+	return html.replace(/\b(href|src)="([^"]*)"/g, (whole, attribute: string, value: string) => {
+		if (/^[a-z][a-z0-9+.-]*:/i.test(value) || value.startsWith('//')) return whole;
+		return `${attribute}="${base}${value.startsWith('/') ? '' : '/'}${value}"`;
+	});
 }
 
 const stamp = (d: Date) => d.toISOString();

@@ -109,6 +109,9 @@ describe('helpers', () => {
 			'<img src="https://riparia.test/x"><a href="https://riparia.test/#part">p</a><a href="https://riparia.test/?q=1">q</a>'
 		);
 	});
+	test('plainSummary keeps no raw HTML of the markdown', () => {
+		expect(plainSummary('Hello <script>alert(1)</script>\n\n<img src="x" onerror="alert(2)">\n\nBye')).toBe('Hello alert(1) Bye');
+	});
 	test('plainSummary drops markdown and cuts at a word', () => {
 		expect(plainSummary('# Week one\n\n**Planted** the [stems](https://x.test) ![pic](/media/1/thumb) today.')).toBe('Week one Planted the stems today.');
 		expect(plainSummary('- long-term plan\n- two\n1. three')).toBe('long-term plan two three');

@@ -89,6 +89,8 @@ export function buildAtomFeed(feed: FeedInput, origin: string): string {
 /** A line of plain text from markdown for a summary: markup characters dropped, cut at a word. */
 export function plainSummary(markdown: string, max = 200): string {
 	const text = markdown
+		// Raw HTML in the markdown is markup, not words: a summary keeps none of it.
+		.replace(/<[^>]*>?/g, ' ')
 		.replace(/!\[[^\]]*\]\([^)]*\)/g, '')
 		.replace(/\[([^\]]*)\]\([^)]*\)/g, '$1')
 		.replace(/^\s*(?:[-+*]|\d+\.)\s+/gm, '')

@@ -138,8 +138,9 @@ export async function remindMissedVisits(context: Context = {}): Promise<number>
 		.limit(2000);
 	if (rows.length === 0) return 0;
 	const planIds = [...new Set(rows.map((r) => r.plan.id))];
-	const [people, visitRows] = await Promise.all([
+	const [people, tankNames, visitRows] = await Promise.all([
 		directory.byIds([...rows.map((r) => r.sitterId), ...rows.map((r) => r.plan.keeperId)], context),
+		tanks.namesOf([...new Set(rows.map((r) => r.plan.tankId))], context),
 		db
 			.select({ planId: awayVisits.planId, visitedOn: awayVisits.visitedOn })
 			.from(awayVisits)
@@ -153,7 +154,7 @@ export async function remindMissedVisits(context: Context = {}): Promise<number>
 		if (!sitter?.email || !acceptedAt) continue;
 		const day = missedVisitDay(plan, { now, zone: zone(sitter), acceptedAt, loggedDays: logged.get(plan.id) ?? new Set() });
 		if (!day) continue;
-		const tankName = (await tanks.namesOf([plan.tankId], context)).get(plan.tankId) ?? 'a tank';
+		const tankName = tankNames.get(plan.tankId) ?? 'a tank';
 		const claimed = await db.transaction(async (tx) => {
 			const [result] = await tx.insert(awayReminders).ignore().values({ planId: plan.id, sitterId, day, createdAt: now });
 			if (result.affectedRows !== 1) return false;
